@@ -1,0 +1,170 @@
+// The shapes that cross the geometry package's edge: an event as the event file states it (after
+// defaults are applied) and a solution as the solution file states it. docs/file-formats.md describes both.
+// Units are in the names; angles are degrees here at the edge and radians inside.
+
+export type TimeScale = 'UTC' | 'TT' | 'TDB';
+
+export interface StarInput {
+  raDeg: number;
+  decDeg: number;
+  catalogEpochJyear: number;
+  pmRaCosDecMasPerYear: number;
+  pmDecMasPerYear: number;
+  parallaxMas: number;
+  angularDiameterMas?: number;
+}
+
+export interface EphemerisRow {
+  /** ISO 8601 time in the ephemeris' declared scale, e.g. "2028-03-14T02:10:00". */
+  time: string;
+  raDeg: number;
+  decDeg: number;
+  distanceKm: number;
+}
+
+export interface StationInput {
+  id: string;
+  latDeg: number;
+  lonDeg: number;
+  heightM: number;
+}
+
+export interface TimedMark {
+  /** ISO 8601 UTC, ending in Z. */
+  time: string;
+  sigmaSeconds: number;
+}
+
+export interface PositiveChordInput {
+  station: string;
+  type: 'positive';
+  disappearance: TimedMark;
+  reappearance: TimedMark;
+  timeOffsetSeconds: number;
+}
+
+export interface NegativeChordInput {
+  station: string;
+  type: 'negative';
+  start: string;
+  end: string;
+  timeOffsetSeconds: number;
+}
+
+export type ChordInput = PositiveChordInput | NegativeChordInput;
+
+export interface RingEventInput {
+  station: string;
+  ring: string;
+  start: TimedMark;
+  end: TimedMark;
+}
+
+export const LIMB_PARAMETERS = [
+  'centerFKm',
+  'centerGKm',
+  'equatorialRadiusKm',
+  'oblateness',
+  'positionAngleDeg',
+] as const;
+export type LimbParameter = (typeof LIMB_PARAMETERS)[number];
+
+export interface FitOptions {
+  limb: {
+    fixed: Partial<Record<LimbParameter, number>>;
+    modelErrorKm: number;
+    fitTimeOffsets: string[];
+  };
+  ring: { centerFrom: 'limb' | 'free' };
+  seed?: number;
+}
+
+export interface EventInput {
+  format: 'limbus-event/1';
+  title: string;
+  star: StarInput;
+  ephemeris: { timeScale: TimeScale; rows: EphemerisRow[] };
+  earthRotation: { dut1Seconds: number };
+  stations: StationInput[];
+  chords: ChordInput[];
+  ringEvents: RingEventInput[];
+  fit: FitOptions;
+}
+
+export interface SkyPointKm {
+  fKm: number;
+  gKm: number;
+}
+
+export interface VelocityKmPerS {
+  f: number;
+  g: number;
+}
+
+export interface LimbEllipse {
+  centerFKm: number;
+  centerGKm: number;
+  equatorialRadiusKm: number;
+  oblateness: number;
+  positionAngleDeg: number;
+}
+
+export interface SolutionChord {
+  station: string;
+  type: 'positive' | 'negative';
+  points: Array<SkyPointKm & { event: 'disappearance' | 'reappearance'; sigmaKm: number }>;
+  path: SkyPointKm[];
+  velocityKmPerS: VelocityKmPerS;
+}
+
+export interface LimbSolution extends LimbEllipse {
+  equivalentRadiusKm: number;
+  uncertainty: LimbEllipse & { equivalentRadiusKm: number };
+  chi2: number;
+  dof: number;
+  radialResidualsKm: Array<{ station: string; event: 'disappearance' | 'reappearance'; residualKm: number }>;
+  negativeChordsClear: boolean;
+  timeOffsets: Array<{ station: string; seconds: number; sigma: number }>;
+  band: LimbEllipse[];
+}
+
+export interface RingSolution {
+  ring: string;
+  centerFKm: number;
+  centerGKm: number;
+  radiusKm: number;
+  openingAngleDeg: number;
+  positionAngleDeg: number;
+  uncertainty: { radiusKm: number; openingAngleDeg: number; positionAngleDeg: number };
+  poles: [{ raDeg: number; decDeg: number }, { raDeg: number; decDeg: number }];
+  crossings: Array<SkyPointKm & { station: string; radialWidthKm: number }>;
+  chi2: number;
+  dof: number;
+}
+
+export interface AstrometrySolution {
+  referenceTimeUtc: string;
+  raOffsetCosDecMas: number;
+  decOffsetMas: number;
+  uncertainty: { raOffsetCosDecMas: number; decOffsetMas: number };
+}
+
+export interface Solution {
+  format: 'limbus-solution/1';
+  chords: SolutionChord[];
+  limb: LimbSolution | null;
+  rings: RingSolution[];
+  astrometry: AstrometrySolution | null;
+  engine: { version: string; inputSha256: string; seed: number };
+}
+
+/** A problem with the input that a person can fix, located by its JSON path (e.g. "chords[2].end"). */
+export class GeometryInputError extends Error {
+  constructor(
+    readonly path: string,
+    readonly detail: string,
+  ) {
+    super(`${path}: ${detail}`);
+    this.name = 'GeometryInputError';
+  }
+}
