@@ -1,0 +1,22 @@
+// s3rver 3.7.1 ships no types; only the part Limbus uses is declared (lib/s3rver.js).
+declare module 's3rver' {
+  import type { AddressInfo } from 'node:net';
+
+  interface S3rverOptions {
+    address?: string;
+    port?: number;
+    silent?: boolean;
+    directory?: string;
+    resetOnClose?: boolean;
+    vhostBuckets?: boolean;
+    configureBuckets?: { name: string; configs?: (string | Buffer)[] }[];
+  }
+
+  class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<AddressInfo>;
+    close(): Promise<void>;
+  }
+
+  export = S3rver;
+}
