@@ -1,0 +1,30 @@
+import { createBrowserRouter, Navigate, type RouteObject } from 'react-router-dom';
+import { AdminOutboxRoute } from './routes/admin-outbox';
+import { AppLayout } from './routes/app-layout';
+import { EventsRoute } from './routes/events';
+import { ForgotPasswordRoute } from './routes/forgot-password';
+import { InvitationRoute } from './routes/invitation';
+import { NotFoundRoute } from './routes/not-found';
+import { ResetPasswordRoute } from './routes/reset-password';
+import { SignInRoute } from './routes/sign-in';
+import { paths } from '@/config/paths';
+
+export const routes: RouteObject[] = [
+  { path: paths.signIn, element: <SignInRoute /> },
+  { path: paths.forgotPassword, element: <ForgotPasswordRoute /> },
+  { path: '/reset-password/:token', element: <ResetPasswordRoute /> },
+  { path: '/invitations/:token', element: <InvitationRoute /> },
+  {
+    element: <AppLayout />,
+    children: [
+      { index: true, element: <Navigate to={paths.events} replace /> },
+      { path: paths.events, element: <EventsRoute /> },
+      { path: paths.adminOutbox, element: <AdminOutboxRoute /> },
+    ],
+  },
+  { path: '*', element: <NotFoundRoute /> },
+];
+
+export function createAppRouter() {
+  return createBrowserRouter(routes);
+}

@@ -1,0 +1,46 @@
+import {
+  Body1,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  Title3,
+} from '@fluentui/react-components';
+import { useEvents } from '../api/get-events';
+import { Loading, RequestFailed } from '@/components/request-state';
+
+export function EventsList({ teamId, teamName }: { teamId: string | null; teamName: string | null }) {
+  const events = useEvents();
+  if (events.isPending) return <Loading label="Loading events…" />;
+  if (events.isError)
+    return <RequestFailed what="events" error={events.error} onRetry={() => void events.refetch()} />;
+
+  const mine = teamId === null ? events.data : events.data.filter((event) => event.teamId === teamId);
+  return (
+    <section aria-labelledby="events-heading">
+      <Title3 as="h2" id="events-heading">
+        Events{teamName === null ? '' : ` of ${teamName}`}
+      </Title3>
+      {mine.length === 0 ? (
+        <Body1 as="p">No events yet</Body1>
+      ) : (
+        <Table aria-labelledby="events-heading">
+          <TableHeader>
+            <TableRow>
+              <TableHeaderCell>Title</TableHeaderCell>
+            </TableRow>
+          </TableHeader>
+          <TableBody>
+            {mine.map((event) => (
+              <TableRow key={event.id}>
+                <TableCell>{event.title}</TableCell>
+              </TableRow>
+            ))}
+          </TableBody>
+        </Table>
+      )}
+    </section>
+  );
+}
