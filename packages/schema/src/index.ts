@@ -1,1 +1,15 @@
-export {};
+export {
+  EVENT_FORMAT,
+  eventFileSchema,
+  validateEventFile,
+  type EventFile,
+  type EventValidation,
+} from './event-file.js';
+export {
+  SOLUTION_FORMAT,
+  solutionFileSchema,
+  validateSolutionFile,
+  type SolutionValidation,
+} from './solution-file.js';
+export { formatPath, type Problem } from './problems.js';
+export { parseUtcTime, parseZonelessTime } from './iso-time.js';

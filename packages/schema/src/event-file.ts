@@ -1,0 +1,246 @@
+// The event file ("limbus-event/1"): what observers report, as one JSON document. docs/file-formats.md,
+// "Event file", describes every field. The schema applies the defaults; `validateEventFile` adds the
+// checks that need more than one field (station references, duplicate ids) and returns every problem.
+
+import { z } from 'zod';
+
+import { LIMB_PARAMETERS, type EventInput } from '@limbus/geometry';
+
+import { parseUtcTime, parseZonelessTime } from './iso-time.js';
+import { formatPath, plainErrorMap, problemsFromIssues, type PathSegment, type Problem } from './problems.js';
+
+export const EVENT_FORMAT = 'limbus-event/1';
+
+const finite = () => z.number();
+
+const utcTime = z.string().refine((s) => parseUtcTime(s) !== null, {
+  message: 'not an ISO 8601 UTC time (expected e.g. "2028-03-14T02:11:04.25Z", ending in Z)',
+});
+
+const zonelessTime = z.string().refine((s) => parseZonelessTime(s) !== null, {
+  message:
+    'not an ISO 8601 time without zone (expected e.g. "2028-03-14T02:10:00"; the scale is ephemeris.timeScale)',
+});
+
+const sigmaSeconds = finite().positive('sigmaSeconds must be greater than zero (a 1-σ timing uncertainty)');
+
+const timedMark = z.strictObject({ time: utcTime, sigmaSeconds });
+
+const latDeg = finite().min(-90, 'latitude must be within ±90°').max(90, 'latitude must be within ±90°');
+const lonDeg = finite()
+  .min(-180, 'longitude must be within ±180° (east positive)')
+  .max(180, 'longitude must be within ±180° (east positive)');
+const decDeg = finite()
+  .min(-90, 'declination must be within ±90°')
+  .max(90, 'declination must be within ±90°');
+const raDeg = finite()
+  .min(0, 'right ascension must be within 0–360°')
+  .max(360, 'right ascension must be within 0–360°');
+
+const label = (what: string) => z.string().trim().min(1, `${what} must not be empty`);
+
+/**
+ * Whether time b is not after time a. Zod runs these object-level checks even when a time inside failed
+ * its own check; a time that does not parse is reported there, so the order is then not judged.
+ */
+function notAfter(a: string, b: string): boolean {
+  const aSeconds = parseUtcTime(a)?.orderSeconds;
+  const bSeconds = parseUtcTime(b)?.orderSeconds;
+  return aSeconds !== undefined && bSeconds !== undefined && bSeconds <= aSeconds;
+}
+
+const positiveChord = z
+  .strictObject({
+    station: label('station'),
+    type: z.literal('positive'),
+    disappearance: timedMark,
+    reappearance: timedMark,
+    timeOffsetSeconds: finite().default(0),
+  })
+  .superRefine((chord, ctx) => {
+    if (notAfter(chord.disappearance.time, chord.reappearance.time))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['reappearance', 'time'],
+        message: `reappearance must come after disappearance (${chord.disappearance.time})`,
+      });
+  });
+
+const negativeChord = z
+  .strictObject({
+    station: label('station'),
+    type: z.literal('negative'),
+    start: utcTime,
+    end: utcTime,
+    timeOffsetSeconds: finite().default(0),
+  })
+  .superRefine((chord, ctx) => {
+    if (notAfter(chord.start, chord.end))
+      ctx.addIssue({ code: 'custom', path: ['end'], message: `end must come after start (${chord.start})` });
+  });
+
+const ringEvent = z
+  .strictObject({ station: label('station'), ring: label('ring label'), start: timedMark, end: timedMark })
+  .superRefine((ring, ctx) => {
+    if (notAfter(ring.start.time, ring.end.time))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['end', 'time'],
+        message: `end must come after start (${ring.start.time})`,
+      });
+  });
+
+const ephemerisRow = z.strictObject({
+  time: zonelessTime,
+  raDeg,
+  decDeg,
+  distanceKm: finite().positive('distanceKm must be greater than zero'),
+});
+
+const ephemeris = z
+  .strictObject({
+    timeScale: z.enum(['UTC', 'TT', 'TDB']),
+    rows: z.array(ephemerisRow).min(2, 'at least two rows are needed to interpolate'),
+  })
+  .superRefine((eph, ctx) => {
+    for (let i = 1; i < eph.rows.length; i++) {
+      const previous = parseZonelessTime(eph.rows[i - 1]?.time ?? '')?.orderSeconds;
+      const current = parseZonelessTime(eph.rows[i]?.time ?? '')?.orderSeconds;
+      if (previous !== undefined && current !== undefined && current <= previous)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['rows', i, 'time'],
+          message: 'rows must be in increasing time order (this row is not after the one before)',
+        });
+    }
+  });
+
+const fixedShape = Object.fromEntries(LIMB_PARAMETERS.map((name) => [name, finite().optional()])) as Record<
+  (typeof LIMB_PARAMETERS)[number],
+  z.ZodOptional<z.ZodNumber>
+>;
+
+const fixedParameters = z
+  .strictObject(fixedShape, {
+    error: (issue) =>
+      issue.code === 'unrecognized_keys'
+        ? `unknown parameter; the parameters that can be fixed are ${LIMB_PARAMETERS.join(', ')}`
+        : undefined,
+  })
+  .superRefine((fixed, ctx) => {
+    if (fixed.equatorialRadiusKm !== undefined && !(fixed.equatorialRadiusKm > 0))
+      ctx.addIssue({ code: 'custom', path: ['equatorialRadiusKm'], message: 'must be greater than zero' });
+    if (fixed.oblateness !== undefined && !(fixed.oblateness >= 0 && fixed.oblateness < 1))
+      ctx.addIssue({ code: 'custom', path: ['oblateness'], message: 'must be in [0, 1)' });
+  });
+
+const fitOptions = z.strictObject({
+  limb: z
+    .strictObject({
+      fixed: fixedParameters.prefault({}),
+      modelErrorKm: finite().min(0, 'modelErrorKm must not be negative').default(0),
+      fitTimeOffsets: z.array(label('station')).default([]),
+    })
+    .prefault({}),
+  ring: z.strictObject({ centerFrom: z.enum(['limb', 'free']).default('limb') }).prefault({}),
+  seed: z.int('seed must be a whole number').optional(),
+});
+
+export const eventFileSchema = z.strictObject({
+  format: z.literal(EVENT_FORMAT),
+  title: label('title'),
+  star: z.strictObject({
+    raDeg,
+    decDeg,
+    catalogEpochJyear: finite().default(2016.0),
+    pmRaCosDecMasPerYear: finite().default(0),
+    pmDecMasPerYear: finite().default(0),
+    parallaxMas: finite().default(0),
+    angularDiameterMas: finite().min(0, 'angularDiameterMas must not be negative').optional(),
+  }),
+  ephemeris,
+  earthRotation: z
+    .strictObject({
+      dut1Seconds: finite()
+        .min(-0.9, 'dut1Seconds is UT1 − UTC, kept within ±0.9 s by leap seconds')
+        .max(0.9, 'dut1Seconds is UT1 − UTC, kept within ±0.9 s by leap seconds')
+        .default(0),
+    })
+    .prefault({}),
+  stations: z.array(z.strictObject({ id: label('station id'), latDeg, lonDeg, heightM: finite() })),
+  chords: z
+    .array(z.discriminatedUnion('type', [positiveChord, negativeChord]))
+    .min(1, 'at least one chord is needed'),
+  ringEvents: z.array(ringEvent).default([]),
+  fit: fitOptions.prefault({}),
+});
+
+export type EventFile = z.output<typeof eventFileSchema>;
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+function arrayAt(value: unknown, key: string): unknown[] {
+  if (!isRecord(value)) return [];
+  const v = value[key];
+  return Array.isArray(v) ? v : [];
+}
+
+/**
+ * Station references and duplicate ids, read from the raw document so that they are reported even
+ * when some other part of the file fails the schema.
+ */
+function crossReferenceProblems(json: unknown): Problem[] {
+  const problems: Problem[] = [];
+  const firstIndexOf = new Map<string, number>();
+  arrayAt(json, 'stations').forEach((station, i) => {
+    if (!isRecord(station) || typeof station.id !== 'string') return;
+    const first = firstIndexOf.get(station.id);
+    if (first === undefined) firstIndexOf.set(station.id, i);
+    else
+      problems.push({
+        path: formatPath(['stations', i, 'id']),
+        message: `duplicate station id "${station.id}" (also stations[${first}])`,
+      });
+  });
+  const known = [...firstIndexOf.keys()];
+  const unknownStation = (id: string) =>
+    known.length === 0
+      ? `unknown station "${id}" (the stations list is empty)`
+      : `unknown station "${id}"; stations are ${known.map((k) => `"${k}"`).join(', ')}`;
+  const checkReference = (path: PathSegment[], id: unknown) => {
+    if (typeof id === 'string' && id.trim() !== '' && !firstIndexOf.has(id))
+      problems.push({ path: formatPath(path), message: unknownStation(id) });
+  };
+  for (const list of ['chords', 'ringEvents'])
+    arrayAt(json, list).forEach((item, i) => {
+      if (isRecord(item)) checkReference([list, i, 'station'], item.station);
+    });
+  const fit = isRecord(json) ? json.fit : undefined;
+  const limb = isRecord(fit) ? fit.limb : undefined;
+  const seen = new Set<string>();
+  arrayAt(limb, 'fitTimeOffsets').forEach((id, i) => {
+    const path: PathSegment[] = ['fit', 'limb', 'fitTimeOffsets', i];
+    checkReference(path, id);
+    if (typeof id !== 'string') return;
+    if (seen.has(id)) problems.push({ path: formatPath(path), message: `station "${id}" is listed twice` });
+    seen.add(id);
+  });
+  return problems;
+}
+
+export type EventValidation = { ok: true; event: EventInput } | { ok: false; problems: Problem[] };
+
+/** Validates an event file and applies its defaults; on failure lists every problem found, by JSON path. */
+export function validateEventFile(json: unknown): EventValidation {
+  const parsed = eventFileSchema.safeParse(json, { error: plainErrorMap });
+  const problems = [
+    ...(parsed.success ? [] : problemsFromIssues(parsed.error.issues)),
+    ...crossReferenceProblems(json),
+  ];
+  if (problems.length > 0 || !parsed.success) return { ok: false, problems };
+  // This assignment is the compile-time proof that the schema's output fits geometry's EventInput.
+  const event: EventInput = parsed.data;
+  return { ok: true, event };
+}

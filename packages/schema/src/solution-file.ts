@@ -1,0 +1,94 @@
+// The solution file ("limbus-solution/1") that `limbus solve` prints and the server stores, so that a
+// client can check what it receives. Its shape is geometry's `Solution`; docs/file-formats.md,
+// "Solution file", gives the units and sign conventions.
+
+import { z } from 'zod';
+
+import type { Solution } from '@limbus/geometry';
+
+import { plainErrorMap, problemsFromIssues, type Problem } from './problems.js';
+
+export const SOLUTION_FORMAT = 'limbus-solution/1';
+
+const skyPoint = { fKm: z.number(), gKm: z.number() };
+
+const limbEllipseShape = {
+  centerFKm: z.number(),
+  centerGKm: z.number(),
+  equatorialRadiusKm: z.number(),
+  oblateness: z.number(),
+  positionAngleDeg: z.number(),
+};
+
+const limbEllipse = z.object(limbEllipseShape);
+
+const chord = z.object({
+  station: z.string(),
+  type: z.enum(['positive', 'negative']),
+  points: z.array(
+    z.object({ ...skyPoint, event: z.enum(['disappearance', 'reappearance']), sigmaKm: z.number() }),
+  ),
+  path: z.array(z.object(skyPoint)),
+  velocityKmPerS: z.object({ f: z.number(), g: z.number() }),
+});
+
+const limb = z.object({
+  ...limbEllipseShape,
+  equivalentRadiusKm: z.number(),
+  uncertainty: z.object({ ...limbEllipseShape, equivalentRadiusKm: z.number() }),
+  chi2: z.number(),
+  dof: z.int(),
+  radialResidualsKm: z.array(
+    z.object({
+      station: z.string(),
+      event: z.enum(['disappearance', 'reappearance']),
+      residualKm: z.number(),
+    }),
+  ),
+  negativeChordsClear: z.boolean(),
+  timeOffsets: z.array(z.object({ station: z.string(), seconds: z.number(), sigma: z.number() })),
+  band: z.array(limbEllipse),
+});
+
+const pole = z.object({ raDeg: z.number(), decDeg: z.number() });
+
+const ring = z.object({
+  ring: z.string(),
+  centerFKm: z.number(),
+  centerGKm: z.number(),
+  radiusKm: z.number(),
+  openingAngleDeg: z.number(),
+  positionAngleDeg: z.number(),
+  uncertainty: z.object({ radiusKm: z.number(), openingAngleDeg: z.number(), positionAngleDeg: z.number() }),
+  poles: z.tuple([pole, pole]),
+  crossings: z.array(z.object({ ...skyPoint, station: z.string(), radialWidthKm: z.number() })),
+  chi2: z.number(),
+  dof: z.int(),
+});
+
+const astrometry = z.object({
+  referenceTimeUtc: z.string(),
+  raOffsetCosDecMas: z.number(),
+  decOffsetMas: z.number(),
+  uncertainty: z.object({ raOffsetCosDecMas: z.number(), decOffsetMas: z.number() }),
+});
+
+export const solutionFileSchema = z.object({
+  format: z.literal(SOLUTION_FORMAT),
+  chords: z.array(chord),
+  limb: limb.nullable(),
+  rings: z.array(ring),
+  astrometry: astrometry.nullable(),
+  engine: z.object({ version: z.string(), inputSha256: z.string().regex(/^[0-9a-f]{64}$/), seed: z.int() }),
+});
+
+export type SolutionValidation = { ok: true; solution: Solution } | { ok: false; problems: Problem[] };
+
+/** Checks a received solution document; unknown fields are dropped so that older clients keep working. */
+export function validateSolutionFile(json: unknown): SolutionValidation {
+  const parsed = solutionFileSchema.safeParse(json, { error: plainErrorMap });
+  if (!parsed.success) return { ok: false, problems: problemsFromIssues(parsed.error.issues) };
+  // Compile-time proof that the schema's output fits geometry's Solution.
+  const solution: Solution = parsed.data;
+  return { ok: true, solution };
+}
