@@ -1,0 +1,489 @@
+// The weighted fit of an apparent ellipse to sky-plane points, shared by the limb fit and the ring fit:
+// effective-variance χ², deterministic starts, Levenberg–Marquardt refinement with negative paths held
+// outside, the linearised covariance, and an ensemble sample of the region the data allow.
+//
+// Parameter vector (internal units): [centerFKm, centerGKm, semiMajorKm, oblateness, positionAngleRad,
+// clock offsets in seconds...]. Only the free entries are handed to the minimiser and the sampler.
+
+import { CholeskyDecomposition, Matrix, SingularValueDecomposition, inverse } from 'ml-matrix';
+import { DEG, PI, RAD, wrap } from '../math.js';
+import { GeometryInputError } from '../types.js';
+import type { LimbEllipse, SkyPointKm } from '../types.js';
+import { algebraicEllipse } from './conic-start.js';
+import { type EllipseFrame, frameResidualGradient, frameResidualKm, pathClearance } from './ellipse.js';
+import { runEnsemble } from './ensemble-sampler.js';
+import { type LeastSquaresProblem, jacobian, levenbergMarquardt } from './levenberg-marquardt.js';
+import { gaussian, mulberry32 } from './prng.js';
+
+export const SHAPE_PARAMETER_COUNT = 5;
+const IX_F = 0;
+const IX_G = 1;
+const IX_A = 2;
+const IX_EPS = 3;
+const IX_P = 4;
+const SHAPE_NAMES = ['centre f', 'centre g', 'equatorial radius', 'oblateness', 'position angle'] as const;
+
+/** Walkers and steps of the ensemble; see docs/method.md "Uncertainties" for how they were chosen. */
+const SAMPLER_BURN_IN_STEPS = 150;
+const SAMPLER_STEPS = 250;
+const BAND_SIZE = 64;
+/** Fraction of a normal distribution within ±1σ. */
+const ONE_SIGMA_MASS = 0.6826894921370859;
+/** Standard deviation of an angle spread evenly over 180°: the most P can be uncertain. */
+const UNIFORM_HALF_TURN_SIGMA_RAD = PI / Math.sqrt(12);
+/** Below this oblateness the linearised fit cannot see P (∂ρ/∂P vanishes at ε = 0). */
+const ROUND_OBLATENESS = 1e-3;
+/** Negative paths are pushed this far (in units of the ellipse's own radius) outside so that the best fit clears. */
+const NEGATIVE_MARGIN = 1e-5;
+const PENALTY_WEIGHTS = [1e2, 1e4, 1e6];
+
+export interface FitPoint {
+  fKm: number;
+  gKm: number;
+  sigmaSeconds: number;
+  velocityFKmPerS: number;
+  velocityGKmPerS: number;
+  /** Index into the clock offsets, or −1 when the point's station has no fitted offset. */
+  offsetIndex: number;
+}
+
+export interface EllipseFitProblem {
+  points: FitPoint[];
+  negatives: SkyPointKm[][];
+  /** Fixed values in internal units (position angle in radians), by shape parameter index. */
+  fixed: Array<number | undefined>;
+  modelErrorKm: number;
+  offsetCount: number;
+  seed: number;
+  /** JSON path named in input errors about the points. */
+  errorPath: string;
+}
+
+export interface EllipseFitOutcome {
+  /** Full parameter vector of the best fit, normalised (ε in [0, 1), P in [0, π)). */
+  best: Float64Array;
+  free: number[];
+  chi2: number;
+  dof: number;
+  residualsKm: number[];
+  negativesClear: boolean;
+  /** Full parameter vectors sampled from exp(−χ²/2), and their χ². */
+  samples: Float64Array[];
+  sampleChi2: number[];
+  /** Linearised 1-sigma of every full parameter (0 for fixed ones), internal units. */
+  linearisedSigma: Float64Array;
+}
+
+export function frameOf(full: Float64Array): EllipseFrame {
+  const p = full[IX_P] as number;
+  const a = full[IX_A] as number;
+  return {
+    centerFKm: full[IX_F] as number,
+    centerGKm: full[IX_G] as number,
+    semiMajorKm: a,
+    semiMinorKm: a * (1 - (full[IX_EPS] as number)),
+    cosP: Math.cos(p),
+    sinP: Math.sin(p),
+  };
+}
+
+export function ellipseOf(full: Float64Array): LimbEllipse {
+  return {
+    centerFKm: full[IX_F] as number,
+    centerGKm: full[IX_G] as number,
+    equatorialRadiusKm: full[IX_A] as number,
+    oblateness: full[IX_EPS] as number,
+    positionAngleDeg: wrap((full[IX_P] as number) * RAD, 180),
+  };
+}
+
+/**
+ * χ² = Σ ρ²/σρ² with σρ² = (σt·max(|v·∇ρ|, 0.1|v|))² + σmodel², and, when residuals is given, the
+ * normalised residuals ρ/σρ written into it. The weight is re-evaluated at these parameters (effective
+ * variance; Orear, Am. J. Phys. 50 (1982) 912).
+ */
+export function chi2Of(problem: EllipseFitProblem, full: Float64Array, residuals?: Float64Array): number {
+  const fr = frameOf(full);
+  const grad: [number, number] = [0, 0];
+  const m2 = problem.modelErrorKm * problem.modelErrorKm;
+  let chi2 = 0;
+  const pts = problem.points;
+  for (let i = 0; i < pts.length; i++) {
+    const p = pts[i] as FitPoint;
+    const vf = p.velocityFKmPerS;
+    const vg = p.velocityGKmPerS;
+    let f = p.fKm;
+    let g = p.gKm;
+    if (p.offsetIndex >= 0) {
+      const delta = full[SHAPE_PARAMETER_COUNT + p.offsetIndex] as number;
+      f += vf * delta;
+      g += vg * delta;
+    }
+    const rho = frameResidualKm(f, g, fr);
+    frameResidualGradient(f, g, fr, grad);
+    const along = Math.max(Math.abs(vf * grad[0] + vg * grad[1]), 0.1 * Math.hypot(vf, vg));
+    const s = p.sigmaSeconds * along;
+    const r = rho / Math.sqrt(s * s + m2);
+    if (residuals) residuals[i] = r;
+    chi2 += r * r;
+  }
+  return chi2;
+}
+
+export function residualsKmOf(problem: EllipseFitProblem, full: Float64Array): number[] {
+  const fr = frameOf(full);
+  return problem.points.map((p) => {
+    const delta = p.offsetIndex >= 0 ? (full[SHAPE_PARAMETER_COUNT + p.offsetIndex] as number) : 0;
+    return frameResidualKm(p.fKm + p.velocityFKmPerS * delta, p.gKm + p.velocityGKmPerS * delta, fr);
+  });
+}
+
+function minClearance(problem: EllipseFitProblem, fr: EllipseFrame): number {
+  let q = Infinity;
+  for (const path of problem.negatives) q = Math.min(q, pathClearance(path, fr));
+  return q;
+}
+
+export function fitEllipse(problem: EllipseFitProblem): EllipseFitOutcome {
+  const n = problem.points.length;
+  const free: number[] = [];
+  for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) if (problem.fixed[j] === undefined) free.push(j);
+  for (let j = 0; j < problem.offsetCount; j++) free.push(SHAPE_PARAMETER_COUNT + j);
+  const k = free.length;
+  if (n < k)
+    throw new GeometryInputError(problem.errorPath, `fewer points (${n}) than free parameters (${k})`);
+  checkNotCollinear(problem);
+  const canSwapAxes = free.includes(IX_A) && free.includes(IX_EPS) && free.includes(IX_P);
+
+  const toFull = (x: Float64Array): Float64Array => {
+    const full = new Float64Array(SHAPE_PARAMETER_COUNT + problem.offsetCount);
+    for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) full[j] = problem.fixed[j] ?? 0;
+    free.forEach((j, i) => (full[j] = x[i] as number));
+    return full;
+  };
+  const toFree = (full: Float64Array): Float64Array => Float64Array.from(free, (j) => full[j] as number);
+
+  const starts = startingPoints(problem).map((e) => {
+    const full = new Float64Array(SHAPE_PARAMETER_COUNT + problem.offsetCount);
+    full.set([e.centerFKm, e.centerGKm, e.equatorialRadiusKm, e.oblateness, e.positionAngleDeg * DEG]);
+    for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) full[j] = problem.fixed[j] ?? (full[j] as number);
+    return full;
+  });
+  const scaleKm = Math.max(...starts.map((s) => s[IX_A] as number), 1);
+  const stepSizes = Float64Array.from(free, (j) =>
+    j <= IX_A ? 1e-6 * scaleKm : j === IX_EPS || j === IX_P ? 1e-7 : (1e-6 * scaleKm) / maxSpeed(problem),
+  );
+
+  const admissible = (x: Float64Array): Float64Array | null => {
+    const full = toFull(x);
+    let a = full[IX_A] as number;
+    let eps = full[IX_EPS] as number;
+    let p = full[IX_P] as number;
+    if (!(a > 0) || !(eps < 1)) return null;
+    if (eps < 0) {
+      if (canSwapAxes) {
+        const b = a * (1 - eps);
+        eps = 1 - a / b;
+        a = b;
+        p += PI / 2;
+      } else {
+        eps = 0;
+      }
+    }
+    full[IX_A] = a;
+    full[IX_EPS] = eps;
+    full[IX_P] = free.includes(IX_P) ? wrap(p, PI) : p;
+    return toFree(full);
+  };
+
+  const makeProblem = (penaltyWeight: number): LeastSquaresProblem => ({
+    stepSizes,
+    admissible,
+    residuals: (x) => {
+      const full = toFull(x);
+      const out = new Float64Array(n + (penaltyWeight > 0 ? problem.negatives.length : 0));
+      chi2Of(problem, full, out);
+      if (penaltyWeight > 0) {
+        const fr = frameOf(full);
+        problem.negatives.forEach((path, i) => {
+          out[n + i] = penaltyWeight * Math.max(0, 1 + NEGATIVE_MARGIN - pathClearance(path, fr));
+        });
+      }
+      return out;
+    },
+  });
+
+  const unconstrained = makeProblem(0);
+  let bestFree: Float64Array | null = null;
+  let bestChi2 = Infinity;
+  let bestClear = false;
+  for (const start of starts) {
+    let x = levenbergMarquardt(unconstrained, toFree(start)).x;
+    let clear = minClearance(problem, frameOf(toFull(x))) >= 1;
+    for (const weight of PENALTY_WEIGHTS) {
+      if (clear) break;
+      x = levenbergMarquardt(makeProblem(weight), x).x;
+      clear = minClearance(problem, frameOf(toFull(x))) >= 1;
+    }
+    const chi2 = chi2Of(problem, toFull(x));
+    // A fit that honours the negative paths beats any that does not, whatever their χ².
+    if ((clear && !bestClear) || (clear === bestClear && chi2 < bestChi2)) {
+      bestFree = x;
+      bestChi2 = chi2;
+      bestClear = clear;
+    }
+  }
+  if (!bestFree) throw new GeometryInputError(problem.errorPath, 'no starting ellipse could be found');
+  const best = toFull(bestFree);
+
+  const linearised = linearisedCovariance(problem, unconstrained, bestFree, free, best);
+  const linearisedSigma = new Float64Array(best.length);
+  free.forEach((j, i) => (linearisedSigma[j] = Math.sqrt(linearised.get(i, i))));
+  if (free.includes(IX_P))
+    linearisedSigma[IX_P] = Math.min(linearisedSigma[IX_P] as number, UNIFORM_HALF_TURN_SIGMA_RAD);
+
+  const { samples, sampleChi2 } = sampleRegion(problem, free, best, bestFree, linearised, toFull, bestClear);
+  return {
+    best,
+    free,
+    chi2: bestChi2,
+    dof: n - k,
+    residualsKm: residualsKmOf(problem, best),
+    negativesClear: bestClear,
+    samples,
+    sampleChi2,
+    linearisedSigma,
+  };
+}
+
+function maxSpeed(problem: EllipseFitProblem): number {
+  let v = 0;
+  for (const p of problem.points) v = Math.max(v, Math.hypot(p.velocityFKmPerS, p.velocityGKmPerS));
+  return v > 0 ? v : 1;
+}
+
+/** Points on one straight line leave the ellipse free across that line. */
+function checkNotCollinear(problem: EllipseFitProblem): void {
+  const pts = problem.points;
+  if (pts.length < 2) return;
+  let mf = 0;
+  let mg = 0;
+  for (const p of pts) {
+    mf += p.fKm;
+    mg += p.gKm;
+  }
+  mf /= pts.length;
+  mg /= pts.length;
+  let sff = 0;
+  let sgg = 0;
+  let sfg = 0;
+  for (const p of pts) {
+    sff += (p.fKm - mf) ** 2;
+    sgg += (p.gKm - mg) ** 2;
+    sfg += (p.fKm - mf) * (p.gKm - mg);
+  }
+  const mean = (sff + sgg) / 2;
+  const half = Math.hypot((sff - sgg) / 2, sfg);
+  const smallest = mean - half;
+  const largest = mean + half;
+  if (largest === 0 || smallest <= 1e-12 * largest) {
+    throw new GeometryInputError(
+      problem.errorPath,
+      'all timed points lie on one straight line, so the ellipse is not constrained across it',
+    );
+  }
+}
+
+/** The algebraic ellipse (if the points define one) and round starts at three pole angles. */
+function startingPoints(problem: EllipseFitProblem): LimbEllipse[] {
+  const pts = problem.points;
+  const out: LimbEllipse[] = [];
+  const conic = algebraicEllipse(pts);
+  if (conic && conic.oblateness < 0.95) out.push(conic);
+  const cf = pts.reduce((s, p) => s + p.fKm, 0) / pts.length;
+  const cg = pts.reduce((s, p) => s + p.gKm, 0) / pts.length;
+  const centerFKm = problem.fixed[IX_F] ?? cf;
+  const centerGKm = problem.fixed[IX_G] ?? cg;
+  const meanDistance =
+    pts.reduce((s, p) => s + Math.hypot(p.fKm - centerFKm, p.gKm - centerGKm), 0) / pts.length;
+  for (const pDeg of [0, 60, 120]) {
+    out.push({
+      centerFKm,
+      centerGKm,
+      equatorialRadiusKm: meanDistance,
+      oblateness: 0.05,
+      positionAngleDeg: pDeg,
+    });
+  }
+  return out;
+}
+
+/**
+ * (JᵀJ)⁻¹ with J the Jacobian of ρ/σρ at the best fit (Press et al., Numerical Recipes 3rd ed., §15.5.1),
+ * negative paths ignored. When the ellipse is round P drops out (its column vanishes) and is given the
+ * spread of an evenly distributed angle instead.
+ */
+function linearisedCovariance(
+  problem: EllipseFitProblem,
+  lsq: LeastSquaresProblem,
+  bestFree: Float64Array,
+  free: number[],
+  best: Float64Array,
+): Matrix {
+  const k = free.length;
+  const jac = jacobian(lsq, bestFree);
+  const pIndex = free.indexOf(IX_P);
+  const dropP = pIndex >= 0 && free.includes(IX_EPS) && (best[IX_EPS] as number) < ROUND_OBLATENESS;
+  const kept = free.map((_, i) => i).filter((i) => !(dropP && i === pIndex));
+  const alpha = new Matrix(kept.length, kept.length);
+  kept.forEach((ci, r) =>
+    kept.forEach((cj, c) => {
+      let s = 0;
+      for (let row = 0; row < jac.rows; row++) s += jac.get(row, ci) * jac.get(row, cj);
+      alpha.set(r, c, s);
+    }),
+  );
+  // Scaling to a correlation-like matrix makes the singularity test independent of units.
+  const scale = kept.map((_, i) => Math.sqrt(alpha.get(i, i)));
+  const unconstrained = scale.findIndex((s) => !(s > 0));
+  if (unconstrained >= 0) throw notConstrained(problem, free[kept[unconstrained] as number] as number);
+  const corr = new Matrix(kept.length, kept.length);
+  for (let r = 0; r < kept.length; r++)
+    for (let c = 0; c < kept.length; c++)
+      corr.set(r, c, alpha.get(r, c) / ((scale[r] as number) * (scale[c] as number)));
+  const svd = new SingularValueDecomposition(corr);
+  const sv = svd.diagonal;
+  const smallest = Math.min(...sv);
+  if (smallest < 1e-12 * Math.max(...sv)) {
+    const nullVector = svd.rightSingularVectors.getColumn(sv.indexOf(smallest));
+    const worst = nullVector.reduce(
+      (w, v, i) => (Math.abs(v) > Math.abs(nullVector[w] as number) ? i : w),
+      0,
+    );
+    throw notConstrained(problem, free[kept[worst] as number] as number);
+  }
+  const corrInv = inverse(corr);
+  const cov = new Matrix(k, k);
+  kept.forEach((ci, r) =>
+    kept.forEach((cj, c) =>
+      cov.set(ci, cj, corrInv.get(r, c) / ((scale[r] as number) * (scale[c] as number))),
+    ),
+  );
+  if (dropP) cov.set(pIndex, pIndex, UNIFORM_HALF_TURN_SIGMA_RAD ** 2);
+  return cov;
+}
+
+function notConstrained(problem: EllipseFitProblem, fullIndex: number): GeometryInputError {
+  const name =
+    fullIndex < SHAPE_PARAMETER_COUNT
+      ? SHAPE_NAMES[fullIndex as 0]
+      : `clock offset ${fullIndex - SHAPE_PARAMETER_COUNT + 1}`;
+  return new GeometryInputError(problem.errorPath, `the points do not constrain the ${name}`);
+}
+
+/**
+ * Samples exp(−χ²/2) over ε in [0, 1), P within ±90° of the best fit (one period of the ellipse), a > 0
+ * and, when the best fit clears them, every negative path outside the ellipse. Walkers start in a
+ * Gaussian ball drawn from the linearised covariance, redrawn closer to the best fit when inadmissible.
+ */
+function sampleRegion(
+  problem: EllipseFitProblem,
+  free: number[],
+  best: Float64Array,
+  bestFree: Float64Array,
+  cov: Matrix,
+  toFull: (x: Float64Array) => Float64Array,
+  enforceNegatives: boolean,
+): { samples: Float64Array[]; sampleChi2: number[] } {
+  const k = free.length;
+  const bestP = best[IX_P] as number;
+  const logProbability = (x: Float64Array): number => {
+    const full = toFull(x);
+    const a = full[IX_A] as number;
+    const eps = full[IX_EPS] as number;
+    const p = full[IX_P] as number;
+    if (!(a > 0) || !(eps >= 0) || !(eps < 1) || !(Math.abs(p - bestP) <= PI / 2)) return -Infinity;
+    if (enforceNegatives && problem.negatives.length > 0 && minClearance(problem, frameOf(full)) < 1)
+      return -Infinity;
+    return -0.5 * chi2Of(problem, full);
+  };
+  const uniform = mulberry32(problem.seed);
+  const normal = gaussian(uniform);
+  const factor = choleskyFactor(cov);
+  const walkers = 2 * Math.max(12, 2 * k);
+  const initial: Float64Array[] = [];
+  for (let w = 0; w < walkers; w++) {
+    let shrink = 1;
+    let candidate = new Float64Array(bestFree);
+    for (let attempt = 0; attempt < 200; attempt++) {
+      if (attempt > 0 && attempt % 10 === 0) shrink /= 2;
+      const z = Array.from({ length: k }, () => normal());
+      const trial = new Float64Array(k);
+      for (let i = 0; i < k; i++) {
+        let s = 0;
+        for (let j = 0; j <= i; j++) s += factor.get(i, j) * (z[j] as number);
+        trial[i] = (bestFree[i] as number) + shrink * s;
+      }
+      if (logProbability(trial) > -Infinity) {
+        candidate = trial;
+        break;
+      }
+    }
+    initial.push(candidate);
+  }
+  const run = runEnsemble({
+    logProbability,
+    initial,
+    steps: SAMPLER_STEPS,
+    burnIn: SAMPLER_BURN_IN_STEPS,
+    uniform,
+  });
+  return { samples: run.samples.map(toFull), sampleChi2: run.logProbabilities.map((lp) => -2 * lp) };
+}
+
+/** Lower-triangular L with LLᵀ = cov, or the square roots of the diagonal when cov is not positive definite. */
+function choleskyFactor(cov: Matrix): Matrix {
+  // Rounding in the inverse leaves cov a hair off symmetric, which the decomposition refuses.
+  const symmetric = cov.add(cov.transpose()).div(2);
+  const chol = new CholeskyDecomposition(symmetric);
+  if (chol.isPositiveDefinite()) return chol.lowerTriangularMatrix;
+  const diag = new Matrix(cov.rows, cov.rows);
+  for (let i = 0; i < cov.rows; i++) diag.set(i, i, Math.sqrt(Math.max(cov.get(i, i), 0)));
+  return diag;
+}
+
+/**
+ * Half the width of the central 68.3 % of the values: the 1-sigma of a normal distribution, and a
+ * fair one-number spread when the distribution is not normal.
+ */
+export function centralSigma(values: readonly number[]): number {
+  const sorted = [...values].sort((x, y) => x - y);
+  const lo = quantile(sorted, (1 - ONE_SIGMA_MASS) / 2);
+  const hi = quantile(sorted, (1 + ONE_SIGMA_MASS) / 2);
+  return (hi - lo) / 2;
+}
+
+function quantile(sorted: readonly number[], q: number): number {
+  if (sorted.length === 0) return 0;
+  const pos = q * (sorted.length - 1);
+  const i = Math.floor(pos);
+  const lo = sorted[i] as number;
+  const hi = sorted[Math.min(i + 1, sorted.length - 1)] as number;
+  return lo + (pos - i) * (hi - lo);
+}
+
+/** Up to BAND_SIZE samples from the 68.3 % of lowest χ², spread evenly through the chain. */
+export function bandSamples(outcome: EllipseFitOutcome): Float64Array[] {
+  const order = outcome.sampleChi2.map((c, i) => [c, i] as const).sort((x, y) => x[0] - y[0] || x[1] - y[1]);
+  const inside = order
+    .slice(0, Math.max(1, Math.floor(ONE_SIGMA_MASS * order.length)))
+    .map(([, i]) => i)
+    .sort((x, y) => x - y);
+  const count = Math.min(BAND_SIZE, inside.length);
+  const out: Float64Array[] = [];
+  for (let i = 0; i < count; i++) {
+    const idx = inside[Math.floor((i * inside.length) / count)] as number;
+    out.push(outcome.samples[idx] as Float64Array);
+  }
+  return out;
+}
