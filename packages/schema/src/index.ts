@@ -13,3 +13,4 @@ export {
 } from './solution-file.js';
 export { formatPath, type Problem } from './problems.js';
 export { parseUtcTime, parseZonelessTime } from './iso-time.js';
+export * from './context-input.js';

@@ -1,0 +1,58 @@
+// `limbus context CONTEXT.json`: validates a dynamics-context input file and prints the body's Roche
+// limits, resonance radii, synchronous orbit, Hill radius and ring radii set against them, with 1-sigma.
+// Step in the data flow: file -> validated ContextInput -> geometry computeDynamicsContext -> JSON.
+
+import { computeDynamicsContext, type ContextResult } from '@limbus/geometry';
+import { contextSources, validateContextInput } from '@limbus/schema';
+
+import { InputProblems, readJsonFile, runCommand } from '../io.js';
+
+const USAGE = 'usage: limbus context CONTEXT.json';
+
+export const CONTEXT_OUTPUT_FORMAT = 'limbus-context/1';
+
+const NOTES = [
+  'Roche limits use the bulk density of a sphere of radiusKm and the classical coefficients 2.44 (fluid) and 2^(1/3) ≈ 1.26 (rigid).',
+  'Resonance and synchronous radii are Keplerian (point-mass body, no J2).',
+  'The Hill radius takes a circular orbit at the present heliocentric distance.',
+  '1-sigma by first-order propagation of the inputs taken as independent.',
+];
+
+export interface ContextOutput extends ContextResult {
+  format: typeof CONTEXT_OUTPUT_FORMAT;
+  sources: Record<string, string>;
+  notes: string[];
+}
+
+function parseContextArguments(args: string[]): string {
+  const files = args.filter((a) => !a.startsWith('-'));
+  const flags = args.filter((a) => a.startsWith('-'));
+  const problems = flags.map((flag) => ({ path: 'arguments', message: `unknown option ${flag}; ${USAGE}` }));
+  if (files.length !== 1)
+    problems.push({ path: 'arguments', message: `expected one context file, got ${files.length}; ${USAGE}` });
+  if (problems.length > 0) throw new InputProblems(problems);
+  return files[0] as string;
+}
+
+/** Reads and validates one context input file and computes its context; throws InputProblems on bad input. */
+export async function contextFromFile(path: string): Promise<ContextOutput> {
+  const { value } = await readJsonFile(path);
+  const validation = validateContextInput(value);
+  if (!validation.ok) throw new InputProblems(validation.problems);
+  const { uncertainty, ...figures } = computeDynamicsContext(validation.input);
+  // The uncertainty block goes last so that a reader meets each value before its 1-sigma.
+  return {
+    format: CONTEXT_OUTPUT_FORMAT,
+    ...figures,
+    sources: contextSources(validation.file),
+    notes: NOTES,
+    uncertainty,
+  };
+}
+
+export async function run(args: string[]): Promise<number> {
+  return runCommand(async () => {
+    const output = await contextFromFile(parseContextArguments(args));
+    process.stdout.write(JSON.stringify(output, null, 2) + '\n');
+  });
+}
