@@ -19,7 +19,14 @@ export default tseslint.config(
     rules: {
       'no-restricted-imports': [
         'error',
-        { patterns: [{ group: ['../../*/**', '@/features/*'], message: 'Features must not import other features; compose them in src/app.' }] },
+        {
+          patterns: [
+            {
+              group: ['../../*/**', '@/features/*'],
+              message: 'Features must not import other features; compose them in src/app.',
+            },
+          ],
+        },
       ],
     },
   },
