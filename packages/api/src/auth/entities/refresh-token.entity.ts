@@ -1,0 +1,32 @@
+import { randomUUID } from 'node:crypto';
+import { Entity, Index, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
+import { User } from '../../users/entities/user.entity';
+
+/** Only the SHA-256 of the cookie value is stored, so a leaked table cannot sign anyone in. */
+@Entity({ tableName: 'refresh_tokens' })
+export class RefreshToken {
+  @PrimaryKey({ type: 'string', length: 36 })
+  id: string = randomUUID();
+
+  @ManyToOne({ entity: () => User, deleteRule: 'cascade' })
+  user: User;
+
+  @Property({ type: 'string', length: 64, unique: true })
+  tokenHash: string;
+
+  @Property({ type: 'datetime' })
+  expiresAt: Date;
+
+  @Index()
+  @Property({ type: 'datetime', nullable: true })
+  revokedAt: (Date & Opt) | null = null;
+
+  @Property({ type: 'datetime' })
+  createdAt: Date & Opt = new Date();
+
+  constructor(user: User, tokenHash: string, expiresAt: Date) {
+    this.user = user;
+    this.tokenHash = tokenHash;
+    this.expiresAt = expiresAt;
+  }
+}

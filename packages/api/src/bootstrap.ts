@@ -1,0 +1,68 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import type { NextFunction, Request, Response } from 'express';
+import helmet from 'helmet';
+import { Logger } from 'nestjs-pino';
+import type { AppConfig } from './config/app-config';
+
+export const API_PREFIX = 'api';
+const BODY_LIMIT = '1mb';
+
+/**
+ * Everything main.ts does to the application before listening, shared with the e2e tests so they
+ * exercise the same prefix, limits, headers and documents as production.
+ */
+export function configureApp(app: NestExpressApplication, config: AppConfig): void {
+  app.useLogger(app.get(Logger));
+  app.disable('x-powered-by');
+  const https = config.publicUrl.startsWith('https:');
+  // Over plain http (the demo) HSTS and upgrade-insecure-requests would send the browser to an https port nobody serves.
+  app.use(
+    helmet({
+      strictTransportSecurity: https,
+      contentSecurityPolicy: { directives: { upgradeInsecureRequests: https ? [] : null } },
+    }),
+  );
+  app.useBodyParser('json', { limit: BODY_LIMIT });
+  app.useBodyParser('urlencoded', { limit: BODY_LIMIT, extended: false });
+  app.setGlobalPrefix(API_PREFIX);
+  app.enableShutdownHooks();
+
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Limbus API')
+      .setDescription(
+        'Teams, sign-in and occultation events. Errors are { statusCode, error, message, issues? }.',
+      )
+      .setVersion('1')
+      .addBearerAuth()
+      .build(),
+  );
+  SwaggerModule.setup(`${API_PREFIX}/docs`, app, document, { jsonDocumentUrl: `${API_PREFIX}/docs-json` });
+
+  serveClient(app, config.webDistDir);
+}
+
+/**
+ * The built client is served by the API itself so the demo needs one port. Any GET outside /api
+ * that is not a file gets index.html, so client routes such as /invitations/:token load directly.
+ */
+function serveClient(app: NestExpressApplication, webDistDir: string): void {
+  const indexHtml = path.join(webDistDir, 'index.html');
+  if (!existsSync(indexHtml)) {
+    app.get(Logger).warn(`no client build at ${webDistDir}; serving the API only`);
+    return;
+  }
+  app.useStaticAssets(webDistDir, { index: false, fallthrough: true });
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    const isApi = req.path === `/${API_PREFIX}` || req.path.startsWith(`/${API_PREFIX}/`);
+    if ((req.method === 'GET' || req.method === 'HEAD') && !isApi && req.accepts('html')) {
+      res.sendFile(indexHtml);
+      return;
+    }
+    next();
+  });
+}

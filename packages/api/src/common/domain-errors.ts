@@ -1,0 +1,55 @@
+/**
+ * Services throw these; HttpErrorFilter is the one place that turns them into status codes, so
+ * services stay usable from the worker and the CLI where there is no HTTP.
+ */
+export interface FieldIssue {
+  path: string;
+  message: string;
+}
+
+export abstract class DomainError extends Error {
+  abstract readonly statusCode: number;
+}
+
+export class NotFoundError extends DomainError {
+  readonly statusCode = 404;
+  constructor(what = 'Not found') {
+    super(what);
+  }
+}
+
+export class UnauthorizedError extends DomainError {
+  readonly statusCode = 401;
+  constructor(message = 'Sign-in required') {
+    super(message);
+  }
+}
+
+export class ForbiddenError extends DomainError {
+  readonly statusCode = 403;
+  constructor(message = 'Your role does not allow this') {
+    super(message);
+  }
+}
+
+export class ConflictError extends DomainError {
+  readonly statusCode = 409;
+}
+
+export class ValidationError extends DomainError {
+  readonly statusCode = 400;
+  constructor(readonly issues: FieldIssue[]) {
+    super('Validation failed');
+  }
+}
+
+export class TooManyRequestsError extends DomainError {
+  readonly statusCode = 429;
+  constructor(readonly retryAfterSeconds: number) {
+    super('Too many failed sign-in attempts; try again later');
+  }
+}
+
+export class UnavailableError extends DomainError {
+  readonly statusCode = 503;
+}

@@ -1,0 +1,55 @@
+import { Body, Controller, Get, HttpCode, Param, Post, Res } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import { type AuthUser, CurrentUser } from '../auth/auth-user';
+import { Public } from '../auth/public.decorator';
+import { sendSession, type SessionView } from '../auth/refresh-cookie';
+import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
+import { AppConfig } from '../config/app-config';
+import { Roles } from '../teams/roles.decorator';
+import {
+  type AcceptInvitationDto,
+  AcceptInvitationSchema,
+  type CreateInvitationDto,
+  CreateInvitationSchema,
+} from './dto/invitation.dto';
+import { type InvitationView, InvitationsService } from './invitations.service';
+
+@ApiTags('invitations')
+@Controller()
+export class InvitationsController {
+  constructor(
+    private readonly invitations: InvitationsService,
+    private readonly config: AppConfig,
+  ) {}
+
+  @Post('teams/:teamId/invitations')
+  @Roles('coordinator')
+  @ApiBearerAuth()
+  @ApiBody({ schema: openApiSchema(CreateInvitationSchema) })
+  create(
+    @Param('teamId') teamId: string,
+    @Body(new ZodValidationPipe(CreateInvitationSchema)) body: CreateInvitationDto,
+    @CurrentUser() user: AuthUser,
+  ): Promise<{ id: string }> {
+    return this.invitations.invite(teamId, body.email, body.role, user.id);
+  }
+
+  @Get('invitations/:token')
+  @Public()
+  describe(@Param('token') token: string): Promise<InvitationView> {
+    return this.invitations.describe(token);
+  }
+
+  @Post('invitations/:token/accept')
+  @Public()
+  @HttpCode(200)
+  @ApiBody({ schema: openApiSchema(AcceptInvitationSchema) })
+  async accept(
+    @Param('token') token: string,
+    @Body(new ZodValidationPipe(AcceptInvitationSchema)) body: AcceptInvitationDto,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<SessionView> {
+    return sendSession(res, await this.invitations.accept(token, body.name, body.password), this.config);
+  }
+}

@@ -1,0 +1,37 @@
+import { Injectable, OnApplicationShutdown } from '@nestjs/common';
+import { createTransport, type Transporter } from 'nodemailer';
+import { AppConfig } from '../config/app-config';
+
+export interface OutgoingMail {
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+}
+
+@Injectable()
+export class MailService implements OnApplicationShutdown {
+  private readonly transport: Transporter;
+
+  constructor(private readonly config: AppConfig) {
+    this.transport = createTransport(config.smtpUrl);
+  }
+
+  async send(mail: OutgoingMail): Promise<void> {
+    await this.transport.sendMail({ from: this.config.mailFrom, ...mail });
+  }
+
+  /** Absolute link for e-mails; the client routes it (e.g. /invitations/:token). */
+  link(pathname: string): string {
+    return `${this.config.publicUrl}${pathname}`;
+  }
+
+  onApplicationShutdown(): void {
+    this.transport.close();
+  }
+}
+
+/** Minimal escaping for the few values we put into HTML mail bodies. */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+}

@@ -1,0 +1,11 @@
+import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261201235328 } from './Migration20261201235328_initial';
+
+/**
+ * Static list so the migrator works under vitest and from dist alike. To add one: build, run
+ * `MIKRO_ORM_CLI_CONFIG=./dist/mikro-orm.config.js MIKRO_ORM_CLI_USE_TS_NODE=false pnpm exec mikro-orm migration:create`
+ * (it writes the .ts into src/migrations and updates the snapshot), then append it below and commit both.
+ */
+export const migrationsList: MigrationObject[] = [
+  { name: 'Migration20261201235328_initial', class: Migration20261201235328 },
+];

@@ -1,0 +1,5 @@
+import { Module } from '@nestjs/common';
+import { StorageService } from './storage.service';
+
+@Module({ providers: [StorageService], exports: [StorageService] })
+export class StorageModule {}

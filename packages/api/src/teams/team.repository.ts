@@ -1,0 +1,4 @@
+import { EntityRepository } from '@mikro-orm/mariadb';
+import type { Team } from './entities/team.entity';
+
+export class TeamRepository extends EntityRepository<Team> {}
