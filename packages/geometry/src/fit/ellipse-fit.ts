@@ -104,7 +104,7 @@ export function ellipseOf(full: Float64Array): LimbEllipse {
  */
 export function chi2Of(problem: EllipseFitProblem, full: Float64Array, residuals?: Float64Array): number {
   const fr = frameOf(full);
-  const grad: [number, number] = [0, 0];
+  const grad: [number, number, number] = [0, 0, 0];
   const m2 = problem.modelErrorKm * problem.modelErrorKm;
   let chi2 = 0;
   const pts = problem.points;
@@ -119,9 +119,9 @@ export function chi2Of(problem: EllipseFitProblem, full: Float64Array, residuals
       f += vf * delta;
       g += vg * delta;
     }
-    const rho = frameResidualKm(f, g, fr);
     frameResidualGradient(f, g, fr, grad);
-    const along = Math.max(Math.abs(vf * grad[0] + vg * grad[1]), 0.1 * Math.hypot(vf, vg));
+    const rho = grad[0];
+    const along = Math.max(Math.abs(vf * grad[1] + vg * grad[2]), 0.1 * Math.sqrt(vf * vf + vg * vg));
     const s = p.sigmaSeconds * along;
     const r = rho / Math.sqrt(s * s + m2);
     if (residuals) residuals[i] = r;
@@ -397,8 +397,11 @@ function sampleRegion(
 ): { samples: Float64Array[]; sampleChi2: number[] } {
   const k = free.length;
   const bestP = best[IX_P] as number;
+  const scratch = toFull(bestFree);
   const logProbability = (x: Float64Array): number => {
-    const full = toFull(x);
+    // One buffer for every evaluation: the sampler calls this ~10⁴ times per fit.
+    const full = scratch;
+    for (let i = 0; i < k; i++) full[free[i] as number] = x[i] as number;
     const a = full[IX_A] as number;
     const eps = full[IX_EPS] as number;
     const p = full[IX_P] as number;
@@ -457,13 +460,14 @@ function choleskyFactor(cov: Matrix): Matrix {
  * fair one-number spread when the distribution is not normal.
  */
 export function centralSigma(values: readonly number[]): number {
-  const sorted = [...values].sort((x, y) => x - y);
+  // A typed array sorts numerically and natively, several times faster than a comparator on 10⁴ values.
+  const sorted = Float64Array.from(values).sort();
   const lo = quantile(sorted, (1 - ONE_SIGMA_MASS) / 2);
   const hi = quantile(sorted, (1 + ONE_SIGMA_MASS) / 2);
   return (hi - lo) / 2;
 }
 
-function quantile(sorted: readonly number[], q: number): number {
+function quantile(sorted: Float64Array, q: number): number {
   if (sorted.length === 0) return 0;
   const pos = q * (sorted.length - 1);
   const i = Math.floor(pos);

@@ -45,15 +45,16 @@ export function frameResidualKm(fKm: number, gKm: number, fr: EllipseFrame): num
   const dg = gKm - fr.centerGKm;
   const u = df * fr.cosP - dg * fr.sinP;
   const w = df * fr.sinP + dg * fr.cosP;
-  const d = Math.hypot(u, w);
+  // Math.sqrt rather than Math.hypot: hypot's overflow guard costs more than the rest of the loop.
+  const d = Math.sqrt(u * u + w * w);
   const a = fr.semiMajorKm;
   const b = fr.semiMinorKm;
-  const s = Math.hypot(b * u, a * w);
+  const s = Math.sqrt(b * b * u * u + a * a * w * w);
   return s === 0 ? -Math.min(a, b) : d - (a * b * d) / s;
 }
 
 /**
- * Gradient of ρ with respect to the point's sky-plane position (∂ρ/∂f, ∂ρ/∂g), written into out.
+ * ρ and its gradient with respect to the point's sky-plane position, written into out as [ρ, ∂ρ/∂f, ∂ρ/∂g].
  * With k = ab/S, S = √(b²u² + a²w²): ∂ρ/∂u = (u/d)(1 − k) + d·k·b²u/S², ∂ρ/∂w = (w/d)(1 − k) + d·k·a²w/S².
  * At the centre the direction is undefined; the gradient is reported as zero so the caller's floor applies.
  */
@@ -61,26 +62,28 @@ export function frameResidualGradient(
   fKm: number,
   gKm: number,
   fr: EllipseFrame,
-  out: [number, number],
+  out: [number, number, number],
 ): void {
   const df = fKm - fr.centerFKm;
   const dg = gKm - fr.centerGKm;
   const u = df * fr.cosP - dg * fr.sinP;
   const w = df * fr.sinP + dg * fr.cosP;
-  const d = Math.hypot(u, w);
+  const d = Math.sqrt(u * u + w * w);
   const a = fr.semiMajorKm;
   const b = fr.semiMinorKm;
   const s2 = b * b * u * u + a * a * w * w;
   if (d === 0 || s2 === 0) {
-    out[0] = 0;
+    out[0] = -Math.min(a, b);
     out[1] = 0;
+    out[2] = 0;
     return;
   }
   const k = (a * b) / Math.sqrt(s2);
+  out[0] = d * (1 - k);
   const dRhoDu = (u / d) * (1 - k) + (d * k * b * b * u) / s2;
   const dRhoDw = (w / d) * (1 - k) + (d * k * a * a * w) / s2;
-  out[0] = dRhoDu * fr.cosP + dRhoDw * fr.sinP;
-  out[1] = -dRhoDu * fr.sinP + dRhoDw * fr.cosP;
+  out[1] = dRhoDu * fr.cosP + dRhoDw * fr.sinP;
+  out[2] = -dRhoDu * fr.sinP + dRhoDw * fr.cosP;
 }
 
 /** Radius of the ellipse (km) in the direction of the given position angle (radians, north through east). */
@@ -143,13 +146,15 @@ export function pathClearance(path: readonly SkyPointKm[], fr: EllipseFrame): nu
     const cu = (df * fr.cosP - dg * fr.sinP) / fr.semiMajorKm;
     const cw = (df * fr.sinP + dg * fr.cosP) / fr.semiMinorKm;
     if (i === 0) {
-      best = Math.hypot(cu, cw);
+      best = Math.sqrt(cu * cu + cw * cw);
     } else {
       const su = cu - pu;
       const sw = cw - pw;
       const len2 = su * su + sw * sw;
       const t = len2 === 0 ? 0 : Math.min(1, Math.max(0, -(pu * su + pw * sw) / len2));
-      best = Math.min(best, Math.hypot(pu + t * su, pw + t * sw));
+      const qu = pu + t * su;
+      const qw = pw + t * sw;
+      best = Math.min(best, Math.sqrt(qu * qu + qw * qw));
     }
     pu = cu;
     pw = cw;
