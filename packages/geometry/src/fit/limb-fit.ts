@@ -183,16 +183,17 @@ function limbProblem(input: LimbFitInput): EllipseFitProblem {
 export function checkPoint(
   p: { station: string; fKm: number; gKm: number; sigmaSeconds: number; velocity: VelocityKmPerS },
   modelErrorKm: number,
+  path = 'chords',
 ): void {
   const where = `station "${p.station}"`;
   if (![p.fKm, p.gKm, p.velocity.f, p.velocity.g].every(Number.isFinite)) {
-    throw new GeometryInputError('chords', `${where}: point or velocity is not a finite number`);
+    throw new GeometryInputError(path, `${where}: point or velocity is not a finite number`);
   }
   if (!(Number.isFinite(p.sigmaSeconds) && p.sigmaSeconds >= 0)) {
-    throw new GeometryInputError('chords', `${where}: timing sigma must be ≥ 0 s, got ${p.sigmaSeconds}`);
+    throw new GeometryInputError(path, `${where}: timing sigma must be ≥ 0 s, got ${p.sigmaSeconds}`);
   }
   if (Math.hypot(p.velocity.f, p.velocity.g) === 0) {
-    throw new GeometryInputError('chords', `${where}: the sky-plane velocity is zero`);
+    throw new GeometryInputError(path, `${where}: the sky-plane velocity is zero`);
   }
   if (p.sigmaSeconds === 0 && modelErrorKm === 0) {
     throw new GeometryInputError(
