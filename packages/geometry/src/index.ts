@@ -1,2 +1,3 @@
 export * from './types.js';
 export * from './dynamics/index.js';
+export * from './lightcurve/index.js';

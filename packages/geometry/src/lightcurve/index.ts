@@ -1,0 +1,22 @@
+export { fresnel, straightEdgeIntensity, type FresnelPair } from './fresnel.js';
+export {
+  buildEdgeProfile,
+  fresnelScaleKm,
+  profileAt,
+  boxMean,
+  type EdgeProfile,
+  type EdgeProfileOptions,
+} from './edge-profile.js';
+export {
+  fitTiming,
+  fitMainEvent,
+  searchDips,
+  type MainEventFit,
+  DEFAULT_DETECTION_SIGMA,
+  MAX_DIP_SECONDS,
+  type TimingInput,
+  type TimingResult,
+  type TimedEdge,
+  type DipResult,
+} from './timing.js';
+export { starDiameterKmFromMas } from './star.js';

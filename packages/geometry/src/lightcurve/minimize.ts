@@ -1,0 +1,144 @@
+// Small one- and two-dimensional minimisers for χ² surfaces in edge times. The surfaces are smooth
+// where diffraction, the star or the exposure spread an edge over several samples, but can be flat
+// between samples when none does, so each 1-D search scans a grid before refining by golden section
+// (Press et al., Numerical Recipes, 3rd ed., §10.2) rather than trusting derivatives.
+
+const GOLDEN = (3 - Math.sqrt(5)) / 2;
+
+export interface Minimum1d {
+  x: number;
+  fx: number;
+}
+
+/** Golden-section search for a minimum of f inside [a, b], to an absolute tolerance in x. */
+export function goldenSection(f: (x: number) => number, a: number, b: number, tolerance: number): Minimum1d {
+  let lo = Math.min(a, b);
+  let hi = Math.max(a, b);
+  let x1 = lo + GOLDEN * (hi - lo);
+  let x2 = hi - GOLDEN * (hi - lo);
+  let f1 = f(x1);
+  let f2 = f(x2);
+  while (hi - lo > tolerance) {
+    if (f1 <= f2) {
+      hi = x2;
+      x2 = x1;
+      f2 = f1;
+      x1 = lo + GOLDEN * (hi - lo);
+      f1 = f(x1);
+    } else {
+      lo = x1;
+      x1 = x2;
+      f1 = f2;
+      x2 = hi - GOLDEN * (hi - lo);
+      f2 = f(x2);
+    }
+  }
+  return f1 <= f2 ? { x: x1, fx: f1 } : { x: x2, fx: f2 };
+}
+
+/** Scans [lo, hi] at `intervals` equal steps, then refines around the best node. */
+export function scanThenRefine(
+  f: (x: number) => number,
+  lo: number,
+  hi: number,
+  intervals: number,
+  tolerance: number,
+): Minimum1d {
+  const step = (hi - lo) / intervals;
+  let best = { x: lo, fx: f(lo) };
+  for (let k = 1; k <= intervals; k++) {
+    const x = lo + k * step;
+    const fx = f(x);
+    if (fx < best.fx) best = { x, fx };
+  }
+  const refined = goldenSection(f, Math.max(lo, best.x - step), Math.min(hi, best.x + step), tolerance);
+  return refined.fx <= best.fx ? refined : best;
+}
+
+export interface Minimum2d {
+  x: number;
+  y: number;
+  fxy: number;
+}
+
+export interface Minimize2dOptions {
+  /** Half-width of the first scan around each starting coordinate. */
+  span: number;
+  tolerance: number;
+  bounds: { lo: number; hi: number };
+  maxRounds?: number;
+}
+
+/**
+ * Alternating 1-D minimisation. The two edge times of a well are nearly independent for long events,
+ * where it converges in two rounds; short dips couple them and take a few more.
+ */
+export function minimizeAlternating(
+  f: (x: number, y: number) => number,
+  x0: number,
+  y0: number,
+  options: Minimize2dOptions,
+): Minimum2d {
+  const { tolerance, bounds } = options;
+  const maxRounds = options.maxRounds ?? 40;
+  let x = x0;
+  let y = y0;
+  let fxy = f(x, y);
+  let span = options.span;
+  for (let round = 0; round < maxRounds; round++) {
+    const mx = scanThenRefine(
+      (t) => f(t, y),
+      Math.max(bounds.lo, x - span),
+      Math.min(bounds.hi, x + span),
+      20,
+      tolerance,
+    );
+    const my = scanThenRefine(
+      (t) => f(mx.x, t),
+      Math.max(bounds.lo, y - span),
+      Math.min(bounds.hi, y + span),
+      20,
+      tolerance,
+    );
+    const moved = Math.max(Math.abs(mx.x - x), Math.abs(my.x - y));
+    if (my.fx <= fxy) {
+      x = mx.x;
+      y = my.x;
+      fxy = my.fx;
+    }
+    if (moved <= tolerance) break;
+    span = Math.max(4 * moved, 20 * tolerance, span / 4);
+  }
+  return { x, y, fxy };
+}
+
+/**
+ * Distance from the minimum x* at which the profile g rises to g(x*) + 1 in the direction `direction`
+ * (+1 or −1). Stops at `limit` (the data's end) and returns the distance to it if g never rises that far.
+ */
+export function profileHalfWidth(
+  g: (x: number) => number,
+  xStar: number,
+  gStar: number,
+  direction: 1 | -1,
+  firstStep: number,
+  limit: number,
+  tolerance: number,
+): number {
+  const target = gStar + 1;
+  const maxDistance = Math.abs(limit - xStar);
+  let inside = 0;
+  let step = Math.min(firstStep, maxDistance);
+  while (g(xStar + direction * step) < target) {
+    inside = step;
+    if (step >= maxDistance) return maxDistance;
+    step = Math.min(2 * step, maxDistance);
+  }
+  let outside = step;
+  while (outside - inside > tolerance) {
+    const mid = (inside + outside) / 2;
+    if (g(xStar + direction * mid) < target) inside = mid;
+    else outside = mid;
+  }
+  return (inside + outside) / 2;
+}

@@ -1,0 +1,527 @@
+// Times of disappearance and reappearance, and secondary dips, from one station's light curve.
+// Model: a square well (baseline outside, bottom inside) whose edges carry the tabulated edge profile
+// (Fresnel diffraction over the band and the star's disc), each sample averaged over its exposure.
+// The two levels enter linearly and are solved exactly for every trial pair of times, so the search is
+// two-dimensional; each time's 1-sigma is the mean half-width of its χ²min + 1 profile, profiling over
+// the other time and the levels (Press et al., Numerical Recipes, 3rd ed., §15.6.5, Δχ² = 1 for one
+// parameter of interest).
+
+import { GeometryInputError } from '../types.js';
+import { strongestResidualBox, strongestStep } from './box-search.js';
+import type { EdgeProfile } from './edge-profile.js';
+import { minimizeAlternating, profileHalfWidth, scanThenRefine } from './minimize.js';
+import { WellModel, weightedSeries, type WeightedSeries } from './well-model.js';
+
+/** Detection threshold of the main event and of secondary dips, in standard errors of the box mean. */
+export const DEFAULT_DETECTION_SIGMA = 6;
+/** Longest secondary dip searched for. */
+export const MAX_DIP_SECONDS = 30;
+const MAX_DIPS = 20;
+const TIME_TOLERANCE_SECONDS = 1e-7;
+
+export interface TimingInput {
+  /** Middle of each exposure, seconds from any origin, strictly increasing. */
+  timesSeconds: ArrayLike<number>;
+  flux: ArrayLike<number>;
+  /** Per-point 1-sigma; when given the weights are 1/fluxErr² with no rescaling. */
+  fluxErr?: ArrayLike<number>;
+  speedKmPerS: number;
+  exposureSeconds: number;
+  profile: EdgeProfile;
+  bottom: 'free' | 'zero';
+  detectionSigma?: number;
+  /** Dips marked by hand (seconds on the same axis as timesSeconds); fitted and reported whatever their significance. */
+  markedDips?: Array<{ startSeconds: number; endSeconds: number }>;
+}
+
+export interface TimedEdge {
+  timeSeconds: number;
+  sigmaSeconds: number;
+}
+
+export interface DipResult {
+  start: TimedEdge;
+  end: TimedEdge;
+  apparentOpacity: number;
+  /** −ln(1 − opacity); null when the dip is opaque. */
+  apparentOpticalDepth: number | null;
+  equivalentWidthKm: number;
+  /** √(χ²(no dip) − χ²(dip)). */
+  significance: number;
+  marked: boolean;
+}
+
+export interface TimingResult {
+  disappearance: TimedEdge | null;
+  reappearance: TimedEdge | null;
+  baselineFlux: number;
+  bottomFlux: number | null;
+  /** χ² of the full model (main well and dips); dof subtracts 3 per dip (two times and an opacity). */
+  chi2: number;
+  dof: number;
+  fresnelScaleKm: number;
+  starDiameterKm: number;
+  /** Flux 1-sigma taken from the residuals when no fluxErr was given; null otherwise. */
+  noiseSigmaFlux: number | null;
+  /** Significance of the strongest well found, whether or not it passed the threshold. */
+  eventSignificance: number;
+  dips: DipResult[];
+  /** The fitted model at each sample's time (main well and dips). */
+  modelFlux: Float64Array;
+}
+
+function validate(input: TimingInput): void {
+  const { timesSeconds: t, flux, fluxErr } = input;
+  const n = t.length;
+  if (flux.length !== n) throw new GeometryInputError('flux', `has ${flux.length} values for ${n} times`);
+  if (fluxErr !== undefined && fluxErr.length !== n) {
+    throw new GeometryInputError('fluxErr', `has ${fluxErr.length} values for ${n} times`);
+  }
+  const parameters = input.bottom === 'free' ? 4 : 3;
+  if (n <= parameters) {
+    throw new GeometryInputError('timesSeconds', `fewer points (${n}) than free parameters plus one`);
+  }
+  for (let i = 0; i < n; i++) {
+    const ti = t[i] ?? NaN;
+    if (!Number.isFinite(ti)) throw new GeometryInputError(`timesSeconds[${i}]`, 'not a finite number');
+    if (i > 0 && !(ti > (t[i - 1] ?? NaN))) {
+      throw new GeometryInputError(`timesSeconds[${i}]`, 'times must increase');
+    }
+    if (!Number.isFinite(flux[i] ?? NaN)) throw new GeometryInputError(`flux[${i}]`, 'not a finite number');
+    if (fluxErr !== undefined) {
+      const e = fluxErr[i] ?? NaN;
+      if (!(Number.isFinite(e) && e > 0))
+        throw new GeometryInputError(`fluxErr[${i}]`, 'must be a positive number');
+    }
+  }
+  if (!(input.speedKmPerS > 0)) throw new GeometryInputError('speedKmPerS', 'must be a positive number');
+  if (!(input.exposureSeconds >= 0))
+    throw new GeometryInputError('exposureSeconds', 'must be zero or positive');
+}
+
+function medianSpacing(t: ArrayLike<number>): number {
+  const d: number[] = [];
+  for (let i = 1; i < t.length; i++) d.push((t[i] ?? 0) - (t[i - 1] ?? 0));
+  d.sort((a, b) => a - b);
+  return d[Math.floor(d.length / 2)] ?? 1;
+}
+
+/** Robust white-noise 1-sigma from successive differences (MAD·1.4826/√2), immune to steps and slow trends. */
+function differenceScatter(y: ArrayLike<number>): number {
+  const d: number[] = [];
+  for (let i = 1; i < y.length; i++) d.push((y[i] ?? 0) - (y[i - 1] ?? 0));
+  d.sort((a, b) => a - b);
+  const med = d[Math.floor(d.length / 2)] ?? 0;
+  const dev = d.map((x) => Math.abs(x - med)).sort((a, b) => a - b);
+  return (1.4826 * (dev[Math.floor(dev.length / 2)] ?? 0)) / Math.SQRT2;
+}
+
+interface Levels {
+  chi2: number;
+  baseline: number;
+  bottom: number;
+}
+
+/** Exact weighted least squares of flux = bottom + (baseline − bottom)·I for given sums. */
+function solveLevels(s: ReturnType<WellModel['sums']>, wyy: number, bottom: 'free' | 'zero'): Levels {
+  if (bottom === 'zero') {
+    if (s.swII <= 0) return { chi2: wyy, baseline: 0, bottom: 0 };
+    const a = s.swyI / s.swII;
+    return { chi2: wyy - a * s.swyI, baseline: a, bottom: 0 };
+  }
+  const sII = s.swII;
+  const sIJ = s.swI - s.swII;
+  const sJJ = s.sw - 2 * s.swI + s.swII;
+  const syI = s.swyI;
+  const syJ = s.swy - s.swyI;
+  const det = sII * sJJ - sIJ * sIJ;
+  if (!(det > 1e-12 * sII * sJJ)) {
+    // No sample sees the well: one level fits everything.
+    const mean = s.swy / s.sw;
+    return { chi2: wyy - mean * s.swy, baseline: mean, bottom: mean };
+  }
+  const a = (syI * sJJ - syJ * sIJ) / det;
+  const b = (sII * syJ - sIJ * syI) / det;
+  return { chi2: wyy - a * syI - b * syJ, baseline: a, bottom: b };
+}
+
+interface EdgePairFit {
+  t1: number;
+  t2: number;
+  chi2: number;
+  sigma1: number;
+  sigma2: number;
+}
+
+/** Minimum of χ²(t1, t2) and the Δχ² = 1 half-widths of each time's profile. */
+function fitEdgePair(
+  chi2: (t1: number, t2: number) => number,
+  t1Start: number,
+  t2Start: number,
+  spanSeconds: number,
+  bounds: { lo: number; hi: number },
+  firstStepSeconds: number,
+): EdgePairFit {
+  const best = minimizeAlternating(chi2, t1Start, t2Start, {
+    span: spanSeconds,
+    tolerance: TIME_TOLERANCE_SECONDS,
+    bounds,
+  });
+  // The inner minimisation may find a slightly lower χ² than the outer one did; the lowest seen is the minimum.
+  let chi2Min = best.fxy;
+  const innerSpan = Math.max(spanSeconds / 2, 4 * firstStepSeconds);
+  const profile1 = (t1: number): number => {
+    const m = scanThenRefine(
+      (t2) => chi2(t1, t2),
+      Math.max(bounds.lo, best.y - innerSpan),
+      Math.min(bounds.hi, best.y + innerSpan),
+      10,
+      TIME_TOLERANCE_SECONDS,
+    );
+    chi2Min = Math.min(chi2Min, m.fx);
+    return m.fx;
+  };
+  const profile2 = (t2: number): number => {
+    const m = scanThenRefine(
+      (t1) => chi2(t1, t2),
+      Math.max(bounds.lo, best.x - innerSpan),
+      Math.min(bounds.hi, best.x + innerSpan),
+      10,
+      TIME_TOLERANCE_SECONDS,
+    );
+    chi2Min = Math.min(chi2Min, m.fx);
+    return m.fx;
+  };
+  profile1(best.x);
+  profile2(best.y);
+  const tol = Math.max(TIME_TOLERANCE_SECONDS, firstStepSeconds * 1e-4);
+  const halfWidths = (g: (t: number) => number, t: number): number => {
+    const up = profileHalfWidth(g, t, chi2Min, 1, firstStepSeconds, bounds.hi, tol);
+    const down = profileHalfWidth(g, t, chi2Min, -1, firstStepSeconds, bounds.lo, tol);
+    return (up + down) / 2;
+  };
+  return {
+    t1: best.x,
+    t2: best.y,
+    chi2: chi2Min,
+    sigma1: halfWidths(profile1, best.x),
+    sigma2: halfWidths(profile2, best.y),
+  };
+}
+
+/** The main well's fit, as the dip search needs it. */
+export interface MainEventFit {
+  input: TimingInput;
+  model: WellModel;
+  weights: Float64Array;
+  series: WeightedSeries;
+  levels: Levels;
+  edges: EdgePairFit;
+  cadenceSeconds: number;
+  smoothSeconds: number;
+  threshold: number;
+  noiseSigmaFlux: number | null;
+  eventSignificance: number;
+  /** Main-well model at each sample. */
+  modelFlux: Float64Array;
+}
+
+interface Start {
+  t1: number;
+  t2: number;
+  noiseSigmaFlux: number;
+}
+
+/**
+ * Detects the main well and fits its two times and two levels; null when no well passes the detection
+ * threshold. `restart` (internal) refits from a known solution with a known noise scale.
+ */
+export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit | null {
+  validate(input);
+  const { timesSeconds: t, flux, profile } = input;
+  const n = t.length;
+  const threshold = input.detectionSigma ?? DEFAULT_DETECTION_SIGMA;
+  const parameters = input.bottom === 'free' ? 4 : 3;
+  const cadenceSeconds = medianSpacing(t);
+  const model = new WellModel(t, profile, input.speedKmPerS, input.exposureSeconds);
+  const smoothSeconds =
+    (profile.fresnelScaleKm + profile.starDiameterKm / 2) / input.speedKmPerS + input.exposureSeconds / 2;
+  const bounds = { lo: t[0] ?? 0, hi: t[n - 1] ?? 0 };
+  const span = 2 * Math.max(cadenceSeconds, smoothSeconds);
+  const firstStep = Math.max(cadenceSeconds / 20, 1e-5);
+
+  let t1Start: number;
+  let t2Start: number;
+  let eventSignificance = Infinity;
+  const weights = new Float64Array(n);
+  if (restart === undefined) {
+    // Detection weights: the given errors, or one robust scatter for all points.
+    const scatter = differenceScatter(flux);
+    for (let i = 0; i < n; i++) {
+      const e = input.fluxErr?.[i] ?? scatter;
+      weights[i] = e > 0 ? 1 / (e * e) : 1;
+    }
+    const step = strongestStep(flux, weights);
+    eventSignificance = step?.significance ?? 0;
+    if (step === null || !(step.significance >= threshold)) return null;
+    if (step.lo === 0) {
+      throw new GeometryInputError(
+        'flux[0]',
+        'the light curve starts inside the event; both edges are needed',
+      );
+    }
+    if (step.hi === n) {
+      throw new GeometryInputError(
+        `flux[${n - 1}]`,
+        'the light curve ends inside the event; both edges are needed',
+      );
+    }
+    t1Start = ((t[step.lo - 1] ?? 0) + (t[step.lo] ?? 0)) / 2;
+    t2Start = ((t[step.hi - 1] ?? 0) + (t[step.hi] ?? 0)) / 2;
+  } else {
+    t1Start = restart.t1;
+    t2Start = restart.t2;
+  }
+
+  for (let i = 0; i < n; i++) {
+    const e = input.fluxErr?.[i] ?? restart?.noiseSigmaFlux;
+    weights[i] = e === undefined ? 1 : 1 / (e * e);
+  }
+  let series = weightedSeries(flux, weights);
+  const chi2Of = (s: WeightedSeries) => (t1: number, t2: number) =>
+    solveLevels(model.sums(t1, t2, s, 0, n), s.wyyTotal, input.bottom).chi2;
+
+  let noiseSigmaFlux: number | null = restart?.noiseSigmaFlux ?? null;
+  if (input.fluxErr === undefined && restart === undefined) {
+    // Unit weights first; the residual scatter of that fit is the noise scale (no errors were given).
+    const first = minimizeAlternating(chi2Of(series), t1Start, t2Start, {
+      span,
+      tolerance: TIME_TOLERANCE_SECONDS,
+      bounds,
+    });
+    const sigma = Math.sqrt(first.fxy / (n - parameters));
+    noiseSigmaFlux = sigma;
+    weights.fill(1 / (sigma * sigma));
+    series = weightedSeries(flux, weights);
+    t1Start = first.x;
+    t2Start = first.y;
+  }
+  const edges = fitEdgePair(chi2Of(series), t1Start, t2Start, span, bounds, firstStep);
+  const levels = solveLevels(model.sums(edges.t1, edges.t2, series, 0, n), series.wyyTotal, input.bottom);
+  const modelFlux = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const I = model.intensityAt(t[i] ?? 0, edges.t1, edges.t2);
+    modelFlux[i] = levels.bottom + (levels.baseline - levels.bottom) * I;
+  }
+  return {
+    input,
+    model,
+    weights,
+    series,
+    levels,
+    edges,
+    cadenceSeconds,
+    smoothSeconds,
+    threshold,
+    noiseSigmaFlux,
+    eventSignificance,
+    modelFlux,
+  };
+}
+
+export function fitTiming(input: TimingInput): TimingResult {
+  let main = fitMainEvent(input);
+  if (main === null) return noEventResult(input);
+  let dips = searchDips(main);
+  const n = input.timesSeconds.length;
+  const parameters = input.bottom === 'free' ? 4 : 3;
+  if (input.fluxErr === undefined && dips.length > 0) {
+    // Dips inflate the main fit's residual scatter; take the noise from the residuals of the full model
+    // and fit again with it, so that neither the times' nor the dips' sigmas carry the dips' own light.
+    const full = fullModel(main, dips);
+    let rss = 0;
+    for (let i = 0; i < n; i++) rss += ((input.flux[i] ?? 0) - (full[i] ?? 0)) ** 2;
+    const noiseSigmaFlux = Math.sqrt(rss / (n - parameters - 3 * dips.length));
+    const refit = fitMainEvent(input, { t1: main.edges.t1, t2: main.edges.t2, noiseSigmaFlux });
+    if (refit !== null) {
+      refit.eventSignificance = main.eventSignificance;
+      main = refit;
+      dips = searchDips(main, dips);
+    }
+  }
+  const { levels, edges } = main;
+  const modelFlux = fullModel(main, dips);
+  let chi2 = 0;
+  for (let i = 0; i < n; i++)
+    chi2 += (main.weights[i] ?? 0) * ((input.flux[i] ?? 0) - (modelFlux[i] ?? 0)) ** 2;
+  return {
+    disappearance: { timeSeconds: edges.t1, sigmaSeconds: edges.sigma1 },
+    reappearance: { timeSeconds: edges.t2, sigmaSeconds: edges.sigma2 },
+    baselineFlux: levels.baseline,
+    bottomFlux: levels.bottom,
+    chi2,
+    dof: n - parameters - 3 * dips.length,
+    fresnelScaleKm: input.profile.fresnelScaleKm,
+    starDiameterKm: input.profile.starDiameterKm,
+    noiseSigmaFlux: main.noiseSigmaFlux,
+    eventSignificance: main.eventSignificance,
+    dips,
+    modelFlux,
+  };
+}
+
+function fullModel(main: MainEventFit, dips: DipResult[]): Float64Array {
+  const t = main.input.timesSeconds;
+  const out = Float64Array.from(main.modelFlux);
+  const starFlux = main.levels.baseline - main.levels.bottom;
+  for (const dip of dips) {
+    for (let i = 0; i < out.length; i++) {
+      const J = 1 - main.model.intensityAt(t[i] ?? 0, dip.start.timeSeconds, dip.end.timeSeconds);
+      out[i] = (out[i] ?? 0) - dip.apparentOpacity * starFlux * J;
+    }
+  }
+  return out;
+}
+
+function noEventResult(input: TimingInput): TimingResult {
+  const { flux } = input;
+  const n = flux.length;
+  const weights = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const e = input.fluxErr?.[i];
+    weights[i] = e === undefined ? 1 : 1 / (e * e);
+  }
+  const scatter = differenceScatter(flux);
+  const detectionWeights = weights.map((w, i) =>
+    input.fluxErr?.[i] === undefined ? 1 / (scatter * scatter) : w,
+  );
+  const eventSignificance = strongestStep(flux, detectionWeights)?.significance ?? 0;
+  let sw = 0;
+  let swy = 0;
+  for (let i = 0; i < n; i++) {
+    sw += weights[i] ?? 0;
+    swy += (weights[i] ?? 0) * (flux[i] ?? 0);
+  }
+  const mean = swy / sw;
+  let chi2 = 0;
+  for (let i = 0; i < n; i++) chi2 += (weights[i] ?? 0) * ((flux[i] ?? 0) - mean) ** 2;
+  let noiseSigmaFlux: number | null = null;
+  if (input.fluxErr === undefined) {
+    noiseSigmaFlux = Math.sqrt(chi2 / (n - 1));
+    chi2 = n - 1;
+  }
+  return {
+    disappearance: null,
+    reappearance: null,
+    baselineFlux: mean,
+    bottomFlux: null,
+    chi2,
+    dof: n - 1,
+    fresnelScaleKm: input.profile.fresnelScaleKm,
+    starDiameterKm: input.profile.starDiameterKm,
+    noiseSigmaFlux,
+    eventSignificance,
+    dips: [],
+    modelFlux: new Float64Array(n).fill(mean),
+  };
+}
+
+/**
+ * Secondary dips outside the main event: boxes of one sample to MAX_DIP_SECONDS in the main fit's
+ * residuals passing the detection threshold, strongest first, plus every dip marked by hand; each is
+ * then fitted as a scaled well. `previous` (internal) refits known dips instead of searching again.
+ */
+export function searchDips(main: MainEventFit, previous?: DipResult[]): DipResult[] {
+  const { input, model, modelFlux, weights, levels, edges, cadenceSeconds: cadence, smoothSeconds } = main;
+  const { timesSeconds: t, flux } = input;
+  const n = t.length;
+  const starFlux = levels.baseline - levels.bottom;
+  if (!(starFlux > 0)) return [];
+  const residuals = new Float64Array(n);
+  for (let i = 0; i < n; i++) residuals[i] = (flux[i] ?? 0) - (modelFlux[i] ?? 0);
+  const series = weightedSeries(residuals, weights);
+
+  const windows: Array<{ start: number; end: number; marked: boolean }> = [];
+  if (previous !== undefined) {
+    for (const d of previous)
+      windows.push({ start: d.start.timeSeconds, end: d.end.timeSeconds, marked: d.marked });
+  } else {
+    // Inside the main event (and across its smoothed edges) there is no starlight for a dip to remove.
+    const blocked = new Uint8Array(n);
+    const guard = 2 * smoothSeconds + cadence;
+    for (let i = 0; i < n; i++) {
+      const ti = t[i] ?? 0;
+      if (ti > edges.t1 - guard && ti < edges.t2 + guard) blocked[i] = 1;
+    }
+    for (const mark of input.markedDips ?? []) {
+      windows.push({ start: mark.startSeconds, end: mark.endSeconds, marked: true });
+      for (let i = 0; i < n; i++) {
+        const ti = t[i] ?? 0;
+        if (ti >= mark.startSeconds - cadence && ti <= mark.endSeconds + cadence) blocked[i] = 1;
+      }
+    }
+    const maxWidth = Math.max(1, Math.ceil(MAX_DIP_SECONDS / cadence));
+    for (let k = 0; k < MAX_DIPS; k++) {
+      const box = strongestResidualBox(residuals, weights, blocked, maxWidth);
+      if (box === null || !(box.significance >= main.threshold)) break;
+      const start = box.lo > 0 ? ((t[box.lo - 1] ?? 0) + (t[box.lo] ?? 0)) / 2 : (t[0] ?? 0);
+      const end = box.hi < n ? ((t[box.hi - 1] ?? 0) + (t[box.hi] ?? 0)) / 2 : (t[n - 1] ?? 0);
+      windows.push({ start, end, marked: false });
+      const margin = box.hi - box.lo;
+      for (let i = Math.max(0, box.lo - margin); i < Math.min(n, box.hi + margin); i++) blocked[i] = 1;
+    }
+  }
+
+  const dips: DipResult[] = [];
+  for (const w of windows) {
+    const dip = fitDip(model, series, w.start, w.end, starFlux, cadence, smoothSeconds, input.speedKmPerS);
+    if (dip !== null) dips.push({ ...dip, marked: w.marked });
+  }
+  return dips.sort((a, b) => a.start.timeSeconds - b.start.timeSeconds);
+}
+
+/**
+ * One dip as the same smoothed well scaled by its opacity, on top of the main fit's residuals:
+ * r = −c·(1 − I(t; start, end)), c = opacity·(baseline − bottom) with 0 ≤ opacity ≤ 1. χ² is measured
+ * from the no-dip fit, so its minimum is −(significance²).
+ */
+function fitDip(
+  model: WellModel,
+  residuals: WeightedSeries,
+  start: number,
+  end: number,
+  starFlux: number,
+  cadence: number,
+  smoothSeconds: number,
+  speedKmPerS: number,
+): Omit<DipResult, 'marked'> | null {
+  const t = model.timesSeconds;
+  const n = t.length;
+  const reach = Math.max(end - start, 2 * smoothSeconds + 2 * cadence, model.zoneSeconds);
+  const lo = model.lowerBound(start - reach);
+  const hi = model.lowerBound(end + reach);
+  if (hi - lo < 3) return null;
+  const depthOf = (t1: number, t2: number): { c: number; chi2: number } => {
+    const s = model.sums(t1, t2, residuals, lo, hi);
+    const sJJ = s.sw - 2 * s.swI + s.swII;
+    const srJ = s.swy - s.swyI;
+    if (!(sJJ > 0)) return { c: 0, chi2: 0 };
+    const c = Math.min(starFlux, Math.max(0, -srJ / sJJ));
+    return { c, chi2: 2 * c * srJ + c * c * sJJ };
+  };
+  const chi2 = (t1: number, t2: number): number => depthOf(t1, t2).chi2;
+  const bounds = { lo: t[lo] ?? 0, hi: t[Math.min(n, hi) - 1] ?? 0 };
+  const span = Math.max(cadence, smoothSeconds, (end - start) / 4);
+  const fit = fitEdgePair(chi2, start, end, span, bounds, Math.max(cadence / 20, 1e-5));
+  const { c } = depthOf(fit.t1, fit.t2);
+  const opacity = c / starFlux;
+  const durationSeconds = fit.t2 - fit.t1;
+  return {
+    start: { timeSeconds: fit.t1, sigmaSeconds: fit.sigma1 },
+    end: { timeSeconds: fit.t2, sigmaSeconds: fit.sigma2 },
+    apparentOpacity: opacity,
+    apparentOpticalDepth: opacity < 1 ? -Math.log(1 - opacity) : null,
+    equivalentWidthKm: opacity * speedKmPerS * durationSeconds,
+    significance: Math.sqrt(Math.max(0, -fit.chi2)),
+  };
+}
