@@ -1,0 +1,273 @@
+// Sky-plane projection of an event: every chord endpoint, negative chord path and ring dip as (f, g) km
+// on the fundamental plane through the geocentre perpendicular to the star's direction s, with
+//   (f, g) = ((O(t) − B(t))·e_f, (O(t) − B(t))·e_g),
+// O the station's and B the body's geocentric vectors (J2000/ICRS axes) at the corrected UTC t: the star's
+// shadow ray through the station, relative to the body's ephemeris centre. docs/method.md, "Sky plane".
+import { buildEphemeris, requireWithinSpan, type Ephemeris } from './astro/ephemeris.js';
+import { skyPlaneBasis, starDirection, type SkyPlaneBasis } from './astro/star.js';
+import { EarthOrientation, stationFromInput, type Station } from './astro/station.js';
+import { dot, sub } from './astro/vec3.js';
+import type { LimbPoint, NegativePath } from './fit/limb-fit.js';
+import type { RingPoint } from './fit/ring-fit.js';
+import { clamp } from './math.js';
+import { ttSecondsToUtcIso, utcIsoToTtSeconds } from './time/scales.js';
+import {
+  GeometryInputError,
+  type EventInput,
+  type SkyPointKm,
+  type SolutionChord,
+  type VelocityKmPerS,
+} from './types.js';
+
+export type { SkyPlaneBasis } from './astro/star.js';
+
+export interface RingDip {
+  station: string;
+  start: SkyPointKm;
+  end: SkyPointKm;
+}
+
+export interface ProjectedEvent {
+  basis: SkyPlaneBasis;
+  /** Mean of the positive chords' corrected mid-times; else of the ring dips'; else of the negative chords'. */
+  referenceTimeUtc: string;
+  /** Geocentric body distance at the reference time. */
+  distanceKm: number;
+  chords: SolutionChord[];
+  limbPoints: LimbPoint[];
+  negatives: NegativePath[];
+  ringPoints: Map<string, RingPoint[]>;
+  ringDips: Map<string, RingDip[]>;
+  /** Per ring label: the mean of its dips' mid-times and the body distance then (astrometry without a limb). */
+  ringReferences: Map<string, { referenceTimeUtc: string; distanceKm: number }>;
+}
+
+export interface ProjectOptions {
+  /** Fitted clock offsets per station, added to the event's own timeOffsetSeconds. */
+  timeOffsetsSeconds?: Record<string, number>;
+}
+
+/** Negative chords are sampled at 1/20 of the longest positive chord, within these bounds (see method.md). */
+export const PATH_STEP_MIN_SECONDS = 0.1;
+export const PATH_STEP_MAX_SECONDS = 5;
+export const PATH_MAX_POINTS = 5001;
+
+interface Timed {
+  ttSeconds: number;
+  path: string;
+}
+
+function mean(values: readonly number[]): number {
+  return values.reduce((a, b) => a + b, 0) / values.length;
+}
+
+function requirePositiveSigma(sigmaSeconds: number, path: string): void {
+  if (!(sigmaSeconds > 0) || !Number.isFinite(sigmaSeconds))
+    throw new GeometryInputError(path, 'must be a positive number of seconds');
+}
+
+/** The sky-plane geometry of one event, at its reference time. */
+class SkyPlane {
+  constructor(
+    readonly basis: SkyPlaneBasis,
+    private readonly ephemeris: Ephemeris,
+    private readonly orientation: EarthOrientation,
+  ) {}
+
+  point(station: Station, ttSeconds: number): SkyPointKm {
+    const o = this.orientation.celestialState(station.earthFixedKm, ttSeconds).positionKm;
+    const rel = sub(o, this.ephemeris.stateAt(ttSeconds).positionKm);
+    return { fKm: dot(rel, this.basis.eF), gKm: dot(rel, this.basis.eG) };
+  }
+
+  velocity(station: Station, ttSeconds: number): VelocityKmPerS {
+    const o = this.orientation.celestialState(station.earthFixedKm, ttSeconds).velocityKmPerS;
+    const rel = sub(o, this.ephemeris.stateAt(ttSeconds).velocityKmPerS);
+    return { f: dot(rel, this.basis.eF), g: dot(rel, this.basis.eG) };
+  }
+}
+
+export function projectEvent(event: EventInput, options: ProjectOptions = {}): ProjectedEvent {
+  const stations = new Map<string, Station>();
+  event.stations.forEach((input, i) => {
+    if (stations.has(input.id))
+      throw new GeometryInputError(`stations[${i}].id`, `station "${input.id}" is listed twice`);
+    stations.set(input.id, stationFromInput(input));
+  });
+  const stationAt = (id: string, path: string): Station => {
+    const station = stations.get(id);
+    if (!station) throw new GeometryInputError(path, `unknown station "${id}"`);
+    return station;
+  };
+  const fitted = options.timeOffsetsSeconds ?? {};
+  // A station's fixed clock offset is stated on its chord; its ring dips take the same offset.
+  const fixedOffset = new Map<string, number>();
+  for (const chord of event.chords)
+    if (!fixedOffset.has(chord.station)) fixedOffset.set(chord.station, chord.timeOffsetSeconds);
+  const correctedTt = (text: string, station: string, path: string, chordOffset?: number): Timed => ({
+    ttSeconds:
+      utcIsoToTtSeconds(text, path) + (chordOffset ?? fixedOffset.get(station) ?? 0) + (fitted[station] ?? 0),
+    path,
+  });
+
+  const ephemeris = buildEphemeris(event.ephemeris.rows, event.ephemeris.timeScale);
+
+  const chordTimes = event.chords.map((chord, i) => {
+    const station = stationAt(chord.station, `chords[${i}].station`);
+    if (chord.type === 'positive') {
+      requirePositiveSigma(chord.disappearance.sigmaSeconds, `chords[${i}].disappearance.sigmaSeconds`);
+      requirePositiveSigma(chord.reappearance.sigmaSeconds, `chords[${i}].reappearance.sigmaSeconds`);
+      const a = correctedTt(
+        chord.disappearance.time,
+        chord.station,
+        `chords[${i}].disappearance.time`,
+        chord.timeOffsetSeconds,
+      );
+      const b = correctedTt(
+        chord.reappearance.time,
+        chord.station,
+        `chords[${i}].reappearance.time`,
+        chord.timeOffsetSeconds,
+      );
+      if (b.ttSeconds <= a.ttSeconds)
+        throw new GeometryInputError(b.path, 'reappearance is not after disappearance');
+      return { station, a, b };
+    }
+    const a = correctedTt(chord.start, chord.station, `chords[${i}].start`, chord.timeOffsetSeconds);
+    const b = correctedTt(chord.end, chord.station, `chords[${i}].end`, chord.timeOffsetSeconds);
+    if (b.ttSeconds <= a.ttSeconds) throw new GeometryInputError(b.path, 'chord ends before it starts');
+    return { station, a, b };
+  });
+  const dipTimes = event.ringEvents.map((dip, i) => {
+    const station = stationAt(dip.station, `ringEvents[${i}].station`);
+    requirePositiveSigma(dip.start.sigmaSeconds, `ringEvents[${i}].start.sigmaSeconds`);
+    requirePositiveSigma(dip.end.sigmaSeconds, `ringEvents[${i}].end.sigmaSeconds`);
+    const a = correctedTt(dip.start.time, dip.station, `ringEvents[${i}].start.time`);
+    const b = correctedTt(dip.end.time, dip.station, `ringEvents[${i}].end.time`);
+    if (b.ttSeconds <= a.ttSeconds) throw new GeometryInputError(b.path, 'dip ends before it starts');
+    return { station, a, b };
+  });
+  for (const t of [...chordTimes, ...dipTimes]) {
+    requireWithinSpan(ephemeris, t.a.ttSeconds, t.a.path);
+    requireWithinSpan(ephemeris, t.b.ttSeconds, t.b.path);
+  }
+
+  const midTt = (t: { a: Timed; b: Timed }): number => (t.a.ttSeconds + t.b.ttSeconds) / 2;
+  const positiveMids = chordTimes.filter((_, i) => event.chords[i]?.type === 'positive').map(midTt);
+  const referenceTt =
+    positiveMids.length > 0
+      ? mean(positiveMids)
+      : dipTimes.length > 0
+        ? mean(dipTimes.map(midTt))
+        : chordTimes.length > 0
+          ? mean(chordTimes.map(midTt))
+          : (ephemeris.startTtSeconds + ephemeris.endTtSeconds) / 2;
+
+  const basis = skyPlaneBasis(starDirection(event.star, referenceTt));
+  const sky = new SkyPlane(basis, ephemeris, new EarthOrientation(event.earthRotation.dut1Seconds));
+
+  const longestPositiveSeconds = Math.max(
+    0,
+    ...chordTimes
+      .filter((_, i) => event.chords[i]?.type === 'positive')
+      .map((t) => t.b.ttSeconds - t.a.ttSeconds),
+  );
+  const baseStepSeconds =
+    longestPositiveSeconds > 0
+      ? clamp(longestPositiveSeconds / 20, PATH_STEP_MIN_SECONDS, PATH_STEP_MAX_SECONDS)
+      : PATH_STEP_MAX_SECONDS;
+
+  const chords: SolutionChord[] = [];
+  const limbPoints: LimbPoint[] = [];
+  const negatives: NegativePath[] = [];
+  event.chords.forEach((chord, i) => {
+    const t = chordTimes[i] as (typeof chordTimes)[number];
+    const velocity = sky.velocity(t.station, midTt(t));
+    const speed = Math.hypot(velocity.f, velocity.g);
+    if (chord.type === 'positive') {
+      const d = sky.point(t.station, t.a.ttSeconds);
+      const r = sky.point(t.station, t.b.ttSeconds);
+      chords.push({
+        station: chord.station,
+        type: 'positive',
+        points: [
+          { ...d, event: 'disappearance', sigmaKm: chord.disappearance.sigmaSeconds * speed },
+          { ...r, event: 'reappearance', sigmaKm: chord.reappearance.sigmaSeconds * speed },
+        ],
+        path: [],
+        velocityKmPerS: velocity,
+      });
+      limbPoints.push(
+        {
+          station: chord.station,
+          event: 'disappearance',
+          ...d,
+          sigmaSeconds: chord.disappearance.sigmaSeconds,
+          velocity,
+        },
+        {
+          station: chord.station,
+          event: 'reappearance',
+          ...r,
+          sigmaSeconds: chord.reappearance.sigmaSeconds,
+          velocity,
+        },
+      );
+      return;
+    }
+    const duration = t.b.ttSeconds - t.a.ttSeconds;
+    const steps = Math.min(PATH_MAX_POINTS - 1, Math.max(1, Math.ceil(duration / baseStepSeconds)));
+    const path: SkyPointKm[] = [];
+    for (let k = 0; k <= steps; k++) path.push(sky.point(t.station, t.a.ttSeconds + (duration * k) / steps));
+    chords.push({ station: chord.station, type: 'negative', points: [], path, velocityKmPerS: velocity });
+    negatives.push({ station: chord.station, pathKm: path });
+  });
+
+  const ringPoints = new Map<string, RingPoint[]>();
+  const ringDips = new Map<string, RingDip[]>();
+  const ringMids = new Map<string, number[]>();
+  event.ringEvents.forEach((dip, i) => {
+    const t = dipTimes[i] as (typeof dipTimes)[number];
+    const mid = midTt(t);
+    const point: RingPoint = {
+      station: dip.station,
+      ...sky.point(t.station, mid),
+      // σt = ½√(σstart² + σend²): the mid-time is the mean of two independent timings.
+      sigmaSeconds: 0.5 * Math.hypot(dip.start.sigmaSeconds, dip.end.sigmaSeconds),
+      velocity: sky.velocity(t.station, mid),
+    };
+    const list = ringPoints.get(dip.ring) ?? [];
+    list.push(point);
+    ringPoints.set(dip.ring, list);
+    const dips = ringDips.get(dip.ring) ?? [];
+    dips.push({
+      station: dip.station,
+      start: sky.point(t.station, t.a.ttSeconds),
+      end: sky.point(t.station, t.b.ttSeconds),
+    });
+    ringDips.set(dip.ring, dips);
+    const mids = ringMids.get(dip.ring) ?? [];
+    mids.push(mid);
+    ringMids.set(dip.ring, mids);
+  });
+  const ringReferences = new Map<string, { referenceTimeUtc: string; distanceKm: number }>();
+  for (const [ring, mids] of ringMids) {
+    const tt = mean(mids);
+    ringReferences.set(ring, {
+      referenceTimeUtc: ttSecondsToUtcIso(tt),
+      distanceKm: ephemeris.distanceKmAt(tt),
+    });
+  }
+
+  return {
+    basis,
+    referenceTimeUtc: ttSecondsToUtcIso(referenceTt),
+    distanceKm: ephemeris.distanceKmAt(referenceTt),
+    chords,
+    limbPoints,
+    negatives,
+    ringPoints,
+    ringDips,
+    ringReferences,
+  };
+}
