@@ -1,3 +1,4 @@
 export * from './types.js';
 export * from './dynamics/index.js';
 export * from './lightcurve/index.js';
+export * from './joint/index.js';
