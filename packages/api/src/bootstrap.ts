@@ -17,6 +17,7 @@ const BODY_LIMIT = '1mb';
 export function configureApp(app: NestExpressApplication, config: AppConfig): void {
   app.useLogger(app.get(Logger));
   app.disable('x-powered-by');
+  if (config.trustProxy !== null) app.set('trust proxy', config.trustProxy);
   const https = config.publicUrl.startsWith('https:');
   // Over plain http (the demo) HSTS and upgrade-insecure-requests would send the browser to an https port nobody serves.
   app.use(

@@ -43,6 +43,9 @@ const envSchema = z.object({
   LIMBUS_HOST: z.string().min(1).default('127.0.0.1'),
   LIMBUS_PUBLIC_URL: url(['http:', 'https:']).optional(),
   WEB_DIST_DIR: z.string().min(1).optional(),
+  // Express "trust proxy" value (e.g. "loopback" or a hop count) when a reverse proxy sets X-Forwarded-For;
+  // unset, the socket address is the client address that sign-in limits count.
+  LIMBUS_TRUST_PROXY: z.string().min(1).optional(),
   JWT_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
   LIMBUS_ADMIN_EMAIL: z.email().optional(),
   LIMBUS_ADMIN_PASSWORD: z.string().min(10, 'must be at least 10 characters').optional(),
@@ -78,6 +81,7 @@ export class AppConfig {
   /** Base of links in e-mails, without a trailing slash. */
   readonly publicUrl!: string;
   readonly webDistDir!: string;
+  readonly trustProxy!: string | number | null;
   readonly jwtSecret!: string;
   readonly initialAdmin!: { email: string; password: string } | null;
   readonly accessTokenTtlSeconds!: number;
@@ -141,6 +145,12 @@ export function loadConfig(env: NodeJS.ProcessEnv): AppConfig {
     host: e.LIMBUS_HOST,
     publicUrl: (e.LIMBUS_PUBLIC_URL ?? `http://127.0.0.1:${e.LIMBUS_PORT}`).replace(/\/+$/, ''),
     webDistDir: e.WEB_DIST_DIR ? path.resolve(e.WEB_DIST_DIR) : DEFAULT_WEB_DIST_DIR,
+    trustProxy:
+      e.LIMBUS_TRUST_PROXY === undefined
+        ? null
+        : /^\d+$/.test(e.LIMBUS_TRUST_PROXY)
+          ? Number(e.LIMBUS_TRUST_PROXY)
+          : e.LIMBUS_TRUST_PROXY,
     // A generated secret means every restart signs users out; acceptable only for the demo.
     jwtSecret: e.JWT_SECRET ?? randomBytes(48).toString('base64url'),
     initialAdmin:
