@@ -333,7 +333,7 @@ function linearisedCovariance(
   const k = free.length;
   const jac = jacobian(lsq, bestFree);
   const pIndex = free.indexOf(IX_P);
-  const dropP = pIndex >= 0 && free.includes(IX_EPS) && (best[IX_EPS] as number) < ROUND_OBLATENESS;
+  const dropP = pIndex >= 0 && (best[IX_EPS] as number) < ROUND_OBLATENESS;
   const kept = free.map((_, i) => i).filter((i) => !(dropP && i === pIndex));
   const alpha = new Matrix(kept.length, kept.length);
   kept.forEach((ci, r) =>

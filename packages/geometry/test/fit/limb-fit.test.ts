@@ -102,6 +102,26 @@ describe('fitLimb()', () => {
     expect(r.uncertainty.equatorialRadiusKm).toBeGreaterThan(0);
   });
 
+  it('fitLimb() on a round body keeps ε ≥ 0 and reports P as poorly known rather than failing', () => {
+    const round = { ...truth, oblateness: 0 };
+    const points = limbPoints({
+      truth: round,
+      velocity,
+      impactKm,
+      sigmaSeconds: 0.3,
+      noise: gaussian(mulberry32(2)),
+    });
+    const r = fitLimb(input({ points }));
+    expect(r.ellipse.oblateness).toBeGreaterThanOrEqual(0);
+    expectClose(r.ellipse.oblateness, 0, 3 * r.uncertainty.oblateness);
+    // An angle spread evenly over 180° has a standard deviation of 180°/√12 ≈ 52° (uniform distribution).
+    expect(r.uncertainty.positionAngleDeg).toBeGreaterThan(10);
+    expect(r.linearisedSigma.positionAngleDeg).toBeLessThanOrEqual(180 / Math.sqrt(12) + 1e-9);
+    const fixedRound = fitLimb(input({ points, fixed: { oblateness: 0 } }));
+    expectClose(fixedRound.linearisedSigma.positionAngleDeg, 180 / Math.sqrt(12), 1e-9);
+    expectClose(fixedRound.ellipse.equatorialRadiusKm, 520, 3 * fixedRound.uncertainty.equatorialRadiusKm);
+  });
+
   it('fitLimb() refuses fewer points than free parameters, naming the counts', () => {
     const points = noisyPoints(1).slice(0, 4);
     expectFails(() => fitLimb(input({ points })), 'chords', /fewer points \(4\) than free parameters \(5\)/);
