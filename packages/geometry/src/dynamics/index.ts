@@ -1,7 +1,18 @@
-export * from './constants.js';
-export * from './quantity.js';
-export * from './kepler.js';
-export * from './roche.js';
-export * from './resonances.js';
-export * from './hill.js';
+// Public API of the dynamics context. The first-order propagation helpers (quantity.ts) stay inside.
+export { G_SI, GM_SUN_SI, ROCHE_FLUID_COEFFICIENT, ROCHE_RIGID_COEFFICIENT } from './constants.js';
+export {
+  bulkDensityKgM3,
+  massFromOrbitKg,
+  orbitalPeriodSeconds,
+  semiMajorAxisKm,
+  sphereVolumeKm3,
+} from './kepler.js';
+export { rocheFluidKm, rocheLimitKm, rocheRigidKm } from './roche.js';
+export {
+  meanMotionRatios,
+  meanMotionResonanceKm,
+  spinOrbitResonanceKm,
+  type MeanMotionRatio,
+} from './resonances.js';
+export { hillRadiusKm } from './hill.js';
 export * from './context.js';
