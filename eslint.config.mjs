@@ -22,7 +22,8 @@ export default tseslint.config(
         {
           patterns: [
             {
-              group: ['../../*/**', '@/features/*'],
+              // Paths that climb out of src/features entirely (e.g. to another package's test helpers) are allowed.
+              group: ['../../*/**', '!../../../**', '../../../features/**', '@/features/*'],
               message: 'Features must not import other features; compose them in src/app.',
             },
           ],
