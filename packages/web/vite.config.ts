@@ -4,12 +4,20 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   plugins: [react()],
-  resolve: { alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) } },
+  resolve: {
+    alias: {
+      '@': fileURLToPath(new URL('./src', import.meta.url)),
+      // The geometry package exports only its edge types; the plots reuse its pure ellipse model from source
+      // so the drawn outline is the very one the fit uses.
+      '@limbus/geometry/ellipse': fileURLToPath(new URL('../geometry/src/fit/ellipse.ts', import.meta.url)),
+    },
+  },
   server: { proxy: { '/api': 'http://127.0.0.1:8080' } },
   build: { outDir: 'dist', sourcemap: true },
   test: {
     environment: 'jsdom',
     setupFiles: ['./vitest.setup.ts'],
     include: ['src/**/*.test.{ts,tsx}'],
+    benchmark: { include: ['bench/**/*.bench.{ts,tsx}'] },
   },
 });
