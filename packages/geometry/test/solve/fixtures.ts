@@ -122,3 +122,49 @@ export const STATIONS: StationInput[] = [
   { id: 'marrow-hill', latDeg: -22.95, lonDeg: -68.2, heightM: 2200 },
   { id: 'saltpan', latDeg: -27.1, lonDeg: -70.9, heightM: 350 },
 ];
+
+/**
+ * Times (UTC ms) in [fromMs, toMs] where `inside(fg)` changes sign along the station's independently
+ * computed sky track: 1 s scan, then bisection to 1 µs.
+ */
+export function crossings(
+  sc: Scenario,
+  station: StationInput,
+  fromMs: number,
+  toMs: number,
+  level: (p: { fKm: number; gKm: number }) => number,
+): number[] {
+  const at = (ms: number): number => level(expectedFG(sc, station, ms));
+  const out: number[] = [];
+  let prevMs = fromMs;
+  let prev = at(fromMs);
+  for (let ms = fromMs + 1000; ms <= toMs; ms += 1000) {
+    const cur = at(ms);
+    if (prev * cur < 0) {
+      let lo = prevMs;
+      let hi = ms;
+      while (hi - lo > 1e-3) {
+        const mid = (lo + hi) / 2;
+        if (at(mid) * prev < 0) hi = mid;
+        else lo = mid;
+      }
+      out.push((lo + hi) / 2);
+    }
+    prevMs = ms;
+    prev = cur;
+  }
+  return out;
+}
+
+/** Stations spread across the track, ≈ 60–100 km apart on the sky plane (invented sites); the last misses. */
+export const LIMB_STATIONS: StationInput[] = [
+  { id: 'quillfort', latDeg: -24.61, lonDeg: -70.4, heightM: 2400 },
+  { id: 'marrow-hill', latDeg: -23.7, lonDeg: -70.1, heightM: 2200 },
+  { id: 'saltpan', latDeg: -25.5, lonDeg: -70.6, heightM: 350 },
+  { id: 'brackenridge', latDeg: -22.9, lonDeg: -69.9, heightM: 1300 },
+  { id: 'old-lantern', latDeg: -26.4, lonDeg: -70.8, heightM: 90 },
+  { id: 'cinder-flat', latDeg: -22.1, lonDeg: -69.7, heightM: 1800 },
+  { id: 'farrow', latDeg: -27.6, lonDeg: -71.0, heightM: 40 },
+  // Far enough south to miss the body: a negative chord.
+  { id: 'windle-gap', latDeg: -31.5, lonDeg: -71.4, heightM: 600 },
+];
