@@ -100,7 +100,9 @@ const ephemerisRow = z.strictObject({
 const ephemeris = z
   .strictObject({
     timeScale: z.enum(['UTC', 'TT', 'TDB']),
-    rows: z.array(ephemerisRow).min(2, 'at least two rows are needed to interpolate'),
+    rows: z
+      .array(ephemerisRow)
+      .min(4, 'at least 4 rows are needed (the position is interpolated by a cubic spline)'),
   })
   .superRefine((eph, ctx) => {
     for (let i = 1; i < eph.rows.length; i++) {

@@ -220,11 +220,23 @@ describe('validateEventFile()', () => {
     const disorder = problemLines(
       withChange((doc) => {
         const rows = (doc.ephemeris as { rows: Json[] }).rows;
-        rows.push({ ...rows[1] });
+        rows.push({ ...rows[3] });
       }),
     );
     expect(disorder).toEqual([
-      'ephemeris.rows[2].time: rows must be in increasing time order (this row is not after the one before)',
+      'ephemeris.rows[4].time: rows must be in increasing time order (this row is not after the one before)',
+    ]);
+  });
+
+  it('validateEventFile() refuses an ephemeris of fewer than 4 rows', () => {
+    const lines = problemLines(
+      withChange((doc) => {
+        const rows = (doc.ephemeris as { rows: Json[] }).rows;
+        rows.splice(1, 1);
+      }),
+    );
+    expect(lines).toEqual([
+      'ephemeris.rows: at least 4 rows are needed (the position is interpolated by a cubic spline)',
     ]);
   });
 

@@ -10,6 +10,8 @@ export function validEventJson(): Record<string, unknown> {
       timeScale: 'TDB',
       rows: [
         { time: '2028-03-14T02:00:00', raDeg: 101.2491, decDeg: 18.5003, distanceKm: 5.9e9 },
+        { time: '2028-03-14T02:10:00', raDeg: 101.2497, decDeg: 18.5001, distanceKm: 5.9e9 },
+        { time: '2028-03-14T02:20:00', raDeg: 101.2503, decDeg: 18.4999, distanceKm: 5.9e9 },
         { time: '2028-03-14T02:30:00', raDeg: 101.2509, decDeg: 18.4997, distanceKm: 5.9e9 },
       ],
     },

@@ -13,6 +13,8 @@ function baseEvent(): Json {
       timeScale: 'TDB',
       rows: [
         { time: '2028-03-14T02:00:00', raDeg: 101.2491, decDeg: 18.5003, distanceKm: 5.9e9 },
+        { time: '2028-03-14T02:10:00', raDeg: 101.2497, decDeg: 18.5001, distanceKm: 5.9e9 },
+        { time: '2028-03-14T02:20:00', raDeg: 101.2503, decDeg: 18.4999, distanceKm: 5.9e9 },
         { time: '2028-03-14T02:30:00', raDeg: 101.2509, decDeg: 18.4997, distanceKm: 5.9e9 },
       ],
     },
@@ -61,9 +63,7 @@ describe('limbus solve (bad input)', () => {
 
   it('solve refuses text that is not JSON, with line and column', () => {
     const path = writeScratchFile('{\n  "format": "limbus-event/1",\n  "title" "x"\n}\n', 'broken.json');
-    expectRefused(runCli(['solve', path]), [
-      `${path}: not JSON at line 3, column 11: Unexpected string`,
-    ]);
+    expectRefused(runCli(['solve', path]), [`${path}: not JSON at line 3, column 11: Unexpected string`]);
   });
 
   it('solve refuses missing and wrong-typed fields, naming each path', () => {

@@ -4,11 +4,9 @@
 
 import { fitLimb } from '../fit/limb-fit.js';
 import { projectEvent } from '../project.js';
+import { DEFAULT_SEED } from '../solve.js';
 import { GeometryInputError, type EventInput, type SkyPointKm } from '../types.js';
 import type { JointEvent } from './joint-fit.js';
-
-/** Seed of the limb fit's sampler when the event names none; only the limb's best centre is used here. */
-const DEFAULT_LIMB_SEED = 1;
 
 /** The ring labels of an event, in the order their first dip appears. */
 export function ringLabels(event: EventInput): string[] {
@@ -40,7 +38,7 @@ export function jointEventFromInput(event: EventInput, ring: string, errorPath: 
       fixed: event.fit.limb.fixed,
       modelErrorKm: event.fit.limb.modelErrorKm,
       fitTimeOffsets: event.fit.limb.fitTimeOffsets,
-      seed: event.fit.seed ?? DEFAULT_LIMB_SEED,
+      seed: event.fit.seed ?? DEFAULT_SEED,
     });
     // Fitted clock offsets move the ring dips of the same stations too.
     if (limb.timeOffsets.length > 0)

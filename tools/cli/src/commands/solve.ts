@@ -3,21 +3,12 @@
 
 import { createHash } from 'node:crypto';
 
-import * as geometry from '@limbus/geometry';
-import type { EventInput, Solution } from '@limbus/geometry';
+import { solveEvent, type Solution } from '@limbus/geometry';
 import { validateEventFile, validateSolutionFile } from '@limbus/schema';
 
 import { InputProblems, readJsonFile, runCommand } from '../io.js';
 
 const USAGE = 'usage: limbus solve EVENT.json';
-
-type SolveEvent = (event: EventInput, opts: { inputSha256: string }) => Solution;
-
-function solver(): SolveEvent {
-  const candidate: unknown = Reflect.get(geometry, 'solveEvent');
-  if (typeof candidate !== 'function') throw new Error('this build of @limbus/geometry has no solveEvent');
-  return candidate as SolveEvent;
-}
 
 export function parseSolveArguments(args: string[]): string {
   const files = args.filter((a) => !a.startsWith('-'));
@@ -35,7 +26,7 @@ export async function solveEventFile(path: string): Promise<Solution> {
   const validation = validateEventFile(value);
   if (!validation.ok) throw new InputProblems(validation.problems);
   const inputSha256 = createHash('sha256').update(bytes).digest('hex');
-  const solution = solver()(validation.event, { inputSha256 });
+  const solution = solveEvent(validation.event, { inputSha256 });
   // A solution that does not meet its own file format is the engine's fault, not the user's: exit 1.
   const check = validateSolutionFile(solution);
   if (!check.ok)
