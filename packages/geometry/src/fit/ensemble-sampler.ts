@@ -10,9 +10,9 @@ export interface EnsembleOptions {
 }
 
 export interface EnsembleSamples {
-  /** Production samples, walker by walker within each step. */
-  samples: Float64Array[];
-  logProbabilities: number[];
+  /** Production samples, walker by walker within each step, dim values each, in one buffer. */
+  samples: Float64Array;
+  logProbabilities: Float64Array;
   acceptanceFraction: number;
 }
 
@@ -23,8 +23,10 @@ export function runEnsemble(options: EnsembleOptions): EnsembleSamples {
   const logP = walkers.map((x) => options.logProbability(x));
   const n = walkers.length;
   const dim = walkers[0]?.length ?? 0;
-  const samples: Float64Array[] = [];
-  const logProbabilities: number[] = [];
+  // One buffer rather than 10⁴ small arrays: allocation and collection were a third of a fit's time.
+  const samples = new Float64Array(options.steps * n * dim);
+  const logProbabilities = new Float64Array(options.steps * n);
+  let kept = 0;
   let accepted = 0;
   let proposed = 0;
   const trial = new Float64Array(dim);
@@ -47,8 +49,8 @@ export function runEnsemble(options: EnsembleOptions): EnsembleSamples {
         accepted++;
       }
       if (step >= options.burnIn) {
-        samples.push(new Float64Array(xk));
-        logProbabilities.push(logP[k] as number);
+        samples.set(xk, kept * dim);
+        logProbabilities[kept++] = logP[k] as number;
       }
     }
   }

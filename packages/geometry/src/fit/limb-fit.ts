@@ -13,6 +13,7 @@ import {
   chi2Of,
   ellipseOf,
   fitEllipse,
+  sampleMap,
 } from './ellipse-fit.js';
 import { equivalentRadiusKm } from './ellipse.js';
 
@@ -59,7 +60,7 @@ export function fitLimb(input: LimbFitInput): LimbFitResult {
   const ellipse = ellipseOf(best);
   const bestP = best[4] as number;
   const sigmaOf = (j: number): number =>
-    outcome.free.includes(j) ? centralSigma(outcome.samples.map((s) => s[j] as number)) : 0;
+    outcome.free.includes(j) ? centralSigma(sampleMap(outcome.samples, (v, o) => v[o + j] as number)) : 0;
   const free = outcome.free;
   const uncertainty = {
     centerFKm: sigmaOf(0),
@@ -67,11 +68,13 @@ export function fitLimb(input: LimbFitInput): LimbFitResult {
     equatorialRadiusKm: sigmaOf(2),
     oblateness: sigmaOf(3),
     positionAngleDeg: free.includes(4)
-      ? centralSigma(outcome.samples.map((s) => ((s[4] as number) - bestP) * RAD))
+      ? centralSigma(sampleMap(outcome.samples, (v, o) => ((v[o + 4] as number) - bestP) * RAD))
       : 0,
     equivalentRadiusKm:
       free.includes(2) || free.includes(3)
-        ? centralSigma(outcome.samples.map((s) => (s[2] as number) * Math.sqrt(1 - (s[3] as number))))
+        ? centralSigma(
+            sampleMap(outcome.samples, (v, o) => (v[o + 2] as number) * Math.sqrt(1 - (v[o + 3] as number))),
+          )
         : 0,
   };
   const lin = outcome.linearisedSigma;
@@ -92,7 +95,7 @@ export function fitLimb(input: LimbFitInput): LimbFitResult {
       seconds: best[SHAPE_PARAMETER_COUNT + i] as number,
       sigma: sigmaOf(SHAPE_PARAMETER_COUNT + i),
     })),
-    band: bandSamples(outcome).map(ellipseOf),
+    band: bandSamples(outcome.samples).map(ellipseOf),
     linearisedSigma: {
       centerFKm: lin[0] as number,
       centerGKm: lin[1] as number,

@@ -6,7 +6,7 @@
 import { DEG, RAD, asin, wrap } from '../math.js';
 import { GeometryInputError } from '../types.js';
 import type { SkyPointKm, VelocityKmPerS } from '../types.js';
-import { SHAPE_PARAMETER_COUNT, centralSigma, fitEllipse } from './ellipse-fit.js';
+import { SHAPE_PARAMETER_COUNT, centralSigma, fitEllipse, sampleMap } from './ellipse-fit.js';
 import { checkPoint } from './limb-fit.js';
 
 export interface RingPoint {
@@ -86,33 +86,21 @@ export function fitRing(input: RingFitInput): RingFitResult {
   }
   const best = outcome.best;
   const bestP = best[4] as number;
-  const openingOf = (s: Float64Array): number => asin(1 - (s[3] as number)) * RAD;
-  const spread = (values: number[], isFree: boolean): number => (isFree ? centralSigma(values) : 0);
+  const set = outcome.samples;
+  const spread = (fn: (v: Float64Array, o: number) => number): number => centralSigma(sampleMap(set, fn));
   const centreFree = input.center === null;
   return {
     centerFKm: best[0] as number,
     centerGKm: best[1] as number,
     radiusKm: best[2] as number,
-    openingAngleDeg: openingOf(best),
+    openingAngleDeg: asin(1 - (best[3] as number)) * RAD,
     positionAngleDeg: wrap(bestP * RAD, 180),
     uncertainty: {
-      radiusKm: spread(
-        outcome.samples.map((s) => s[2] as number),
-        true,
-      ),
-      openingAngleDeg: spread(outcome.samples.map(openingOf), true),
-      positionAngleDeg: spread(
-        outcome.samples.map((s) => ((s[4] as number) - bestP) * RAD),
-        true,
-      ),
-      centerFKm: spread(
-        outcome.samples.map((s) => s[0] as number),
-        centreFree,
-      ),
-      centerGKm: spread(
-        outcome.samples.map((s) => s[1] as number),
-        centreFree,
-      ),
+      radiusKm: spread((v, o) => v[o + 2] as number),
+      openingAngleDeg: spread((v, o) => asin(1 - (v[o + 3] as number)) * RAD),
+      positionAngleDeg: spread((v, o) => ((v[o + 4] as number) - bestP) * RAD),
+      centerFKm: centreFree ? spread((v, o) => v[o] as number) : 0,
+      centerGKm: centreFree ? spread((v, o) => v[o + 1] as number) : 0,
     },
     chi2: outcome.chi2,
     dof: outcome.dof,

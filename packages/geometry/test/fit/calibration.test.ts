@@ -1,4 +1,4 @@
-import { describe, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { fitLimb } from '../../src/fit/limb-fit.js';
 import { gaussian, mulberry32 } from '../../src/fit/prng.js';
 import { LIMB_PARAMETERS } from '../../src/types.js';
@@ -45,16 +45,11 @@ describe('fitLimb() calibration', () => {
       }
       reducedChi2 += r.chi2 / r.dof;
     }
-    const fractions = Object.fromEntries(
-      Object.entries(inside).map(([n, c]) => [n, (c as number) / REALISATIONS]),
-    );
-    console.log(
-      'coverage',
-      JSON.stringify(fractions),
-      'mean χ²/dof',
-      (reducedChi2 / REALISATIONS).toFixed(3),
-    );
-    for (const fraction of Object.values(fractions)) expectClose(fraction, 0.683, 0.07);
+    const names = [...LIMB_PARAMETERS, 'equivalentRadiusKm'];
+    const fractions = names.map((name) => (inside.get(name) ?? 0) / REALISATIONS);
+    console.log('coverage', names.join(' '), fractions.join(' '), 'mean χ²/dof', reducedChi2 / REALISATIONS);
+    expect(fractions).toHaveLength(6);
+    for (const fraction of fractions) expectClose(fraction, 0.683, 0.07);
     expectClose(reducedChi2 / REALISATIONS, 1, 0.1);
   });
 });

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ellipseFrame, pathClearance } from '../../src/fit/ellipse.js';
 import { type LimbFitInput, fitLimb, limbChi2, limbChi2Function } from '../../src/fit/limb-fit.js';
@@ -120,6 +121,45 @@ describe('fitLimb()', () => {
     const fixedRound = fitLimb(input({ points, fixed: { oblateness: 0 } }));
     expectClose(fixedRound.linearisedSigma.positionAngleDeg, 180 / Math.sqrt(12), 1e-9);
     expectClose(fixedRound.ellipse.equatorialRadiusKm, 520, 3 * fixedRound.uncertainty.equatorialRadiusKm);
+  });
+
+  it('fitLimb() never ends above the χ² of the true ellipse (no local minimum taken for the best fit)', () => {
+    fc.assert(
+      fc.property(
+        fc.record({
+          equatorialRadiusKm: fc.double({ min: 100, max: 1000, noNaN: true }),
+          oblateness: fc.double({ min: 0, max: 0.4, noNaN: true }),
+          positionAngleDeg: fc.double({ min: 0, max: 180, maxExcluded: true, noNaN: true }),
+          directionRad: fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }),
+          // Percent of the half-width across the track: 3 to 9 distinct chords, anywhere on the body.
+          impacts: fc.uniqueArray(fc.integer({ min: -95, max: 95 }), { minLength: 3, maxLength: 9 }),
+          noiseSeed: fc.integer({ min: 1, max: 2 ** 31 }),
+        }),
+        (c) => {
+          const body = { centerFKm: 0, centerGKm: 0, ...c };
+          const v = { f: 15 * Math.cos(c.directionRad), g: 15 * Math.sin(c.directionRad) };
+          const p = (c.positionAngleDeg * Math.PI) / 180;
+          const n = { f: -Math.sin(c.directionRad), g: Math.cos(c.directionRad) };
+          const b = c.equatorialRadiusKm * (1 - c.oblateness);
+          const halfWidthKm = Math.hypot(
+            c.equatorialRadiusKm * (n.f * Math.cos(p) - n.g * Math.sin(p)),
+            b * (n.f * Math.sin(p) + n.g * Math.cos(p)),
+          );
+          const impactKm = c.impacts.map((x) => (x / 100) * halfWidthKm);
+          const points = limbPoints({
+            truth: body,
+            velocity: v,
+            impactKm,
+            sigmaSeconds: 0.2,
+            noise: gaussian(mulberry32(c.noiseSeed)),
+          });
+          const fitInput = input({ points });
+          const r = fitLimb(fitInput);
+          expect(r.chi2).toBeLessThanOrEqual(limbChi2(body, fitInput) + 1e-6);
+        },
+      ),
+      { numRuns: 25, seed: 20261202 },
+    );
   });
 
   it('fitLimb() refuses fewer points than free parameters, naming the counts', () => {
