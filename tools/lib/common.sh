@@ -61,14 +61,11 @@ ensure_pnpm() {
   fi
 }
 
-# pnpm keeps a copy of the lockfile it installed from; when it matches, the install is current.
+# Cheap when nothing changed (pnpm skips resolution when the lockfile is current), so it runs
+# every time rather than guessing from timestamps.
 ensure_node_modules() {
-  if cmp -s "$LIMBUS_ROOT/pnpm-lock.yaml" "$LIMBUS_ROOT/node_modules/.pnpm/lock.yaml"; then
-    log "dependencies up to date"
-  else
-    log "pnpm install --frozen-lockfile"
-    (cd "$LIMBUS_ROOT" && pnpm install --frozen-lockfile) >&2
-  fi
+  log "pnpm install --frozen-lockfile"
+  (cd "$LIMBUS_ROOT" && pnpm install --frozen-lockfile) >&2
 }
 
 # random_secret FILE: creates FILE with a fresh secret once and prints its content ever after.

@@ -137,7 +137,7 @@ wait_ready() {
   local name="$1" logfile="$2" pid="$3" seconds="$4" i
   for ((i = 0; i < seconds * 10; i++)); do
     if grep -qE '^ready |"msg":"ready ' "$logfile" 2>/dev/null; then
-      log "$name: $(grep -m1 -oE 'ready [^"]*' "$logfile")"
+      log "$name: $(grep -m1 -E '^ready |"msg":"ready ' "$logfile")"
       return 0
     fi
     if ! _pid_alive "$pid"; then
