@@ -54,7 +54,7 @@ function required(name: string): string {
   const value = process.env[name];
   if (!value)
     throw new Error(
-      `e2e tests need ${name} (MariaDB and Redis are not faked); see packages/api/e2e/README.md`,
+      `e2e tests need ${name} (MariaDB and Redis are not faked: set DB_HOST, DB_PORT, DB_NAME, DB_USER, DB_PASSWORD, REDIS_URL)`,
     );
   return value;
 }
