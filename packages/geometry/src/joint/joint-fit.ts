@@ -60,6 +60,8 @@ export interface JointPoleFit {
 /** The other family is ruled out when its best χ² is larger by more than this (3σ for one parameter). */
 export const AMBIGUITY_DELTA_CHI2 = 9;
 
+/** Relative χ² difference below which the two families count as equally good. */
+const TIE_CHI2 = 1e-9;
 /** Opening angles and position angles (degrees, in the first event's sky plane) of the grid of starts. */
 const START_OPENING_DEG = [8, 25, 45, 65, 82];
 const START_POSITION_DEG = [10, 40, 70, 100, 130, 160];
@@ -289,7 +291,10 @@ export function fitJointPole(events: readonly JointEvent[]): JointPoleFit {
   const first = (events[0] as JointEvent).triad;
   const plus = fitFamily(events, layout, 1);
   const minus = fitFamily(events, layout, -1);
-  const [best, other] = plus.chi2 <= minus.chi2 ? [plus, minus] : [minus, plus];
+  // A single event gives both families the same χ² up to rounding; the B > 0 family then wins, as
+  // poles[0] of the single-event solution does, so that the answer does not hang on the last bit.
+  const tie = Math.abs(plus.chi2 - minus.chi2) <= TIE_CHI2 * (1 + Math.min(plus.chi2, minus.chi2));
+  const [best, other] = tie || plus.chi2 < minus.chi2 ? [plus, minus] : [minus, plus];
   const sigma = linearisedSigma(events, layout, best);
   const pole = reportedEnd(best.pole, first);
   return {

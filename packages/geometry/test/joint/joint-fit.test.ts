@@ -164,6 +164,8 @@ describe('fitJointPole()', () => {
     );
     expectClose(a.openingRad, -b.openingRad, 1e-7);
     expectClose(a.positionRad, b.positionRad, 1e-7);
+    // With the tie, the reported pole is the B > 0 one, as poles[0] of the single-event solution.
+    expect(fit.events[0]?.openingAngleDeg).toBeGreaterThan(0);
   });
 
   it('fitJointPole() refuses an event without crossings of the ring, naming it', () => {
