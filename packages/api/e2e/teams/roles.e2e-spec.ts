@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Team } from '../../src/teams/entities/team.entity';
 import type { TeamRole } from '../../src/teams/roles';
@@ -120,5 +121,61 @@ describe('team routes and role guards', () => {
     );
     expect(mine).toHaveLength(1);
     expect(mine[0]?.subject).toBe(`You are invited to ${team.name} on Limbus`);
+  });
+
+  // The matrix of docs/authorization.md, cell by cell ("anonymous" sends no token).
+  const who = [
+    'admin',
+    'coordinator',
+    'observer',
+    'modeller',
+    'reviewer',
+    'otherCoordinator',
+    'anonymous',
+  ] as const;
+  const matrix: Array<{ route: string; send: () => request.Test; expected: number[] }> = [
+    { route: 'GET /api/me', send: () => t.get('/api/me'), expected: [200, 200, 200, 200, 200, 200, 401] },
+    {
+      route: 'GET /api/teams',
+      send: () => t.get('/api/teams'),
+      expected: [200, 200, 200, 200, 200, 200, 401],
+    },
+    {
+      route: 'GET /api/teams/:teamId',
+      send: () => t.get(`/api/teams/${team.id}`),
+      expected: [200, 200, 200, 200, 200, 404, 401],
+    },
+    {
+      route: 'GET /api/teams/:teamId/members',
+      send: () => t.get(`/api/teams/${team.id}/members`),
+      expected: [200, 200, 200, 200, 200, 404, 401],
+    },
+    {
+      route: 'POST /api/teams/:teamId/invitations',
+      send: () =>
+        t.post(`/api/teams/${team.id}/invitations`).send({ email: uniqueEmail('cell'), role: 'observer' }),
+      expected: [201, 201, 403, 403, 403, 404, 401],
+    },
+    {
+      route: 'GET /api/admin/outbox',
+      send: () => t.get('/api/admin/outbox'),
+      expected: [200, 403, 403, 403, 403, 403, 401],
+    },
+    {
+      route: 'GET /api/health',
+      send: () => t.get('/api/health'),
+      expected: [200, 200, 200, 200, 200, 200, 200],
+    },
+  ];
+
+  it.each(matrix)('$route answers each role as docs/authorization.md says', async ({ send, expected }) => {
+    const actual: number[] = [];
+    for (const caller of who) {
+      const req = send();
+      actual.push(
+        (caller === 'anonymous' ? await req : await req.set('Authorization', bearer(caller))).status,
+      );
+    }
+    expect(actual).toEqual(expected);
   });
 });

@@ -1,12 +1,37 @@
 import { PasswordResetToken } from '../auth/entities/password-reset-token.entity';
 import { RefreshToken } from '../auth/entities/refresh-token.entity';
+import { AuditEntry } from '../audit/entities/audit-entry.entity';
+import { Chord } from '../chords/entities/chord.entity';
+import { RingEvent } from '../chords/entities/ring-event.entity';
+import { OccultationEvent } from '../events/entities/occultation-event.entity';
+import { FitRun } from '../fits/entities/fit-run.entity';
 import { Invitation } from '../invitations/entities/invitation.entity';
+import { Report } from '../reports/entities/report.entity';
+import { Review } from '../reviews/entities/review.entity';
+import { Station } from '../stations/entities/station.entity';
 import { Membership } from '../teams/entities/membership.entity';
 import { Team } from '../teams/entities/team.entity';
+import { Upload } from '../uploads/entities/upload.entity';
 import { User } from '../users/entities/user.entity';
 
 /**
  * Listed by hand: folder globs do not work once vitest or a bundler loads the code.
  * Feature modules added later append their entities here.
  */
-export const ENTITIES = [User, Team, Membership, Invitation, RefreshToken, PasswordResetToken];
+export const ENTITIES = [
+  User,
+  Team,
+  Membership,
+  Invitation,
+  RefreshToken,
+  PasswordResetToken,
+  OccultationEvent,
+  Station,
+  Upload,
+  Report,
+  Chord,
+  RingEvent,
+  FitRun,
+  Review,
+  AuditEntry,
+];
