@@ -47,7 +47,13 @@ export interface ProjectOptions {
   timeOffsetsSeconds?: Record<string, number>;
 }
 
-/** Negative chords are sampled at 1/20 of the longest positive chord, within these bounds (see method.md). */
+/**
+ * Negative chords are sampled every quarter of the longest positive chord's duration, within these bounds:
+ * every path across the body's middle half then has a sample inside it, and the fit's clearance test works
+ * on straight segments between samples, exact up to the path's curvature (sagitta ≤ 0.1 m at 5 s). See
+ * docs/method.md, "Sky plane".
+ */
+export const PATH_STEP_FRACTION_OF_LONGEST_CHORD = 0.25;
 export const PATH_STEP_MIN_SECONDS = 0.1;
 export const PATH_STEP_MAX_SECONDS = 5;
 export const PATH_MAX_POINTS = 5001;
@@ -174,7 +180,11 @@ export function projectEvent(event: EventInput, options: ProjectOptions = {}): P
   );
   const baseStepSeconds =
     longestPositiveSeconds > 0
-      ? clamp(longestPositiveSeconds / 20, PATH_STEP_MIN_SECONDS, PATH_STEP_MAX_SECONDS)
+      ? clamp(
+          longestPositiveSeconds * PATH_STEP_FRACTION_OF_LONGEST_CHORD,
+          PATH_STEP_MIN_SECONDS,
+          PATH_STEP_MAX_SECONDS,
+        )
       : PATH_STEP_MAX_SECONDS;
 
   const chords: SolutionChord[] = [];

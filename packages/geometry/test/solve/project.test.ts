@@ -95,7 +95,7 @@ describe('projectEvent()', () => {
     expectClose(Math.abs(shifted.limbPoints[0]!.fKm - unshifted.limbPoints[0]!.fKm), 0.75 * 21.6, 0.75);
   });
 
-  it('projectEvent() samples a negative chord from its start to its end, finer than 1/20 of the longest chord', () => {
+  it('projectEvent() samples a negative chord from its start to its end, every quarter of the longest chord, at most 5 s', () => {
     const negative: ChordInput = {
       station: b.id,
       type: 'negative',
@@ -111,8 +111,11 @@ describe('projectEvent()', () => {
     const last = expectedFG(sc, b, sc.centralMs + 60_000);
     expectClose(path[0]!.fKm, first.fKm, 0.005);
     expectClose(path[path.length - 1]!.gKm, last.gKm, 0.005);
-    // 40 s longest chord → 2 s step → 60 intervals over 120 s.
-    expect(path.length).toBe(61);
+    // 40 s longest chord → 10 s, capped at 5 s → 24 intervals over 120 s.
+    expect(path.length).toBe(25);
+    const short = projectEvent(withChords(sc, [positive(a.id, sc.centralMs, -4, 4), negative]));
+    // 8 s longest chord → 2 s step → 60 intervals.
+    expect(short.negatives[0]!.pathKm.length).toBe(61);
   });
 
   it('projectEvent() puts a ring dip at its mid-time with σt = ½√(σs² + σe²)', () => {
