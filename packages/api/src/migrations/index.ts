@@ -1,5 +1,6 @@
 import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261201235328 } from './Migration20261201235328_initial';
+import { Migration20261202000927 } from './Migration20261202000927_event_workspace';
 
 /**
  * Static list so the migrator works under vitest and from dist alike. To add one: build, run
@@ -8,4 +9,5 @@ import { Migration20261201235328 } from './Migration20261201235328_initial';
  */
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201235328_initial', class: Migration20261201235328 },
+  { name: 'Migration20261202000927_event_workspace', class: Migration20261202000927 },
 ];

@@ -1,0 +1,61 @@
+import { randomUUID } from 'node:crypto';
+import { Entity, Index, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
+import type { EphemerisRow, FitOptions, StarInput, TimeScale } from '@limbus/geometry';
+import { Team } from '../../teams/entities/team.entity';
+
+export const EVENT_STATES = ['active', 'deleted'] as const;
+export type EventState = (typeof EVENT_STATES)[number];
+
+/** Named apart from the DOM/Node global `Event`; the table is still `events`. */
+@Entity({ tableName: 'events' })
+@Index({ properties: ['team', 'state'] })
+export class OccultationEvent {
+  @PrimaryKey({ type: 'string', length: 36 })
+  id: string = randomUUID();
+
+  @ManyToOne({ entity: () => Team, deleteRule: 'cascade' })
+  team: Team;
+
+  @Property({ type: 'string', length: 300 })
+  title: string;
+
+  @Property({ type: 'json' })
+  star: StarInput;
+
+  @Property({ type: 'json' })
+  ephemeris: { timeScale: TimeScale; rows: EphemerisRow[] };
+
+  @Property({ type: 'json' })
+  earthRotation: { dut1Seconds: number };
+
+  /** The `fit` section of an imported event file; a fit request's options overlay it key by key. */
+  @Property({ type: 'json' })
+  fitDefaults: FitOptions;
+
+  @Property({ type: 'string', length: 16 })
+  state: EventState & Opt = 'active';
+
+  @Property({ type: 'datetime', nullable: true })
+  deletedAt: (Date & Opt) | null = null;
+
+  @Property({ type: 'string', length: 36, nullable: true })
+  createdById: (string & Opt) | null = null;
+
+  @Property({ type: 'datetime' })
+  createdAt: Date & Opt = new Date();
+
+  @Property({ type: 'datetime', onUpdate: () => new Date() })
+  updatedAt: Date & Opt = new Date();
+
+  constructor(
+    team: Team,
+    fields: Pick<OccultationEvent, 'title' | 'star' | 'ephemeris' | 'earthRotation' | 'fitDefaults'>,
+  ) {
+    this.team = team;
+    this.title = fields.title;
+    this.star = fields.star;
+    this.ephemeris = fields.ephemeris;
+    this.earthRotation = fields.earthRotation;
+    this.fitDefaults = fields.fitDefaults;
+  }
+}

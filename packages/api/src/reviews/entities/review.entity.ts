@@ -1,0 +1,35 @@
+import { randomUUID } from 'node:crypto';
+import { Entity, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
+import { FitRun } from '../../fits/entities/fit-run.entity';
+import { User } from '../../users/entities/user.entity';
+
+export const REVIEW_DECISIONS = ['approve', 'return'] as const;
+export type ReviewDecision = (typeof REVIEW_DECISIONS)[number];
+
+@Entity({ tableName: 'reviews' })
+export class Review {
+  @PrimaryKey({ type: 'string', length: 36 })
+  id: string = randomUUID();
+
+  @ManyToOne({ entity: () => FitRun, deleteRule: 'cascade' })
+  fit: FitRun;
+
+  @ManyToOne({ entity: () => User, deleteRule: 'cascade' })
+  reviewer: User;
+
+  @Property({ type: 'string', length: 16 })
+  decision: ReviewDecision;
+
+  @Property({ type: 'text' })
+  comment: string;
+
+  @Property({ type: 'datetime' })
+  createdAt: Date & Opt = new Date();
+
+  constructor(fit: FitRun, reviewer: User, decision: ReviewDecision, comment: string) {
+    this.fit = fit;
+    this.reviewer = reviewer;
+    this.decision = decision;
+    this.comment = comment;
+  }
+}

@@ -1,0 +1,61 @@
+import { randomUUID } from 'node:crypto';
+import { Entity, ManyToOne, Opt, PrimaryKey, Property, Unique } from '@mikro-orm/core';
+import { OccultationEvent } from '../../events/entities/occultation-event.entity';
+import { User } from '../../users/entities/user.entity';
+
+/** An observing site of one event; `code` is the station id the event file and chords use. */
+@Entity({ tableName: 'stations' })
+@Unique({ properties: ['event', 'code'] })
+export class Station {
+  @PrimaryKey({ type: 'string', length: 36 })
+  id: string = randomUUID();
+
+  @ManyToOne({ entity: () => OccultationEvent, deleteRule: 'cascade' })
+  event: OccultationEvent;
+
+  @Property({ type: 'string', length: 100 })
+  code: string;
+
+  @Property({ type: 'double' })
+  latDeg: number;
+
+  @Property({ type: 'double' })
+  lonDeg: number;
+
+  @Property({ type: 'double' })
+  heightM: number;
+
+  /** The invited observer who may report for this station. */
+  @ManyToOne({ entity: () => User, nullable: true, deleteRule: 'set null' })
+  observer: (User & Opt) | null = null;
+
+  @Property({ type: 'string', length: 200, nullable: true })
+  observerName: (string & Opt) | null = null;
+
+  @Property({ type: 'double', nullable: true })
+  apertureMm: (number & Opt) | null = null;
+
+  @Property({ type: 'string', length: 200, nullable: true })
+  camera: (string & Opt) | null = null;
+
+  @Property({ type: 'double', nullable: true })
+  exposureSeconds: (number & Opt) | null = null;
+
+  @Property({ type: 'string', length: 200, nullable: true })
+  timeSource: (string & Opt) | null = null;
+
+  /** Keeps the event file's station order through a round trip. */
+  @Property({ type: 'integer' })
+  position: number & Opt = 0;
+
+  constructor(
+    event: OccultationEvent,
+    fields: { code: string; latDeg: number; lonDeg: number; heightM: number },
+  ) {
+    this.event = event;
+    this.code = fields.code;
+    this.latDeg = fields.latDeg;
+    this.lonDeg = fields.lonDeg;
+    this.heightM = fields.heightM;
+  }
+}
