@@ -41,8 +41,9 @@ describe('sign-in in the browser', () => {
       await signIn(page, user.email, DEMO_PASSWORD);
       await page.waitForURL(`${baseUrl()}/events`);
       const banner = page.getByRole('banner');
-      await expect(banner.getByText(user.name, { exact: true }).isVisible()).resolves.toBe(true);
-      await expect(banner.getByText(user.roles, { exact: true }).isVisible()).resolves.toBe(true);
+      // waitFor fails the test on timeout: the header appears only once /api/me has answered.
+      await banner.getByText(user.name, { exact: true }).waitFor({ timeout: 10_000 });
+      await banner.getByText(user.roles, { exact: true }).waitFor({ timeout: 10_000 });
       await page.getByText('No events yet').or(page.getByRole('table')).first().waitFor();
       await session.screenshot(`events-${user.role}`);
       await page.getByRole('button', { name: 'Sign out' }).click();

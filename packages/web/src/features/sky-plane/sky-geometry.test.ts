@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { ellipseRadiusKm } from '@limbus/geometry/ellipse';
-import { bandEnvelope, errorBarKm, niceScaleLengthKm, rayToEllipseKm, ringEllipse } from './sky-geometry';
+import {
+  bandEnvelope,
+  errorBarKm,
+  niceScaleLengthKm,
+  outlineKm,
+  rayToEllipseKm,
+  ringEllipse,
+} from './sky-geometry';
+import { ringPlaneRadiusKm } from '../../../../geometry/src/fit/ring-fit';
 import { expectClose } from '../../../../geometry/test/expect-close';
 
 const DEG = Math.PI / 180;
@@ -27,6 +35,16 @@ describe('sky-geometry', () => {
     expect(ring.positionAngleDeg).toBe(40);
     expectClose(ringEllipse({ ...ring, radiusKm: 300, openingAngleDeg: -30 }).oblateness, 0.5, 1e-12);
     expectClose(ringEllipse({ ...ring, radiusKm: 300, openingAngleDeg: 90 }).oblateness, 0, 1e-12);
+  });
+
+  it('ringEllipse() outline lies at the ring radius when deprojected the way the ring fit does', () => {
+    // Cross-check of conventions (P of the semi-minor axis, b = R·|sin B|) against ringPlaneRadiusKm in
+    // geometry/src/fit/ring-fit.ts, which undoes the foreshortening independently.
+    const ring = { centerFKm: -7, centerGKm: 12, radiusKm: 310, openingAngleDeg: 35, positionAngleDeg: 122 };
+    for (const p of outlineKm(ringEllipse(ring), 24)) {
+      const r = ringPlaneRadiusKm(p, { fKm: -7, gKm: 12 }, ring.openingAngleDeg, ring.positionAngleDeg);
+      expectClose(r, 310, 1e-9);
+    }
   });
 
   it('rayToEllipseKm() from the centre equals the polar radius of the geometry package', () => {
