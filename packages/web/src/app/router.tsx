@@ -20,6 +20,11 @@ export const routes: RouteObject[] = [
       { index: true, element: <Navigate to={paths.events} replace /> },
       { path: paths.events, element: <EventsRoute /> },
       { path: paths.adminOutbox, element: <AdminOutboxRoute /> },
+      {
+        path: paths.plotsPreview,
+        // The preview pulls in D3 and the fixture; it loads only when visited.
+        lazy: () => import('./routes/plots-preview').then((m) => ({ Component: m.PlotsPreviewRoute })),
+      },
     ],
   },
   { path: '*', element: <NotFoundRoute /> },

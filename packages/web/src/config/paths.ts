@@ -6,4 +6,5 @@ export const paths = {
   invitation: (token: string) => `/invitations/${encodeURIComponent(token)}`,
   events: '/events',
   adminOutbox: '/admin/outbox',
+  plotsPreview: '/plots/preview',
 } as const;

@@ -7,11 +7,19 @@ import {
   TableHeaderCell,
   TableRow,
   Title3,
+  makeStyles,
+  tokens,
 } from '@fluentui/react-components';
 import { useEvents } from '../api/get-events';
 import { Loading, RequestFailed } from '@/components/request-state';
 
+// Fluent's text components are inline; the page reads top to bottom.
+const useStyles = makeStyles({
+  section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+});
+
 export function EventsList({ teamId, teamName }: { teamId: string | null; teamName: string | null }) {
+  const styles = useStyles();
   const events = useEvents();
   if (events.isPending) return <Loading label="Loading events…" />;
   if (events.isError)
@@ -19,7 +27,7 @@ export function EventsList({ teamId, teamName }: { teamId: string | null; teamNa
 
   const mine = teamId === null ? events.data : events.data.filter((event) => event.teamId === teamId);
   return (
-    <section aria-labelledby="events-heading">
+    <section className={styles.section} aria-labelledby="events-heading">
       <Title3 as="h2" id="events-heading">
         Events{teamName === null ? '' : ` of ${teamName}`}
       </Title3>

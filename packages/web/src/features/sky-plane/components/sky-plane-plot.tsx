@@ -341,6 +341,12 @@ export function SkyPlanePlot({
 
     const centreH = centreLayer.append('line').attr('class', 'centre-error-f');
     const centreV = centreLayer.append('line').attr('class', 'centre-error-g');
+    // A fixed-size mark, because a well-measured centre's error cross can be smaller than a pixel.
+    const centreMark = centreLayer
+      .append('circle')
+      .attr('class', 'centre-mark')
+      .attr('r', 3.5)
+      .attr('fill', '#ffffff');
 
     const compass = svg
       .append('g')
