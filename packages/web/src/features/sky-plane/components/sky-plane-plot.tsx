@@ -416,6 +416,7 @@ export function SkyPlanePlot({
           .attr('x2', x(f))
           .attr('y1', y(g - sg))
           .attr('y2', y(g + sg));
+        centreMark.attr('cx', x(f)).attr('cy', y(g));
       }
       ringPaths.attr('d', (d) => closed(d.outline));
       crossingMarks.attr('transform', (d) => `translate(${x(d.fKm)},${y(d.gKm)})`);
