@@ -202,3 +202,12 @@ stop_all() {
   LIMBUS_MARIADB_SOCKETS=()
   LIMBUS_MARIADB_PIDFILES=()
 }
+
+# mariadb_grant_prefix SOCKET PREFIX USER: lets USER create and drop any database named
+# PREFIX_<something>, for test suites that make one database per file (throwaway servers only).
+mariadb_grant_prefix() {
+  local socket="$1" prefix="$2" user="$3"
+  mariadb_sql "$socket" "
+    GRANT ALL PRIVILEGES ON \`${prefix}\\_%\`.* TO '$user'@'127.0.0.1';
+    GRANT ALL PRIVILEGES ON \`${prefix}\\_%\`.* TO '$user'@'localhost';"
+}

@@ -35,7 +35,6 @@ start_backing_services() {
   export MAIL_FROM="${MAIL_FROM:-Limbus <no-reply@limbus.invalid>}"
   export S3_ENDPOINT="http://127.0.0.1:$s3_port" S3_BUCKET="${S3_BUCKET:-limbus}" S3_REGION=us-east-1
   export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER S3_FORCE_PATH_STYLE=1
-  export LOG_LEVEL="${LOG_LEVEL:-info}"
 }
 
 # migrate_and_seed LOGDIR: both are idempotent, so they run on every start.
