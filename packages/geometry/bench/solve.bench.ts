@@ -77,7 +77,8 @@ function median(values: number[]): number {
 }
 
 function timeMs(runs: number, f: () => unknown): number {
-  f();
+  // Three warm-up runs: one leaves much of the fit unoptimised by the JIT.
+  for (let i = 0; i < 3; i++) f();
   const times: number[] = [];
   for (let i = 0; i < runs; i++) {
     const t0 = performance.now();
