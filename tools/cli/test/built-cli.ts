@@ -2,7 +2,7 @@
 // depends on first when their sources are newer than their dist.
 
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -27,15 +27,44 @@ function newestMtimeMs(dir: string): number {
   return newest;
 }
 
-/** Builds schema, geometry and cli when any of their src trees is newer than its dist tree. */
-export function buildCliIfStale(): void {
-  const stale = PACKAGES.some(
+function isStale(): boolean {
+  return PACKAGES.some(
     (pkg) => newestMtimeMs(join(REPO_ROOT, pkg, 'src')) > newestMtimeMs(join(REPO_ROOT, pkg, 'dist')),
   );
-  if (!stale) return;
-  const filters = ['@limbus/schema', '@limbus/geometry', '@limbus/cli'].flatMap((name) => ['--filter', name]);
-  const build = spawnSync('pnpm', [...filters, 'run', 'build'], { cwd: REPO_ROOT, encoding: 'utf8' });
-  if (build.status !== 0) throw new Error(`build failed:\n${build.stdout}\n${build.stderr}`);
+}
+
+const BUILD_LOCK = join(tmpdir(), 'limbus-cli-test-build.lock');
+const LOCK_WAIT_MS = 240_000;
+
+/**
+ * Builds schema, geometry and cli when any of their src trees is newer than its dist tree. Test files
+ * run in parallel workers, so the build is serialised by a lock directory (mkdir is atomic) and the
+ * staleness is checked again once the lock is held.
+ */
+export function buildCliIfStale(): void {
+  if (!isStale()) return;
+  const deadline = Date.now() + LOCK_WAIT_MS;
+  for (;;) {
+    try {
+      mkdirSync(BUILD_LOCK);
+      break;
+    } catch {
+      if (Date.now() > deadline)
+        throw new Error(`waited too long for ${BUILD_LOCK}; remove it if no build runs`);
+      Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 500);
+    }
+  }
+  try {
+    if (!isStale()) return;
+    const filters = ['@limbus/schema', '@limbus/geometry', '@limbus/cli'].flatMap((name) => [
+      '--filter',
+      name,
+    ]);
+    const build = spawnSync('pnpm', [...filters, 'run', 'build'], { cwd: REPO_ROOT, encoding: 'utf8' });
+    if (build.status !== 0) throw new Error(`build failed:\n${build.stdout}\n${build.stderr}`);
+  } finally {
+    rmSync(BUILD_LOCK, { recursive: true, force: true });
+  }
 }
 
 export interface CliResult {
