@@ -61,7 +61,11 @@ export function toErrorBody(exception: unknown): ErrorBody {
   }
   if (exception instanceof HttpException) {
     const statusCode = exception.getStatus();
-    const message = statusCode === 404 ? 'No such route' : messageOf(exception);
+    const message = messageOf(exception);
+    // Nest's router says "Cannot GET /api/x"; answer in our words without echoing the path.
+    if (statusCode === 404 && /^Cannot [A-Z]+ /.test(message)) {
+      return { statusCode, error: reasonPhrase(statusCode), message: 'No such route' };
+    }
     return { statusCode, error: reasonPhrase(statusCode), message };
   }
   if (isHttpLikeError(exception) && exception.status >= 400 && exception.status < 500) {

@@ -1,0 +1,67 @@
+import { BadRequestException, NotFoundException, PayloadTooLargeException } from '@nestjs/common';
+import { describe, expect, it } from 'vitest';
+import {
+  ConflictError,
+  ForbiddenError,
+  NotFoundError,
+  TooManyRequestsError,
+  ValidationError,
+} from './domain-errors';
+import { toErrorBody } from './http-error.filter';
+
+describe('toErrorBody', () => {
+  it('toErrorBody() maps each domain error to its status and reason phrase', () => {
+    expect(toErrorBody(new NotFoundError())).toEqual({
+      statusCode: 404,
+      error: 'Not Found',
+      message: 'Not found',
+    });
+    expect(toErrorBody(new ForbiddenError())).toEqual({
+      statusCode: 403,
+      error: 'Forbidden',
+      message: 'Your role does not allow this',
+    });
+    expect(toErrorBody(new ConflictError('Already there'))).toEqual({
+      statusCode: 409,
+      error: 'Conflict',
+      message: 'Already there',
+    });
+    expect(toErrorBody(new TooManyRequestsError(30)).statusCode).toBe(429);
+    expect(toErrorBody(new TooManyRequestsError(30)).error).toBe('Too Many Requests');
+  });
+
+  it('toErrorBody() keeps the field issues of a validation error', () => {
+    const body = toErrorBody(new ValidationError([{ path: 'stations.0.latDeg', message: 'too large' }]));
+    expect(body).toEqual({
+      statusCode: 400,
+      error: 'Bad Request',
+      message: 'Validation failed',
+      issues: [{ path: 'stations.0.latDeg', message: 'too large' }],
+    });
+  });
+
+  it('toErrorBody() words an unknown route without echoing it, but keeps other 404 messages', () => {
+    expect(toErrorBody(new NotFoundException('Cannot GET /api/<script>')).message).toBe('No such route');
+    expect(toErrorBody(new NotFoundException('Event not found')).message).toBe('Event not found');
+  });
+
+  it('toErrorBody() passes on HttpException and body-parser statuses', () => {
+    expect(toErrorBody(new BadRequestException('bad')).message).toBe('bad');
+    expect(toErrorBody(new PayloadTooLargeException()).statusCode).toBe(413);
+    const parserError = Object.assign(new SyntaxError('Unexpected end of JSON input'), { status: 400 });
+    expect(toErrorBody(parserError)).toEqual({
+      statusCode: 400,
+      error: 'Bad Request',
+      message: 'Unexpected end of JSON input',
+    });
+  });
+
+  it('toErrorBody() hides the message and stack of an unexpected error', () => {
+    const body = toErrorBody(new Error('connect ECONNREFUSED 10.0.0.5:3306 password=hunter2'));
+    expect(body).toEqual({
+      statusCode: 500,
+      error: 'Internal Server Error',
+      message: 'Internal server error',
+    });
+  });
+});
