@@ -7,12 +7,14 @@ import { GeometryInputError } from '../types.js';
 import { straightEdgeIntensity } from './fresnel.js';
 
 /**
- * Beyond this many Fresnel scales (plus the star's radius) from the edge the profile is taken as the
- * geometric step. The residual there is below ~√2/(π·40) ≈ 1 % for a monochromatic point source and far
- * smaller once band and disc average the fringes; the table is exact inside.
+ * The profile is first computed out to this many Fresnel scales (plus the star's radius) from the edge,
+ * then trimmed to where it departs from the geometric step by more than STEP_TOLERANCE. Beyond 40 scales a
+ * monochromatic point source still has fringes of ~√2/(π·40) ≈ 1 %; band and disc average them away.
  */
 const TABLE_HALF_WIDTH_FRESNEL_SCALES = 40;
 const GRID_STEPS_PER_FRESNEL_SCALE = 40;
+/** Largest departure from the step that the trimmed table leaves out (a fraction of the star's light). */
+const STEP_TOLERANCE = 3e-4;
 const MAX_GRID_POINTS = 400_000;
 const MAX_BAND_SLICES = 400;
 /** Cells across the star's diameter when averaging over the disc. */
@@ -75,9 +77,10 @@ export function buildEdgeProfile(options: EdgeProfileOptions): EdgeProfile {
   const minScaleKm = Math.min(...scalesKm);
   const maxScaleKm = Math.max(...scalesKm);
   const radiusKm = starDiameterKm / 2;
-  const halfWidthKm = TABLE_HALF_WIDTH_FRESNEL_SCALES * maxScaleKm + radiusKm;
-  const stepKm = Math.max(minScaleKm / GRID_STEPS_PER_FRESNEL_SCALE, (2 * halfWidthKm) / MAX_GRID_POINTS);
-  const count = Math.ceil((2 * halfWidthKm) / stepKm) + 1;
+  const reachKm = TABLE_HALF_WIDTH_FRESNEL_SCALES * maxScaleKm + radiusKm;
+  const stepKm = Math.max(minScaleKm / GRID_STEPS_PER_FRESNEL_SCALE, (2 * reachKm) / MAX_GRID_POINTS);
+  // Odd, so that x = 0 is a node and the table can be trimmed symmetrically.
+  const count = 2 * Math.ceil(reachKm / stepKm) + 1;
   const tableHalfWidthKm = ((count - 1) * stepKm) / 2;
 
   const band = new Float64Array(count);
@@ -93,16 +96,34 @@ export function buildEdgeProfile(options: EdgeProfileOptions): EdgeProfile {
     values: band,
     cumulative: cumulate(band, stepKm),
   };
-  const values = radiusKm > 0 ? averageOverDisc(bandTable, radiusKm) : band;
+  const full = radiusKm > 0 ? averageOverDisc(bandTable, radiusKm) : band;
+  const values = trimToStep(full);
+  const halfWidthKm = ((values.length - 1) * stepKm) / 2;
   return {
     fresnelScaleKm: fresnelScaleKm(wavelengthUm, distanceKm),
     starDiameterKm,
     bandSlices,
-    halfWidthKm: tableHalfWidthKm,
+    halfWidthKm,
     stepKm,
     values,
     cumulative: cumulate(values, stepKm),
   };
+}
+
+/**
+ * Narrows the table symmetrically to where the profile still departs from the geometric step by more
+ * than STEP_TOLERANCE, so the fit evaluates fewer samples near each edge. Band and disc average the lit
+ * side's fringes away within a few Fresnel scales; the slowest part is the shadow tail, ≈ 1/(2π²u²).
+ */
+function trimToStep(values: Float64Array): Float64Array {
+  const centre = (values.length - 1) / 2;
+  let reach = 1;
+  for (let j = 0; j < values.length; j++) {
+    const step = j < centre ? 0 : 1;
+    if (Math.abs((values[j] ?? 0) - step) > STEP_TOLERANCE) reach = Math.max(reach, Math.abs(j - centre));
+  }
+  const keep = Math.min(centre, Math.ceil(reach) + 2);
+  return values.slice(centre - keep, centre + keep + 1);
 }
 
 type Table = Pick<EdgeProfile, 'halfWidthKm' | 'stepKm' | 'values' | 'cumulative'>;

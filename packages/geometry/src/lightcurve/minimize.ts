@@ -115,6 +115,8 @@ export function minimizeAlternating(
 /**
  * Distance from the minimum x* at which the profile g rises to g(x*) + 1 in the direction `direction`
  * (+1 or −1). Stops at `limit` (the data's end) and returns the distance to it if g never rises that far.
+ * Beyond the first crossing it scans `lookFurther` more for a further stretch below g(x*) + 1 and, if it
+ * finds one, returns the outer crossing of that.
  */
 export function profileHalfWidth(
   g: (x: number) => number,
@@ -124,6 +126,7 @@ export function profileHalfWidth(
   firstStep: number,
   limit: number,
   tolerance: number,
+  lookFurther = 0,
 ): number {
   const target = gStar + 1;
   const maxDistance = Math.abs(limit - xStar);
@@ -135,10 +138,68 @@ export function profileHalfWidth(
     step = Math.min(2 * step, maxDistance);
   }
   let outside = step;
-  while (outside - inside > tolerance) {
-    const mid = (inside + outside) / 2;
-    if (g(xStar + direction * mid) < target) inside = mid;
-    else outside = mid;
+  const bisect = (): void => {
+    while (outside - inside > tolerance) {
+      const mid = (inside + outside) / 2;
+      if (g(xStar + direction * mid) < target) inside = mid;
+      else outside = mid;
+    }
+  };
+  bisect();
+  // A fringe or a dead gap between exposures can make χ² dip below the target again further out; the
+  // half-width is that of the whole region below it, so look on for another lobe.
+  if (lookFurther > 0) {
+    const scanStep = Math.max(lookFurther / 32, tolerance);
+    let last = outside;
+    for (let d = outside + scanStep; d <= Math.min(maxDistance, outside + lookFurther); d += scanStep) {
+      if (g(xStar + direction * d) < target) {
+        last = d;
+      } else if (last > outside) {
+        break;
+      }
+    }
+    if (last > outside) {
+      inside = last;
+      outside = Math.min(maxDistance, last + scanStep);
+      if (g(xStar + direction * outside) < target) return outside;
+      bisect();
+    }
   }
   return (inside + outside) / 2;
+}
+
+/**
+ * Two rounds of a three-point parabola around a warm start, keeping the lowest point evaluated. For a
+ * minimum already known to lie within a few steps of the start; where the stencil is not convex the
+ * round keeps its best node.
+ */
+export function parabolicMinimum(
+  f: (x: number) => number,
+  start: number,
+  step: number,
+  bounds: { lo: number; hi: number },
+): Minimum1d {
+  const clampX = (x: number): number => Math.min(bounds.hi, Math.max(bounds.lo, x));
+  const x0Start = clampX(start);
+  let best: Minimum1d = { x: x0Start, fx: f(x0Start) };
+  let h = step;
+  for (let round = 0; round < 2; round++) {
+    const x0 = best.x;
+    const f0 = best.fx;
+    const xm = x0 - h;
+    const xp = x0 + h;
+    if (xm < bounds.lo || xp > bounds.hi) break;
+    const fm = f(xm);
+    const fp = f(xp);
+    const curvature = fm + fp - 2 * f0;
+    if (fm < best.fx) best = { x: xm, fx: fm };
+    if (fp < best.fx) best = { x: xp, fx: fp };
+    if (curvature > 0) {
+      const vertex = clampX(x0 + (h * (fm - fp)) / (2 * curvature));
+      const fv = f(vertex);
+      if (fv < best.fx) best = { x: vertex, fx: fv };
+    }
+    h /= 4;
+  }
+  return best;
 }

@@ -9,7 +9,7 @@
 import { GeometryInputError } from '../types.js';
 import { strongestResidualBox, strongestStep } from './box-search.js';
 import type { EdgeProfile } from './edge-profile.js';
-import { minimizeAlternating, profileHalfWidth, scanThenRefine } from './minimize.js';
+import { minimizeAlternating, parabolicMinimum, profileHalfWidth } from './minimize.js';
 import { WellModel, weightedSeries, type WeightedSeries } from './well-model.js';
 
 /** Detection threshold of the main event and of secondary dips, in standard errors of the box mean. */
@@ -161,6 +161,7 @@ function fitEdgePair(
   spanSeconds: number,
   bounds: { lo: number; hi: number },
   firstStepSeconds: number,
+  lookFurtherSeconds: number,
 ): EdgePairFit {
   const best = minimizeAlternating(chi2, t1Start, t2Start, {
     span: spanSeconds,
@@ -169,35 +170,30 @@ function fitEdgePair(
   });
   // The inner minimisation may find a slightly lower χ² than the outer one did; the lowest seen is the minimum.
   let chi2Min = best.fxy;
-  const innerSpan = Math.max(spanSeconds / 2, 4 * firstStepSeconds);
+  // The other time barely moves as one is profiled (it is coupled only through the levels, or through
+  // the dip's depth), so a warm-started parabolic step on a small stencil re-minimises it.
+  let warm2 = best.y;
+  let warm1 = best.x;
   const profile1 = (t1: number): number => {
-    const m = scanThenRefine(
-      (t2) => chi2(t1, t2),
-      Math.max(bounds.lo, best.y - innerSpan),
-      Math.min(bounds.hi, best.y + innerSpan),
-      10,
-      TIME_TOLERANCE_SECONDS,
-    );
+    const m = parabolicMinimum((t2) => chi2(t1, t2), warm2, firstStepSeconds, bounds);
+    warm2 = m.x;
     chi2Min = Math.min(chi2Min, m.fx);
     return m.fx;
   };
   const profile2 = (t2: number): number => {
-    const m = scanThenRefine(
-      (t1) => chi2(t1, t2),
-      Math.max(bounds.lo, best.x - innerSpan),
-      Math.min(bounds.hi, best.x + innerSpan),
-      10,
-      TIME_TOLERANCE_SECONDS,
-    );
+    const m = parabolicMinimum((t1) => chi2(t1, t2), warm1, firstStepSeconds, bounds);
+    warm1 = m.x;
     chi2Min = Math.min(chi2Min, m.fx);
     return m.fx;
   };
   profile1(best.x);
   profile2(best.y);
-  const tol = Math.max(TIME_TOLERANCE_SECONDS, firstStepSeconds * 1e-4);
+  const tol = Math.max(TIME_TOLERANCE_SECONDS, firstStepSeconds * 1e-3);
   const halfWidths = (g: (t: number) => number, t: number): number => {
-    const up = profileHalfWidth(g, t, chi2Min, 1, firstStepSeconds, bounds.hi, tol);
-    const down = profileHalfWidth(g, t, chi2Min, -1, firstStepSeconds, bounds.lo, tol);
+    warm1 = best.x;
+    warm2 = best.y;
+    const up = profileHalfWidth(g, t, chi2Min, 1, firstStepSeconds, bounds.hi, tol, lookFurtherSeconds);
+    const down = profileHalfWidth(g, t, chi2Min, -1, firstStepSeconds, bounds.lo, tol, lookFurtherSeconds);
     return (up + down) / 2;
   };
   return {
@@ -306,7 +302,7 @@ export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit 
     t1Start = first.x;
     t2Start = first.y;
   }
-  const edges = fitEdgePair(chi2Of(series), t1Start, t2Start, span, bounds, firstStep);
+  const edges = fitEdgePair(chi2Of(series), t1Start, t2Start, span, bounds, firstStep, span / 2);
   const levels = solveLevels(model.sums(edges.t1, edges.t2, series, 0, n), series.wyyTotal, input.bottom);
   const modelFlux = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -512,7 +508,7 @@ function fitDip(
   const chi2 = (t1: number, t2: number): number => depthOf(t1, t2).chi2;
   const bounds = { lo: t[lo] ?? 0, hi: t[Math.min(n, hi) - 1] ?? 0 };
   const span = Math.max(cadence, smoothSeconds, (end - start) / 4);
-  const fit = fitEdgePair(chi2, start, end, span, bounds, Math.max(cadence / 20, 1e-5));
+  const fit = fitEdgePair(chi2, start, end, span, bounds, Math.max(cadence / 20, 1e-5), span / 2);
   const { c } = depthOf(fit.t1, fit.t2);
   const opacity = c / starFlux;
   const durationSeconds = fit.t2 - fit.t1;
