@@ -59,6 +59,14 @@ describe('errors and the OpenAPI document', () => {
     const loginBody =
       response.body.paths['/api/auth/login'].post.requestBody.content['application/json'].schema;
     expect(loginBody.required).toEqual(['email', 'password']);
+    const loginAnswer =
+      response.body.paths['/api/auth/login'].post.responses['200'].content['application/json'].schema;
+    expect(loginAnswer.properties.user.properties.teams.items.properties.roles.items.enum).toEqual([
+      'coordinator',
+      'observer',
+      'modeller',
+      'reviewer',
+    ]);
     await t.get('/api/docs').expect(200).expect('Content-Type', /html/);
   });
 

@@ -1,5 +1,6 @@
 import { Body, Controller, HttpCode, Post, Req, Res } from '@nestjs/common';
-import { ApiBody, ApiTags } from '@nestjs/swagger';
+import { ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { SessionViewSchema } from '../teams/dto/team.views';
 import type { Request, Response } from 'express';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { AppConfig } from '../config/app-config';
@@ -32,6 +33,10 @@ export class AuthController {
 
   @Post('login')
   @HttpCode(200)
+  @ApiOkResponse({
+    schema: openApiSchema(SessionViewSchema),
+    description: 'Also sets the limbus_refresh cookie',
+  })
   @ApiBody({ schema: openApiSchema(LoginSchema) })
   async login(
     @Body(new ZodValidationPipe(LoginSchema)) body: LoginDto,
@@ -43,6 +48,10 @@ export class AuthController {
 
   @Post('refresh')
   @HttpCode(200)
+  @ApiOkResponse({
+    schema: openApiSchema(SessionViewSchema),
+    description: 'Rotates the limbus_refresh cookie',
+  })
   async refresh(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<SessionView> {
     return this.answer(res, await this.auth.refresh(readRefreshCookie(req)));
   }

@@ -1,5 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, Post, Res } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { SessionViewSchema } from '../teams/dto/team.views';
 import type { Response } from 'express';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
 import { Public } from '../auth/public.decorator';
@@ -45,6 +46,10 @@ export class InvitationsController {
   @Public()
   @HttpCode(200)
   @ApiBody({ schema: openApiSchema(AcceptInvitationSchema) })
+  @ApiOkResponse({
+    schema: openApiSchema(SessionViewSchema),
+    description: 'Also sets the limbus_refresh cookie',
+  })
   async accept(
     @Param('token') token: string,
     @Body(new ZodValidationPipe(AcceptInvitationSchema)) body: AcceptInvitationDto,
