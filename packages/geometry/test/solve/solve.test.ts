@@ -8,7 +8,7 @@ import { solveEvent } from '../../src/solve.js';
 import type { ChordInput, EventInput, RingEventInput } from '../../src/types.js';
 import { ENGINE_VERSION } from '../../src/version.js';
 import { expectClose } from '../expect-close.js';
-import { LIMB_STATIONS, crossings, isoUtc, scenario } from './fixtures.js';
+import { LIMB_STATIONS, crossings, isoUtc, scenario, type Scenario } from './fixtures.js';
 
 const CENTRAL = '2028-03-14T02:10:00.000Z';
 const HASH = 'e3b0c44298fc1c149afbf4c8996fb92427ae41e4649b934ca495991b7852b855';
@@ -46,6 +46,43 @@ function limbEvent(offsets: Record<string, number> = {}): { event: EventInput; d
     };
   });
   return { event: { ...sc.event, chords }, distanceKm: sc.distanceKm };
+}
+
+/** Invented ring: R = 1500 km, width 12 km, B = 28°, pole P = 35°, centred 30 km west and 12 km north. */
+const RING = { fKm: -30, gKm: 12, radiusKm: 1500, widthKm: 12, bDeg: 28, pDeg: 35 };
+
+/** Dips of a ring on the first five stations' independently computed tracks: edge crossings to 1 µs. */
+function ringDips(sc: Scenario, ring: typeof RING): RingEventInput[] {
+  const radius = (p: { fKm: number; gKm: number }): number => {
+    const df = p.fKm - ring.fKm;
+    const dg = p.gKm - ring.gKm;
+    const pRad = ring.pDeg * DEG;
+    const u = df * Math.cos(pRad) - dg * Math.sin(pRad);
+    const w = (df * Math.sin(pRad) + dg * Math.cos(pRad)) / Math.sin(ring.bDeg * DEG);
+    return Math.hypot(u, w);
+  };
+  const ringEvents: RingEventInput[] = [];
+  for (const station of LIMB_STATIONS.slice(0, 5)) {
+    const from = sc.centralMs - 150_000;
+    const to = sc.centralMs + 150_000;
+    const outer = crossings(sc, station, from, to, (p) => radius(p) - (ring.radiusKm + ring.widthKm / 2));
+    const inner = crossings(sc, station, from, to, (p) => radius(p) - (ring.radiusKm - ring.widthKm / 2));
+    if (outer.length !== 2 || inner.length !== 2)
+      throw new Error(`${station.id} does not cross the ring twice`);
+    // Ingress dip: outer edge then inner edge; egress dip: inner then outer.
+    for (const [start, end] of [
+      [outer[0]!, inner[0]!],
+      [inner[1]!, outer[1]!],
+    ] as const) {
+      ringEvents.push({
+        station: station.id,
+        ring: 'alpha',
+        start: { time: isoUtc(start), sigmaSeconds: 0.01 },
+        end: { time: isoUtc(end), sigmaSeconds: 0.01 },
+      });
+    }
+  }
+  return ringEvents;
 }
 
 describe('solveEvent()', () => {
@@ -117,38 +154,8 @@ describe('solveEvent()', () => {
 
   it('solveEvent() solves a ring-only event with a free centre, both poles and radial widths', () => {
     const sc = scenario(LIMB_STATIONS, CENTRAL);
-    // Invented ring: R = 1500 km, width 12 km, opening angle B = 28°, pole position angle P = 35°,
-    // centred 30 km west and 12 km north of the ephemeris position.
-    const ring = { fKm: -30, gKm: 12, radiusKm: 1500, widthKm: 12, bDeg: 28, pDeg: 35 };
-    const radius = (p: { fKm: number; gKm: number }): number => {
-      const df = p.fKm - ring.fKm;
-      const dg = p.gKm - ring.gKm;
-      const pRad = ring.pDeg * DEG;
-      const u = df * Math.cos(pRad) - dg * Math.sin(pRad);
-      const w = (df * Math.sin(pRad) + dg * Math.cos(pRad)) / Math.sin(ring.bDeg * DEG);
-      return Math.hypot(u, w);
-    };
-    const ringEvents: RingEventInput[] = [];
-    for (const station of LIMB_STATIONS.slice(0, 5)) {
-      const from = sc.centralMs - 150_000;
-      const to = sc.centralMs + 150_000;
-      const outer = crossings(sc, station, from, to, (p) => radius(p) - (ring.radiusKm + ring.widthKm / 2));
-      const inner = crossings(sc, station, from, to, (p) => radius(p) - (ring.radiusKm - ring.widthKm / 2));
-      expect(outer.length).toBe(2);
-      expect(inner.length).toBe(2);
-      // Ingress dip: outer edge then inner edge; egress dip: inner then outer.
-      for (const [start, end] of [
-        [outer[0]!, inner[0]!],
-        [inner[1]!, outer[1]!],
-      ] as const) {
-        ringEvents.push({
-          station: station.id,
-          ring: 'alpha',
-          start: { time: isoUtc(start), sigmaSeconds: 0.01 },
-          end: { time: isoUtc(end), sigmaSeconds: 0.01 },
-        });
-      }
-    }
+    const ring = RING;
+    const ringEvents = ringDips(sc, ring);
     const solution = solveEvent({ ...sc.event, ringEvents }, { inputSha256: HASH });
     expect(solution.limb).toBeNull();
     const r = solution.rings[0]!;
@@ -170,6 +177,25 @@ describe('solveEvent()', () => {
     const astro = solution.astrometry!;
     expectClose(astro.raOffsetCosDecMas, (r.centerFKm / sc.distanceKm) * MAS_PER_RAD, 1e-3);
     expect(solution.rings).toHaveLength(1);
+  });
+
+  it('solveEvent() fixes the ring centre at the limb centre with centerFrom "limb" and frees it with "free"', () => {
+    const { event } = limbEvent();
+    const sc = scenario(LIMB_STATIONS, CENTRAL);
+    // The ring is concentric with the limb here, so both settings must find the limb's centre.
+    const ringEvents = ringDips(sc, { ...RING, fKm: TRUE_CENTER.fKm, gKm: TRUE_CENTER.gKm });
+    const fixed = solveEvent({ ...event, ringEvents }, { inputSha256: HASH });
+    expect(fixed.rings[0]!.centerFKm).toBe(fixed.limb!.centerFKm);
+    expect(fixed.rings[0]!.centerGKm).toBe(fixed.limb!.centerGKm);
+    const free = solveEvent(
+      { ...event, ringEvents, fit: { ...event.fit, ring: { centerFrom: 'free' } } },
+      { inputSha256: HASH },
+    );
+    expect(free.rings[0]!.centerFKm).not.toBe(free.limb!.centerFKm);
+    expectClose(free.rings[0]!.centerFKm, TRUE_CENTER.fKm, 0.5);
+    expectClose(free.rings[0]!.radiusKm, RING.radiusKm, 0.5);
+    // With a limb, astrometry comes from the limb, not the ring.
+    expect(free.astrometry!.raOffsetCosDecMas).toBe(fixed.astrometry!.raOffsetCosDecMas);
   });
 
   it('solveEvent() returns no limb, rings or astrometry for an event with only negative chords', () => {
