@@ -2,12 +2,14 @@ import { DynamicModule, Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { LoggerModule } from 'nestjs-pino';
 import { AdminModule } from './admin/admin.module';
+import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
 import { HttpErrorFilter } from './common/http-error.filter';
 import { AppConfig } from './config/app-config';
 import { ConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
+import { EventsModule } from './events/events.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
@@ -51,6 +53,8 @@ export class AppModule {
         StorageModule,
         HealthModule,
         AdminModule,
+        EventsModule,
+        AuditModule,
       ],
       providers: [
         // Order matters: authentication first, then roles read the authenticated user.

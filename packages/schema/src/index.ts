@@ -14,3 +14,4 @@ export {
 export { formatPath, type Problem } from './problems.js';
 export { parseUtcTime, parseZonelessTime } from './iso-time.js';
 export * from './context-input.js';
+export * from './api.js';

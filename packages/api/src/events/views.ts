@@ -1,0 +1,86 @@
+import type { TimedMark } from '@limbus/geometry';
+import type { Chord, ChordSource } from '../chords/entities/chord.entity';
+import type { RingEvent } from '../chords/entities/ring-event.entity';
+import type { Station } from '../stations/entities/station.entity';
+
+export interface StationView {
+  id: string;
+  code: string;
+  latDeg: number;
+  lonDeg: number;
+  heightM: number;
+  observerId: string | null;
+  observerName: string | null;
+  apertureMm: number | null;
+  camera: string | null;
+  exposureSeconds: number | null;
+  timeSource: string | null;
+}
+
+export function stationView(s: Station): StationView {
+  return {
+    id: s.id,
+    code: s.code,
+    latDeg: s.latDeg,
+    lonDeg: s.lonDeg,
+    heightM: s.heightM,
+    observerId: s.observer?.id ?? null,
+    observerName: s.observerName,
+    apertureMm: s.apertureMm,
+    camera: s.camera,
+    exposureSeconds: s.exposureSeconds,
+    timeSource: s.timeSource,
+  };
+}
+
+export interface ChordView {
+  id: string;
+  station: string;
+  stationId: string;
+  type: 'positive' | 'negative';
+  disappearance: TimedMark | null;
+  reappearance: TimedMark | null;
+  start: string | null;
+  end: string | null;
+  timeOffsetSeconds: number;
+  source: ChordSource;
+  reportId: string | null;
+}
+
+export function chordView(c: Chord): ChordView {
+  return {
+    id: c.id,
+    station: c.station.code,
+    stationId: c.station.id,
+    type: c.type,
+    disappearance: c.disappearance,
+    reappearance: c.reappearance,
+    start: c.startUtc,
+    end: c.endUtc,
+    timeOffsetSeconds: c.timeOffsetSeconds,
+    source: c.source,
+    reportId: c.report?.id ?? null,
+  };
+}
+
+export interface RingEventView {
+  id: string;
+  station: string;
+  stationId: string;
+  ring: string;
+  start: TimedMark;
+  end: TimedMark;
+  reportId: string | null;
+}
+
+export function ringEventView(r: RingEvent): RingEventView {
+  return {
+    id: r.id,
+    station: r.station.code,
+    stationId: r.station.id,
+    ring: r.ring,
+    start: r.start,
+    end: r.end,
+    reportId: r.report?.id ?? null,
+  };
+}
