@@ -10,6 +10,11 @@ export default defineConfig({
       // The geometry package exports only its edge types; the plots reuse its pure ellipse model from source
       // so the drawn outline is the very one the fit uses.
       '@limbus/geometry/ellipse': fileURLToPath(new URL('../geometry/src/fit/ellipse.ts', import.meta.url)),
+      // The client checks received solutions with the schema's own definition, without the package index
+      // (which would pull geometry's runtime into the bundle).
+      '@limbus/schema/solution-file': fileURLToPath(
+        new URL('../schema/src/solution-file.ts', import.meta.url),
+      ),
     },
   },
   server: { proxy: { '/api': 'http://127.0.0.1:8080' } },

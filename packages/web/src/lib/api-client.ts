@@ -14,6 +14,8 @@ export class ApiError extends Error {
     readonly status: number,
     message: string,
     readonly issues: ApiIssue[] = [],
+    /** The parsed error body as sent, for endpoints whose problems are not `{ path, message }` (CSV rows). */
+    readonly body: unknown = null,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -39,8 +41,14 @@ export function hasAccessToken(): boolean {
   return accessToken !== null;
 }
 
+/** For EventSource, which cannot send headers: the server reads the token from the query string. */
+export function currentAccessToken(): string | null {
+  return accessToken;
+}
+
 export interface RequestOptions<T> {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  /** JSON, or FormData for uploads (the browser then sets the multipart boundary itself). */
   body?: unknown;
   /** Validates the response body; omit for responses without one (204). */
   schema?: z.ZodType<T>;
@@ -62,9 +70,15 @@ async function toApiError(response: Response): Promise<ApiError> {
       response.status,
       message ?? `Request failed (${response.status})`,
       parsed.data.issues ?? [],
+      body,
     );
   }
-  return new ApiError(response.status, `Request failed (${response.status} ${response.statusText})`.trim());
+  return new ApiError(
+    response.status,
+    `Request failed (${response.status} ${response.statusText})`.trim(),
+    [],
+    body,
+  );
 }
 
 function send(
@@ -74,12 +88,13 @@ function send(
   signal: AbortSignal | undefined,
 ): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  const isForm = body instanceof FormData;
+  if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (accessToken !== null) headers.Authorization = `Bearer ${accessToken}`;
   return fetch(path, {
     method,
     headers,
-    body: body === undefined ? undefined : JSON.stringify(body),
+    body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
     credentials: 'same-origin',
     signal,
   });
