@@ -103,3 +103,52 @@ export async function signIn(page: Page, email: string, password: string): Promi
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
 }
+
+/** Signs in over HTTP (not through the page) and returns the access token, for setting up a test. */
+export async function apiToken(email: string, password: string): Promise<string> {
+  const response = await fetch(`${baseUrl()}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
+  if (!response.ok)
+    throw new Error(`sign-in of ${email} failed: ${response.status} ${await response.text()}`);
+  const body = (await response.json()) as { accessToken: string };
+  return body.accessToken;
+}
+
+export async function apiJson<T>(
+  token: string,
+  path: string,
+  init: { method?: string; body?: unknown } = {},
+): Promise<T> {
+  const response = await fetch(`${baseUrl()}${path}`, {
+    method: init.method ?? 'GET',
+    headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
+    body: init.body === undefined ? undefined : JSON.stringify(init.body),
+  });
+  if (!response.ok)
+    throw new Error(`${init.method ?? 'GET'} ${path} failed: ${response.status} ${await response.text()}`);
+  return (await response.json()) as T;
+}
+
+/**
+ * The newest link to a client route (e.g. "/invitations/") in an e-mail to the address, read through the
+ * admin outbox. Mail goes out through the queue, so it polls for a while.
+ */
+export async function linkFromOutbox(adminToken: string, to: string, routePrefix: string): Promise<string> {
+  const pattern = new RegExp(`https?://[^\\s"'<>]*${routePrefix.replace(/\//g, '\\/')}[^\\s"'<>]+`);
+  for (let attempt = 0; attempt < 40; attempt++) {
+    const messages = await apiJson<Array<{ to: string[]; text?: string | null; html?: string | null }>>(
+      adminToken,
+      '/api/admin/outbox',
+    );
+    for (const message of [...messages].reverse()) {
+      if (!message.to.includes(to)) continue;
+      const found = pattern.exec(`${message.text ?? ''} ${message.html ?? ''}`);
+      if (found !== null) return found[0];
+    }
+    await new Promise((resolve) => setTimeout(resolve, 250));
+  }
+  throw new Error(`no e-mail to ${to} with a ${routePrefix} link reached the outbox`);
+}

@@ -8,8 +8,10 @@ export const sessionResponseSchema = z.object({ accessToken: z.string().min(1) }
 
 export function startSession(queryClient: QueryClient, accessToken: string): void {
   setAccessToken(accessToken);
-  // Everything cached so far belongs to the previous (or no) user.
-  queryClient.removeQueries();
+  // Everything cached so far belongs to the previous (or no) user. Queries the current page still
+  // observes (the invitation being accepted) are left: removing them would make the page fetch them
+  // again, and an accepted invitation no longer exists. The page is about to be left anyway.
+  queryClient.removeQueries({ predicate: (query) => query.getObserversCount() === 0 });
 }
 
 export function endSession(queryClient: QueryClient): void {

@@ -1,0 +1,189 @@
+import {
+  Badge,
+  Body1,
+  makeStyles,
+  MessageBar,
+  MessageBarBody,
+  MessageBarTitle,
+  Subtitle2,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  tokens,
+} from '@fluentui/react-components';
+import type { Solution } from '@limbus/geometry';
+import { LIMB_PARAMETERS, type LimbParameterKey } from '../api/submit-fit';
+
+const useStyles = makeStyles({
+  result: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+  number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end', whiteSpace: 'nowrap' },
+});
+
+// Decimals by unit: km to 0.1 m would claim more than any occultation measures.
+const DECIMALS: Record<LimbParameterKey, number> = {
+  centerFKm: 2,
+  centerGKm: 2,
+  equatorialRadiusKm: 2,
+  oblateness: 4,
+  positionAngleDeg: 2,
+};
+
+function withSigma(value: number, sigma: number, decimals: number): string {
+  return `${value.toFixed(decimals)} ± ${sigma.toFixed(decimals)}`;
+}
+
+/** A fit's numbers, each with its 1-σ, and what was fixed or assumed to get them. */
+export function FitResult({ solution, options }: { solution: Solution; options: Record<string, unknown> | undefined }) {
+  const styles = useStyles();
+  const limb = solution.limb;
+  const fixed = fixedOf(options);
+  const cautions = cautionsOf(solution, fixed, options);
+  return (
+    <div className={styles.result}>
+      {limb === null ? (
+        <Body1 as="p">This fit has no limb (no positive chords).</Body1>
+      ) : (
+        <>
+          <Table aria-label="Limb parameters" size="small">
+            <TableHeader>
+              <TableRow>
+                <TableHeaderCell>Parameter</TableHeaderCell>
+                <TableHeaderCell>Value ± 1σ</TableHeaderCell>
+                <TableHeaderCell>Unit</TableHeaderCell>
+                <TableHeaderCell>Status</TableHeaderCell>
+              </TableRow>
+            </TableHeader>
+            <TableBody>
+              {LIMB_PARAMETERS.map((p) => (
+                <TableRow key={p.key}>
+                  <TableCell>{p.label}</TableCell>
+                  <TableCell className={styles.number}>
+                    {p.key in fixed ? limb[p.key].toFixed(DECIMALS[p.key]) : withSigma(limb[p.key], limb.uncertainty[p.key], DECIMALS[p.key])}
+                  </TableCell>
+                  <TableCell>{p.unit === '' ? '—' : p.unit}</TableCell>
+                  <TableCell>{p.key in fixed ? 'fixed' : 'fitted'}</TableCell>
+                </TableRow>
+              ))}
+              <TableRow>
+                <TableCell>Equivalent radius</TableCell>
+                <TableCell className={styles.number}>
+                  {withSigma(limb.equivalentRadiusKm, limb.uncertainty.equivalentRadiusKm, 2)}
+                </TableCell>
+                <TableCell>km</TableCell>
+                <TableCell>derived</TableCell>
+              </TableRow>
+              {limb.timeOffsets.map((t) => (
+                <TableRow key={t.station}>
+                  <TableCell>Clock offset, {t.station}</TableCell>
+                  <TableCell className={styles.number}>{withSigma(t.seconds, t.sigma, 3)}</TableCell>
+                  <TableCell>s</TableCell>
+                  <TableCell>fitted</TableCell>
+                </TableRow>
+              ))}
+            </TableBody>
+          </Table>
+          <Body1 as="p">
+            χ² = {limb.chi2.toFixed(2)} for {limb.dof} degrees of freedom
+            {limb.dof > 0 ? ` (χ²/dof = ${(limb.chi2 / limb.dof).toFixed(2)})` : ''}.{' '}
+            <Badge appearance={limb.negativeChordsClear ? 'outline' : 'filled'} color={limb.negativeChordsClear ? 'success' : 'danger'}>
+              {limb.negativeChordsClear ? 'every negative chord is clear of the limb' : 'a negative chord crosses the limb'}
+            </Badge>
+          </Body1>
+        </>
+      )}
+      {solution.rings.map((ring) => (
+        <section key={ring.ring} aria-label={`Ring ${ring.ring}`}>
+          <Subtitle2 as="h4">Ring {ring.ring}</Subtitle2>
+          <Body1 as="p">
+            Radius {withSigma(ring.radiusKm, ring.uncertainty.radiusKm, 1)} km, opening angle{' '}
+            {withSigma(ring.openingAngleDeg, ring.uncertainty.openingAngleDeg, 2)}°, position angle{' '}
+            {withSigma(ring.positionAngleDeg, ring.uncertainty.positionAngleDeg, 2)}°; χ² {ring.chi2.toFixed(2)} for {ring.dof}{' '}
+            dof.
+          </Body1>
+          <Table aria-label={`Pole solutions of ring ${ring.ring}`} size="small">
+            <TableHeader>
+              <TableRow>
+                <TableHeaderCell>Pole</TableHeaderCell>
+                <TableHeaderCell>RA (°)</TableHeaderCell>
+                <TableHeaderCell>Dec (°)</TableHeaderCell>
+              </TableRow>
+            </TableHeader>
+            <TableBody>
+              {ring.poles.map((pole, i) => (
+                <TableRow key={i}>
+                  <TableCell>{i === 0 ? 'First' : 'Second'} solution</TableCell>
+                  <TableCell className={styles.number}>{pole.raDeg.toFixed(2)}</TableCell>
+                  <TableCell className={styles.number}>{pole.decDeg.toFixed(2)}</TableCell>
+                </TableRow>
+              ))}
+            </TableBody>
+          </Table>
+        </section>
+      ))}
+      {solution.astrometry === null ? null : (
+        <Body1 as="p" aria-label="Astrometric offset">
+          Astrometric offset at {solution.astrometry.referenceTimeUtc}: Δα cos δ ={' '}
+          {withSigma(solution.astrometry.raOffsetCosDecMas, solution.astrometry.uncertainty.raOffsetCosDecMas, 2)} mas, Δδ ={' '}
+          {withSigma(solution.astrometry.decOffsetMas, solution.astrometry.uncertainty.decOffsetMas, 2)} mas.
+        </Body1>
+      )}
+      <MessageBar intent="warning" layout="multiline">
+        <MessageBarBody>
+          <MessageBarTitle>Cautions</MessageBarTitle>
+          <ul aria-label="Cautions">
+            {cautions.map((c) => (
+              <li key={c}>{c}</li>
+            ))}
+          </ul>
+        </MessageBarBody>
+      </MessageBar>
+      <Body1 as="p">
+        Engine {solution.engine.version}, seed {solution.engine.seed}, input {solution.engine.inputSha256.slice(0, 12)}…
+      </Body1>
+    </div>
+  );
+}
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+function fixedOf(options: Record<string, unknown> | undefined): Record<string, number> {
+  const limb = isRecord(options?.limb) ? options.limb : {};
+  const fixed = isRecord(limb.fixed) ? limb.fixed : {};
+  return Object.fromEntries(Object.entries(fixed).filter((e): e is [string, number] => typeof e[1] === 'number'));
+}
+
+/** What a reader must know before quoting the numbers: every fixed value and assumption, stated plainly. */
+export function cautionsOf(
+  solution: Solution,
+  fixed: Record<string, number>,
+  options: Record<string, unknown> | undefined,
+): string[] {
+  const cautions: string[] = [];
+  for (const p of LIMB_PARAMETERS)
+    if (p.key in fixed) cautions.push(`${p.label} was fixed at ${fixed[p.key]}${p.unit === '' ? '' : ` ${p.unit}`}, not fitted; its 1σ is not meaningful.`);
+  const limb = solution.limb;
+  if (limb !== null) {
+    const positives = solution.chords.filter((c) => c.type === 'positive').length;
+    if (limb.dof <= 0) cautions.push(`No degrees of freedom are left (${positives} positive chords); the 1σ values rest on the sigmas alone.`);
+    if (!limb.negativeChordsClear) cautions.push('A negative chord crosses the fitted limb: the solution contradicts an observation.');
+    if (limb.dof > 0 && limb.chi2 / limb.dof > 3)
+      cautions.push('χ²/dof is above 3: the timings scatter more than their sigmas allow (clock errors or topography?).');
+    if (limb.timeOffsets.length > 0)
+      cautions.push(`Clock offsets were fitted for ${limb.timeOffsets.map((t) => t.station).join(', ')}; those chords fix the shape only.`);
+  }
+  const limbOptions = isRecord(options?.limb) ? options.limb : {};
+  if (typeof limbOptions.modelErrorKm === 'number' && limbOptions.modelErrorKm > 0)
+    cautions.push(`A model error of ${limbOptions.modelErrorKm} km was added to every endpoint.`);
+  const ring = isRecord(options?.ring) ? options.ring : {};
+  if (solution.rings.length > 0 && ring.centerFrom !== 'free')
+    cautions.push('Ring centres were taken from the limb centre (assumed concentric).');
+  if (solution.rings.length > 0)
+    cautions.push('Each ring gives two pole solutions; the occultation alone cannot tell them apart.');
+  if (cautions.length === 0) cautions.push('Nothing was fixed; the ellipse model assumes a smooth limb.');
+  return cautions;
+}
