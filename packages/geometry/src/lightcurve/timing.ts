@@ -17,6 +17,9 @@ export const DEFAULT_DETECTION_SIGMA = 6;
 /** Longest secondary dip searched for. */
 export const MAX_DIP_SECONDS = 30;
 const MAX_DIPS = 20;
+const MAX_REFITS = 4;
+/** Relative change of the residual noise scale below which the refits stop. */
+const NOISE_SETTLED = 0.002;
 const TIME_TOLERANCE_SECONDS = 1e-7;
 
 export interface TimingInput {
@@ -225,7 +228,8 @@ export interface MainEventFit {
 interface Start {
   t1: number;
   t2: number;
-  noiseSigmaFlux: number;
+  /** Null when fluxErr gives the weights. */
+  noiseSigmaFlux: number | null;
 }
 
 /**
@@ -280,12 +284,15 @@ export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit 
   }
 
   for (let i = 0; i < n; i++) {
-    const e = input.fluxErr?.[i] ?? restart?.noiseSigmaFlux;
+    const e = input.fluxErr?.[i] ?? restart?.noiseSigmaFlux ?? undefined;
     weights[i] = e === undefined ? 1 : 1 / (e * e);
   }
   let series = weightedSeries(flux, weights);
+  // A well whose reappearance precedes its disappearance is no well at all: one level for everything.
   const chi2Of = (s: WeightedSeries) => (t1: number, t2: number) =>
-    solveLevels(model.sums(t1, t2, s, 0, n), s.wyyTotal, input.bottom).chi2;
+    t2 > t1
+      ? solveLevels(model.sums(t1, t2, s, 0, n), s.wyyTotal, input.bottom).chi2
+      : s.wyyTotal - ((s.wy[n] ?? 0) * (s.wy[n] ?? 0)) / (s.w[n] ?? 1);
 
   let noiseSigmaFlux: number | null = restart?.noiseSigmaFlux ?? null;
   if (input.fluxErr === undefined && restart === undefined) {
@@ -331,19 +338,33 @@ export function fitTiming(input: TimingInput): TimingResult {
   let dips = searchDips(main);
   const n = input.timesSeconds.length;
   const parameters = input.bottom === 'free' ? 4 : 3;
-  if (input.fluxErr === undefined && dips.length > 0) {
-    // Dips inflate the main fit's residual scatter; take the noise from the residuals of the full model
-    // and fit again with it, so that neither the times' nor the dips' sigmas carry the dips' own light.
+  // The dips pulled the baseline level down and (without fluxErr) inflated the residual scatter: fit the
+  // main well again to the light with the dips' deficit restored, with the noise of the full model's
+  // residuals, then the dips again on top of it, until the noise scale settles.
+  for (let pass = 0; pass < MAX_REFITS && dips.length > 0; pass++) {
     const full = fullModel(main, dips);
+    const corrected = new Float64Array(n);
     let rss = 0;
-    for (let i = 0; i < n; i++) rss += ((input.flux[i] ?? 0) - (full[i] ?? 0)) ** 2;
-    const noiseSigmaFlux = Math.sqrt(rss / (n - parameters - 3 * dips.length));
-    const refit = fitMainEvent(input, { t1: main.edges.t1, t2: main.edges.t2, noiseSigmaFlux });
-    if (refit !== null) {
-      refit.eventSignificance = main.eventSignificance;
-      main = refit;
-      dips = searchDips(main, dips);
+    for (let i = 0; i < n; i++) {
+      const y = input.flux[i] ?? 0;
+      corrected[i] = y + (main.modelFlux[i] ?? 0) - (full[i] ?? 0);
+      rss += (y - (full[i] ?? 0)) ** 2;
     }
+    const noiseSigmaFlux =
+      input.fluxErr === undefined ? Math.sqrt(rss / (n - parameters - 3 * dips.length)) : null;
+    const previousNoise = main.noiseSigmaFlux;
+    const refit = fitMainEvent(
+      { ...input, flux: corrected },
+      { t1: main.edges.t1, t2: main.edges.t2, noiseSigmaFlux },
+    );
+    if (refit === null) break;
+    refit.input = input;
+    refit.eventSignificance = main.eventSignificance;
+    main = refit;
+    dips = searchDips(main, dips);
+    // With fluxErr the weights never change, so one refit of the levels is enough.
+    if (noiseSigmaFlux === null) break;
+    if (previousNoise !== null && Math.abs(noiseSigmaFlux / previousNoise - 1) < NOISE_SETTLED) break;
   }
   const { levels, edges } = main;
   const modelFlux = fullModel(main, dips);
@@ -498,6 +519,7 @@ function fitDip(
   const hi = model.lowerBound(end + reach);
   if (hi - lo < 3) return null;
   const depthOf = (t1: number, t2: number): { c: number; chi2: number } => {
+    if (!(t2 > t1)) return { c: 0, chi2: 0 };
     const s = model.sums(t1, t2, residuals, lo, hi);
     const sJJ = s.sw - 2 * s.swI + s.swII;
     const srJ = s.swy - s.swyI;

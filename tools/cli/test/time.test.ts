@@ -1,0 +1,290 @@
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+
+import {
+  evenTimes,
+  gaussianSource,
+  syntheticFlux,
+  type SyntheticSetup,
+} from '../../../packages/geometry/test/lightcurve/synthetic.js';
+import { formatUtc, parseUtc, run, type TimingOutput } from '../src/commands/time.js';
+
+// Light curves of an invented event: station "Kestrel Ridge" watching an invented body occult an invented
+// star, written by the geometry package's independent synthetic generator (direct integration of the
+// straight-edge diffraction integral), so the CLI is checked end to end against the same truth.
+
+const setup: SyntheticSetup = {
+  distanceKm: 6e9,
+  wavelengthUm: 0.65,
+  bandwidthUm: 0.3,
+  starDiameterKm: 0.6,
+  speedKmPerS: 6,
+  exposureSeconds: 0.08,
+  bandSlices: 40,
+  discStrips: 16,
+  exposureSteps: 12,
+};
+const ORIGIN = '2031-05-20T03:14:00';
+const CADENCE = 0.1;
+const truth = { disappearanceSeconds: 12.5371, reappearanceSeconds: 19.0829 };
+const dipTruth = { startSeconds: 5.2, endSeconds: 6.0, opacity: 0.5 };
+const FLAGS = [
+  '--speed-km-s',
+  '6',
+  '--distance-km',
+  '6e9',
+  '--exposure-s',
+  '0.08',
+  '--star-diameter-km',
+  '0.6',
+];
+
+function isoAt(seconds: number): string {
+  const origin = parseUtc(`${ORIGIN}Z`);
+  if (typeof origin === 'string') throw new Error(origin);
+  return formatUtc(origin, seconds);
+}
+
+const dir = mkdtempSync(join(tmpdir(), 'limbus-time-'));
+let fileCount = 0;
+function writeCsv(text: string): string {
+  const path = join(dir, `lc-${fileCount++}.csv`);
+  writeFileSync(path, text);
+  return path;
+}
+
+function lightCurveCsv(
+  options: { withErr?: boolean; event?: boolean; dip?: boolean; count?: number } = {},
+): string {
+  const times = evenTimes(0, CADENCE, options.count ?? 300);
+  const clean =
+    options.event === false
+      ? times.map(() => 1000)
+      : syntheticFlux(setup, {
+          timesSeconds: times,
+          ...truth,
+          baselineFlux: 1000,
+          bottomFlux: 80,
+          ...(options.dip === false ? {} : { dips: [dipTruth] }),
+        });
+  const gauss = gaussianSource(3);
+  const lines = [options.withErr ? 'time,flux,fluxErr' : 'time,flux'];
+  times.forEach((t, i) => {
+    const flux = ((clean[i] ?? 0) + 30 * gauss()).toFixed(3);
+    lines.push(options.withErr ? `${isoAt(t)},${flux},30` : `${isoAt(t)},${flux}`);
+  });
+  return lines.join('\n') + '\n';
+}
+
+function seconds(iso: string): number {
+  const a = parseUtc(iso);
+  const b = parseUtc(`${ORIGIN}Z`);
+  if (typeof a === 'string' || typeof b === 'string') throw new Error('bad time');
+  return a.unixSeconds - b.unixSeconds + (a.fractionSeconds - b.fractionSeconds);
+}
+
+let stdout = '';
+let stderr = '';
+beforeEach(() => {
+  stdout = '';
+  stderr = '';
+  vi.spyOn(process.stdout, 'write').mockImplementation((chunk: string | Uint8Array) => {
+    stdout += String(chunk);
+    return true;
+  });
+  vi.spyOn(process.stderr, 'write').mockImplementation((chunk: string | Uint8Array) => {
+    stderr += String(chunk);
+    return true;
+  });
+});
+afterEach(() => {
+  vi.restoreAllMocks();
+});
+
+const mainCsv = lightCurveCsv();
+
+describe('limbus time', () => {
+  it('run() prints limbus-timing/1 with the times, levels, scales and the ring dip', async () => {
+    expect(await run([writeCsv(mainCsv), ...FLAGS])).toBe(0);
+    expect(stderr).toBe('');
+    const out = JSON.parse(stdout) as TimingOutput;
+    expect(Object.keys(out)).toEqual([
+      'format',
+      'disappearance',
+      'reappearance',
+      'baselineFlux',
+      'bottomFlux',
+      'chi2',
+      'dof',
+      'fresnelScaleKm',
+      'starDiameterKm',
+      'dips',
+    ]);
+    expect(out.format).toBe('limbus-timing/1');
+    if (out.disappearance === null || out.reappearance === null) throw new Error('event not found');
+    // At least four decimals of a second.
+    expect(out.disappearance.time).toMatch(/^2031-05-20T03:14:12\.\d{4,}Z$/);
+    expect(Math.abs(seconds(out.disappearance.time) - truth.disappearanceSeconds)).toBeLessThan(
+      3 * out.disappearance.sigmaSeconds,
+    );
+    expect(Math.abs(seconds(out.reappearance.time) - truth.reappearanceSeconds)).toBeLessThan(
+      3 * out.reappearance.sigmaSeconds,
+    );
+    expect(Math.abs(out.baselineFlux - 1000)).toBeLessThan(8);
+    expect(Math.abs((out.bottomFlux ?? NaN) - 80)).toBeLessThan(15);
+    // √(λD/2) at the central 0.65 µm (Roques, Moncuquet & Sicardy 1987; from memory).
+    expect(Math.abs(out.fresnelScaleKm - Math.sqrt(1.95))).toBeLessThan(1e-9);
+    expect(out.starDiameterKm).toBe(0.6);
+    // Without fluxErr the noise scale comes from the residuals, so χ² = dof; one dip costs 3 dof.
+    expect(out.dof).toBe(300 - 4 - 3);
+    expect(Math.abs(out.chi2 - out.dof)).toBeLessThan(1e-3);
+
+    expect(out.dips).toHaveLength(1);
+    const dip = out.dips[0];
+    if (dip === undefined) throw new Error('no dip');
+    expect(Object.keys(dip)).toEqual([
+      'start',
+      'end',
+      'apparentOpacity',
+      'apparentOpticalDepth',
+      'equivalentWidthKm',
+      'significance',
+    ]);
+    const start = seconds(dip.start.time);
+    const end = seconds(dip.end.time);
+    expect(Math.abs(start - dipTruth.startSeconds)).toBeLessThan(3 * dip.start.sigmaSeconds);
+    expect(Math.abs(end - dipTruth.endSeconds)).toBeLessThan(3 * dip.end.sigmaSeconds);
+    expect(Math.abs(dip.apparentOpacity - dipTruth.opacity)).toBeLessThan(0.05);
+    expect(Math.abs((dip.apparentOpticalDepth ?? NaN) + Math.log(1 - dip.apparentOpacity))).toBeLessThan(
+      1e-12,
+    );
+    // Equivalent width = opacity × speed × duration; the time strings round to 1 µs.
+    expect(Math.abs(dip.equivalentWidthKm - dip.apparentOpacity * 6 * (end - start))).toBeLessThan(1e-4);
+    expect(dip.significance).toBeGreaterThan(6);
+  });
+
+  it('run() with a fluxErr column weights by 1/fluxErr² without rescaling', async () => {
+    expect(await run([writeCsv(lightCurveCsv({ withErr: true, dip: false })), ...FLAGS])).toBe(0);
+    const out = JSON.parse(stdout) as TimingOutput;
+    expect(out.dof).toBe(296);
+    // χ² of white noise of the stated size: dof ± a few √(2·dof).
+    expect(Math.abs(out.chi2 - out.dof)).toBeLessThan(4 * Math.sqrt(2 * out.dof));
+    expect(out.chi2).not.toBe(out.dof);
+    expect(out.dips).toEqual([]);
+  });
+
+  it('run() converts --star-diameter-mas at the body distance', async () => {
+    const flags = [
+      '--speed-km-s',
+      '6',
+      '--distance-km',
+      '6e9',
+      '--exposure-s',
+      '0.08',
+      '--star-diameter-mas',
+      '0.02',
+    ];
+    expect(await run([writeCsv(mainCsv), ...flags])).toBe(0);
+    const out = JSON.parse(stdout) as TimingOutput;
+    // 0.02 mas = 0.02 × 4.8481368e-9 rad; × 6e9 km = 0.58178 km.
+    expect(Math.abs(out.starDiameterKm - 0.581776)).toBeLessThan(1e-6);
+  });
+
+  it('run() on a light curve with no event prints null times and no dips, and says so on stderr', async () => {
+    expect(await run([writeCsv(lightCurveCsv({ event: false })), ...FLAGS])).toBe(0);
+    const out = JSON.parse(stdout) as TimingOutput;
+    expect(out.disappearance).toBeNull();
+    expect(out.reappearance).toBeNull();
+    expect(out.dips).toEqual([]);
+    expect(stderr).toMatch(/^limbus time: no event found/);
+  });
+
+  it('run() reports a dip marked by hand with --dip even where the search finds none', async () => {
+    const mark = `${isoAt(25.0)}/${isoAt(25.6)}`;
+    expect(await run([writeCsv(mainCsv), ...FLAGS, '--dip', mark])).toBe(0);
+    const out = JSON.parse(stdout) as TimingOutput;
+    expect(out.dips).toHaveLength(2);
+    const marked = out.dips[1];
+    if (marked === undefined) throw new Error('no marked dip');
+    expect(seconds(marked.start.time)).toBeGreaterThan(24);
+    expect(marked.apparentOpacity).toBeLessThan(0.1);
+    expect(marked.significance).toBeLessThan(6);
+  });
+
+  describe('bad input (exit 2, one stderr line per problem, nothing on stdout)', () => {
+    async function expectBad(csv: string, line: string, flags = FLAGS): Promise<void> {
+      const code = await run([writeCsv(csv), ...flags]);
+      expect(code).toBe(2);
+      expect(stdout).toBe('');
+      expect(stderr.split('\n')).toContain(line);
+    }
+    const rows = mainCsv.trimEnd().split('\n');
+
+    it('run() names row 1 for an empty file', async () => {
+      await expectBad('', 'row 1: empty file; expected a header row with time and flux');
+    });
+
+    it('run() names the missing column in row 1', async () => {
+      await expectBad(
+        'time,brightness\n2031-05-20T03:14:00Z,1\n',
+        'row 1, column flux: missing column "flux"',
+      );
+    });
+
+    it('run() names the row and column of a flux that is not a number', async () => {
+      const bad = [...rows];
+      bad[3] = `${isoAt(0.3)},bright`;
+      await expectBad(bad.join('\n'), 'row 4, column flux: not a number: "bright"');
+    });
+
+    it('run() names the later row when times do not increase', async () => {
+      const bad = [...rows];
+      bad[10] = `${isoAt(0.75)},1000`;
+      await expectBad(bad.join('\n'), 'row 11, column time: time does not increase from the row before');
+    });
+
+    it('run() names the row of a time that is not ISO 8601 UTC', async () => {
+      const bad = [...rows];
+      bad[6] = `20/05/2031 03:14:00.5,1000`;
+      await expectBad(
+        bad.join('\n'),
+        'row 7, column time: not an ISO 8601 UTC time (e.g. 2031-05-20T03:14:15.25Z)',
+      );
+    });
+
+    it('run() names the row of a fluxErr that is not positive', async () => {
+      const withErr = lightCurveCsv({ withErr: true }).trimEnd().split('\n');
+      withErr[5] = `${isoAt(0.4)},1000,0`;
+      await expectBad(withErr.join('\n'), 'row 6, column fluxErr: must be a positive number, not "0"');
+    });
+
+    it('run() names the last row when the light curve ends inside the event', async () => {
+      const cut = rows.slice(0, 161);
+      await expectBad(
+        cut.join('\n'),
+        'row 161, column flux: the light curve ends inside the event; both edges are needed',
+      );
+    });
+
+    it('run() names a missing required option and conflicting star diameters', async () => {
+      await expectBad(mainCsv, '--speed-km-s: is required', ['--distance-km', '6e9', '--exposure-s', '0.08']);
+      await expectBad(
+        mainCsv,
+        '--star-diameter-km: give either --star-diameter-km or --star-diameter-mas, not both',
+        [...FLAGS, '--star-diameter-mas', '0.1'],
+      );
+    });
+  });
+});
+
+describe('formatUtc()', () => {
+  it('formatUtc() keeps microseconds across a minute boundary', () => {
+    const origin = parseUtc('2031-05-20T03:14:59.9999996Z');
+    if (typeof origin === 'string') throw new Error(origin);
+    expect(formatUtc(origin, 0)).toBe('2031-05-20T03:15:00.000000Z');
+    expect(formatUtc(origin, 1.25)).toBe('2031-05-20T03:15:01.250000Z');
+  });
+});
