@@ -6,7 +6,9 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const only = process.argv[2];
-for (const file of readdirSync(here).filter((f) => f.endsWith('.bench.ts')).sort()) {
+for (const file of readdirSync(here)
+  .filter((f) => f.endsWith('.bench.ts'))
+  .sort()) {
   if (only && !file.includes(only)) continue;
   const bench = (await import(pathToFileURL(`${here}/${file}`).href)) as { default: () => Promise<void> };
   console.log(`\n## ${file}`);
