@@ -9,7 +9,9 @@ import { HttpErrorFilter } from './common/http-error.filter';
 import { AppConfig } from './config/app-config';
 import { ConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
+import { DynamicsModule } from './dynamics/dynamics.module';
 import { EventsModule } from './events/events.module';
+import { FitsModule } from './fits/fits.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
@@ -18,6 +20,7 @@ import { RedisModule } from './redis/redis.module';
 import { StorageModule } from './storage/storage.module';
 import { RolesGuard } from './teams/roles.guard';
 import { TeamsModule } from './teams/teams.module';
+import { TimingsModule } from './timings/timings.module';
 import { UsersModule } from './users/users.module';
 
 /** Modules both entry points need: configuration, logging, database and the queue. */
@@ -55,6 +58,9 @@ export class AppModule {
         AdminModule,
         EventsModule,
         AuditModule,
+        FitsModule,
+        TimingsModule,
+        DynamicsModule,
       ],
       providers: [
         // Order matters: authentication first, then roles read the authenticated user.

@@ -1,12 +1,17 @@
 import { DynamicModule, Module } from '@nestjs/common';
 import { coreImports } from './app.module';
 import type { AppConfig } from './config/app-config';
+import { FitsWorkerModule } from './fits/fits-worker.module';
 import { StorageModule } from './storage/storage.module';
+import { TimingsWorkerModule } from './timings/timings-worker.module';
 
 /** The worker process: no HTTP. Job processors (fits, ...) are added to `imports` here. */
 @Module({})
 export class WorkerModule {
   static register(config: AppConfig): DynamicModule {
-    return { module: WorkerModule, imports: [...(coreImports(config) ?? []), StorageModule] };
+    return {
+      module: WorkerModule,
+      imports: [...(coreImports(config) ?? []), StorageModule, FitsWorkerModule, TimingsWorkerModule],
+    };
   }
 }

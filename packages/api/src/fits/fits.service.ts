@@ -1,0 +1,179 @@
+import { createHash } from 'node:crypto';
+import { EntityManager, MikroORM, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
+import { InjectQueue } from '@nestjs/bullmq';
+import { Injectable, type MessageEvent } from '@nestjs/common';
+import { DEFAULT_SEED, ENGINE_VERSION } from '@limbus/geometry';
+import { type SubmitFitPayload, validateEventFile } from '@limbus/schema';
+import type { Queue } from 'bullmq';
+import { Observable } from 'rxjs';
+import { AuditService } from '../audit/audit.service';
+import type { AuthUser } from '../auth/auth-user';
+import { ValidationError, NotFoundError } from '../common/domain-errors';
+import { eventFileOf, loadEventRows } from '../events/event-rows';
+import { EventsService } from '../events/events.service';
+import { FITS_QUEUE } from '../queue/queue.module';
+import { User } from '../users/entities/user.entity';
+import { FitRun } from './entities/fit-run.entity';
+import { overlayFitOptions } from './fit-options';
+import { fitSummaryView, type FitSummaryView, type FitView, fitView } from './fit-view';
+
+export interface FitJobData {
+  fitId: string;
+}
+
+/** How often the progress stream looks at the fit row; the row, not this process, is the truth. */
+const STREAM_POLL_MS = 150;
+
+export function sha256Hex(text: string): string {
+  return createHash('sha256').update(text, 'utf8').digest('hex');
+}
+
+@Injectable()
+export class FitsService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly orm: MikroORM,
+    private readonly events: EventsService,
+    private readonly audit: AuditService,
+    @InjectQueue(FITS_QUEUE) private readonly queue: Queue<FitJobData>,
+  ) {}
+
+  /**
+   * The snapshot is the event file built from the rows now, so later edits do not reach a queued
+   * fit. A retried submit with the same Idempotency-Key (same user, same event) returns the first fit.
+   */
+  async submit(
+    user: AuthUser,
+    eventId: string,
+    body: SubmitFitPayload,
+    idempotencyKey: string | null,
+  ): Promise<{ id: string }> {
+    const event = await this.events.find(eventId);
+    if (idempotencyKey) {
+      const existing = await this.em.findOne(FitRun, { event, createdBy: user.id, idempotencyKey });
+      if (existing) return { id: existing.id };
+    }
+    const rows = await loadEventRows(this.em, event);
+    const file = eventFileOf(
+      rows,
+      overlayFitOptions(event.fitDefaults, body.options) as typeof event.fitDefaults,
+    );
+    const validation = validateEventFile(file);
+    if (!validation.ok)
+      throw new ValidationError(
+        validation.problems.map((p) => ({
+          path: p.path.startsWith('fit.')
+            ? `options.${p.path.slice(4)}`
+            : p.path === 'fit'
+              ? 'options'
+              : p.path,
+          message: p.path.startsWith('fit') ? p.message : `event: ${p.message}`,
+        })),
+      );
+    const input = JSON.stringify(validation.event);
+    const fit = new FitRun(event, this.em.getReference(User, user.id), {
+      input,
+      inputSha256: sha256Hex(input),
+      options: body.options,
+      engineVersion: ENGINE_VERSION,
+      seed: validation.event.fit.seed ?? DEFAULT_SEED,
+      idempotencyKey,
+    });
+    try {
+      await this.em.transactional(async (em) => {
+        em.persist(fit);
+        this.audit.record(em, {
+          teamId: event.team.id,
+          eventId,
+          actorId: user.id,
+          action: 'fit.submit',
+          objectType: 'fit',
+          objectId: fit.id,
+          detail: { inputSha256: fit.inputSha256, options: body.options },
+        });
+        await em.flush();
+      });
+    } catch (error) {
+      // Two retries racing with one key: the unique index lets one in; the other answers with it.
+      if (error instanceof UniqueConstraintViolationException && idempotencyKey) {
+        const winner = await this.em
+          .fork()
+          .findOne(FitRun, { event: eventId, createdBy: user.id, idempotencyKey });
+        if (winner) return { id: winner.id };
+      }
+      throw error;
+    }
+    // jobId = fit id: adding the same fit twice (a retry after a lost reply) queues it once.
+    await this.queue.add(
+      'solve',
+      { fitId: fit.id },
+      { jobId: fit.id, removeOnComplete: 1000, removeOnFail: 5000 },
+    );
+    return { id: fit.id };
+  }
+
+  async find(fitId: string, withSolution = false): Promise<FitRun> {
+    const fit = await this.em.findOne(
+      FitRun,
+      { id: fitId, event: { state: 'active' } },
+      { populate: withSolution ? ['createdBy', 'event', 'solution'] : ['createdBy', 'event'] },
+    );
+    if (!fit) throw new NotFoundError();
+    return fit;
+  }
+
+  async get(fitId: string): Promise<FitView> {
+    return fitView(await this.find(fitId, true));
+  }
+
+  async list(eventId: string): Promise<FitSummaryView[]> {
+    const event = await this.events.find(eventId);
+    const fits = await this.em.find(
+      FitRun,
+      { event },
+      { populate: ['createdBy'], orderBy: { createdAt: 'desc', id: 'desc' } },
+    );
+    return fits.map(fitSummaryView);
+  }
+
+  /** Server-sent events: `progress` and `state` as the row changes; ends once solved or failed. */
+  stream(fitId: string): Observable<MessageEvent> {
+    return new Observable<MessageEvent>((subscriber) => {
+      let stopped = false;
+      let timer: NodeJS.Timeout | undefined;
+      let lastState = '';
+      let lastProgress = -1;
+      const poll = async (): Promise<void> => {
+        if (stopped) return;
+        const fit = await this.orm.em
+          .fork()
+          .findOne(FitRun, { id: fitId }, { fields: ['state', 'progress'] });
+        if (!fit) {
+          subscriber.complete();
+          return;
+        }
+        if (fit.progress !== lastProgress) {
+          lastProgress = fit.progress;
+          subscriber.next({ type: 'progress', data: { progress: fit.progress } });
+        }
+        if (fit.state !== lastState) {
+          lastState = fit.state;
+          subscriber.next({ type: 'state', data: { state: fit.state } });
+        }
+        if (fit.state === 'solved' || fit.state === 'failed') {
+          subscriber.complete();
+          return;
+        }
+        timer = setTimeout(
+          () => void poll().catch((error: unknown) => subscriber.error(error)),
+          STREAM_POLL_MS,
+        );
+      };
+      void poll().catch((error: unknown) => subscriber.error(error));
+      return () => {
+        stopped = true;
+        if (timer) clearTimeout(timer);
+      };
+    });
+  }
+}
