@@ -9,7 +9,12 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { useState, type FormEvent } from 'react';
-import { fitOptionsInputSchema, LIMB_PARAMETERS, type FitOptionsInput, type LimbParameterKey } from '../api/submit-fit';
+import {
+  fitOptionsInputSchema,
+  LIMB_PARAMETERS,
+  type FitOptionsInput,
+  type LimbParameterKey,
+} from '../api/submit-fit';
 import { useSubmitFit } from '../api/submit-fit';
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
@@ -24,7 +29,12 @@ const useStyles = makeStyles({
     flexDirection: 'column',
     gap: tokens.spacingVerticalS,
   },
-  fixedRow: { display: 'grid', gridTemplateColumns: '14em 10em', alignItems: 'center', gap: tokens.spacingHorizontalM },
+  fixedRow: {
+    display: 'grid',
+    gridTemplateColumns: '14em 10em',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalM,
+  },
   stations: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
 });
 
@@ -96,7 +106,9 @@ export function FitOptionsForm({ eventId, stationCodes, onQueued }: FitOptionsFo
                   disabled={!fixed[p.key].on}
                   inputMode="decimal"
                   value={fixed[p.key].value}
-                  onChange={(_, data) => setFixed((f) => ({ ...f, [p.key]: { ...f[p.key], value: data.value } }))}
+                  onChange={(_, data) =>
+                    setFixed((f) => ({ ...f, [p.key]: { ...f[p.key], value: data.value } }))
+                  }
                 />
               </Field>
             </div>
@@ -120,19 +132,26 @@ export function FitOptionsForm({ eventId, stationCodes, onQueued }: FitOptionsFo
               label={code}
               checked={offsets.includes(code)}
               onChange={(_, data) =>
-                setOffsets((list) => (data.checked === true ? [...list, code] : list.filter((c) => c !== code)))
+                setOffsets((list) =>
+                  data.checked === true ? [...list, code] : list.filter((c) => c !== code),
+                )
               }
             />
           ))}
         </div>
       </fieldset>
       <Field label="Ring centre">
-        <RadioGroup value={centerFrom} onChange={(_, data) => setCenterFrom(data.value === 'free' ? 'free' : 'limb')}>
+        <RadioGroup
+          value={centerFrom}
+          onChange={(_, data) => setCenterFrom(data.value === 'free' ? 'free' : 'limb')}
+        >
           <Radio value="limb" label="Same as the limb centre" />
           <Radio value="free" label="Fitted freely" />
         </RadioGroup>
       </Field>
-      {submit.isError ? <FormError title="The fit was not queued" message={errorMessage(submit.error)} /> : null}
+      {submit.isError ? (
+        <FormError title="The fit was not queued" message={errorMessage(submit.error)} />
+      ) : null}
       <Button appearance="primary" type="submit" disabled={submit.isPending}>
         {submit.isPending ? 'Queueing…' : 'Run fit'}
       </Button>

@@ -36,7 +36,13 @@ function withSigma(value: number, sigma: number, decimals: number): string {
 }
 
 /** A fit's numbers, each with its 1-σ, and what was fixed or assumed to get them. */
-export function FitResult({ solution, options }: { solution: Solution; options: Record<string, unknown> | undefined }) {
+export function FitResult({
+  solution,
+  options,
+}: {
+  solution: Solution;
+  options: Record<string, unknown> | undefined;
+}) {
   const styles = useStyles();
   const limb = solution.limb;
   const fixed = fixedOf(options);
@@ -61,7 +67,9 @@ export function FitResult({ solution, options }: { solution: Solution; options: 
                 <TableRow key={p.key}>
                   <TableCell>{p.label}</TableCell>
                   <TableCell className={styles.number}>
-                    {p.key in fixed ? limb[p.key].toFixed(DECIMALS[p.key]) : withSigma(limb[p.key], limb.uncertainty[p.key], DECIMALS[p.key])}
+                    {p.key in fixed
+                      ? limb[p.key].toFixed(DECIMALS[p.key])
+                      : withSigma(limb[p.key], limb.uncertainty[p.key], DECIMALS[p.key])}
                   </TableCell>
                   <TableCell>{p.unit === '' ? '—' : p.unit}</TableCell>
                   <TableCell>{p.key in fixed ? 'fixed' : 'fitted'}</TableCell>
@@ -88,8 +96,13 @@ export function FitResult({ solution, options }: { solution: Solution; options: 
           <Body1 as="p">
             χ² = {limb.chi2.toFixed(2)} for {limb.dof} degrees of freedom
             {limb.dof > 0 ? ` (χ²/dof = ${(limb.chi2 / limb.dof).toFixed(2)})` : ''}.{' '}
-            <Badge appearance={limb.negativeChordsClear ? 'outline' : 'filled'} color={limb.negativeChordsClear ? 'success' : 'danger'}>
-              {limb.negativeChordsClear ? 'every negative chord is clear of the limb' : 'a negative chord crosses the limb'}
+            <Badge
+              appearance={limb.negativeChordsClear ? 'outline' : 'filled'}
+              color={limb.negativeChordsClear ? 'success' : 'danger'}
+            >
+              {limb.negativeChordsClear
+                ? 'every negative chord is clear of the limb'
+                : 'a negative chord crosses the limb'}
             </Badge>
           </Body1>
         </>
@@ -100,8 +113,8 @@ export function FitResult({ solution, options }: { solution: Solution; options: 
           <Body1 as="p">
             Radius {withSigma(ring.radiusKm, ring.uncertainty.radiusKm, 1)} km, opening angle{' '}
             {withSigma(ring.openingAngleDeg, ring.uncertainty.openingAngleDeg, 2)}°, position angle{' '}
-            {withSigma(ring.positionAngleDeg, ring.uncertainty.positionAngleDeg, 2)}°; χ² {ring.chi2.toFixed(2)} for {ring.dof}{' '}
-            dof.
+            {withSigma(ring.positionAngleDeg, ring.uncertainty.positionAngleDeg, 2)}°; χ²{' '}
+            {ring.chi2.toFixed(2)} for {ring.dof} dof.
           </Body1>
           <Table aria-label={`Pole solutions of ring ${ring.ring}`} size="small">
             <TableHeader>
@@ -126,7 +139,12 @@ export function FitResult({ solution, options }: { solution: Solution; options: 
       {solution.astrometry === null ? null : (
         <Body1 as="p" aria-label="Astrometric offset">
           Astrometric offset at {solution.astrometry.referenceTimeUtc}: Δα cos δ ={' '}
-          {withSigma(solution.astrometry.raOffsetCosDecMas, solution.astrometry.uncertainty.raOffsetCosDecMas, 2)} mas, Δδ ={' '}
+          {withSigma(
+            solution.astrometry.raOffsetCosDecMas,
+            solution.astrometry.uncertainty.raOffsetCosDecMas,
+            2,
+          )}{' '}
+          mas, Δδ ={' '}
           {withSigma(solution.astrometry.decOffsetMas, solution.astrometry.uncertainty.decOffsetMas, 2)} mas.
         </Body1>
       )}
@@ -141,7 +159,8 @@ export function FitResult({ solution, options }: { solution: Solution; options: 
         </MessageBarBody>
       </MessageBar>
       <Body1 as="p">
-        Engine {solution.engine.version}, seed {solution.engine.seed}, input {solution.engine.inputSha256.slice(0, 12)}…
+        Engine {solution.engine.version}, seed {solution.engine.seed}, input{' '}
+        {solution.engine.inputSha256.slice(0, 12)}…
       </Body1>
     </div>
   );
@@ -154,7 +173,9 @@ function isRecord(value: unknown): value is Record<string, unknown> {
 function fixedOf(options: Record<string, unknown> | undefined): Record<string, number> {
   const limb = isRecord(options?.limb) ? options.limb : {};
   const fixed = isRecord(limb.fixed) ? limb.fixed : {};
-  return Object.fromEntries(Object.entries(fixed).filter((e): e is [string, number] => typeof e[1] === 'number'));
+  return Object.fromEntries(
+    Object.entries(fixed).filter((e): e is [string, number] => typeof e[1] === 'number'),
+  );
 }
 
 /** What a reader must know before quoting the numbers: every fixed value and assumption, stated plainly. */
@@ -165,16 +186,27 @@ export function cautionsOf(
 ): string[] {
   const cautions: string[] = [];
   for (const p of LIMB_PARAMETERS)
-    if (p.key in fixed) cautions.push(`${p.label} was fixed at ${fixed[p.key]}${p.unit === '' ? '' : ` ${p.unit}`}, not fitted; its 1σ is not meaningful.`);
+    if (p.key in fixed)
+      cautions.push(
+        `${p.label} was fixed at ${fixed[p.key]}${p.unit === '' ? '' : ` ${p.unit}`}, not fitted; its 1σ is not meaningful.`,
+      );
   const limb = solution.limb;
   if (limb !== null) {
     const positives = solution.chords.filter((c) => c.type === 'positive').length;
-    if (limb.dof <= 0) cautions.push(`No degrees of freedom are left (${positives} positive chords); the 1σ values rest on the sigmas alone.`);
-    if (!limb.negativeChordsClear) cautions.push('A negative chord crosses the fitted limb: the solution contradicts an observation.');
+    if (limb.dof <= 0)
+      cautions.push(
+        `No degrees of freedom are left (${positives} positive chords); the 1σ values rest on the sigmas alone.`,
+      );
+    if (!limb.negativeChordsClear)
+      cautions.push('A negative chord crosses the fitted limb: the solution contradicts an observation.');
     if (limb.dof > 0 && limb.chi2 / limb.dof > 3)
-      cautions.push('χ²/dof is above 3: the timings scatter more than their sigmas allow (clock errors or topography?).');
+      cautions.push(
+        'χ²/dof is above 3: the timings scatter more than their sigmas allow (clock errors or topography?).',
+      );
     if (limb.timeOffsets.length > 0)
-      cautions.push(`Clock offsets were fitted for ${limb.timeOffsets.map((t) => t.station).join(', ')}; those chords fix the shape only.`);
+      cautions.push(
+        `Clock offsets were fitted for ${limb.timeOffsets.map((t) => t.station).join(', ')}; those chords fix the shape only.`,
+      );
   }
   const limbOptions = isRecord(options?.limb) ? options.limb : {};
   if (typeof limbOptions.modelErrorKm === 'number' && limbOptions.modelErrorKm > 0)
