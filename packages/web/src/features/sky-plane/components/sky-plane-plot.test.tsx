@@ -3,6 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { fixtureEvent, syntheticEvent } from '../fixtures/solution-fixture';
 import { SkyPlanePlot } from './sky-plane-plot';
+import { expectClose } from '../../../../../geometry/test/expect-close';
 import { renderWithProviders } from '@/testing/test-utils';
 
 function renderPlot(eastLeft = true) {
@@ -68,6 +69,11 @@ describe('SkyPlanePlot', () => {
     expect(svg.querySelectorAll('.ring-crossing').length).toBeGreaterThan(0);
     expect(svg.querySelector('.centre-error-f')).not.toBeNull();
     expect(svg.querySelector('.centre-error-g')).not.toBeNull();
+    // The error cross is symmetric about the fixed-size centre mark.
+    const cross = svg.querySelector('.centre-error-f');
+    const mark = svg.querySelector('.centre-mark');
+    expectClose((numberAttr(cross, 'x1') + numberAttr(cross, 'x2')) / 2, numberAttr(mark, 'cx'), 1e-9);
+    expect(numberAttr(mark, 'cy')).toBe(numberAttr(cross, 'y1'));
   });
 
   it('SkyPlanePlot labels its axes and states the sky orientation, with a north/east indicator and km scale', () => {
