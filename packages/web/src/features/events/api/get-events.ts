@@ -6,6 +6,12 @@ export const eventSummarySchema = z.object({
   id: z.string(),
   title: z.string(),
   teamId: z.string(),
+  // Summary fields the events endpoint adds; optional so an older server still lists titles.
+  eventDate: z.string().nullable().optional(),
+  counts: z
+    .object({ stations: z.number(), chords: z.number(), reports: z.number(), fits: z.number() })
+    .optional(),
+  latestFit: z.object({ id: z.string(), state: z.string() }).nullable().optional(),
 });
 
 export type EventSummary = z.infer<typeof eventSummarySchema>;

@@ -16,13 +16,24 @@ describe('EventsList', () => {
   it("EventsList lists only the current team's events", async () => {
     stubFetch(() =>
       jsonResponse(200, [
-        { id: 'e1', title: 'Occultation of a 14th-magnitude star, night one', teamId: 't1' },
+        {
+          id: 'e1',
+          title: 'Occultation of a 14th-magnitude star, night one',
+          teamId: 't1',
+          eventDate: '2029-05-17T03:12:30.000Z',
+          star: { raDeg: 210.1, decDeg: -12.3 },
+          counts: { stations: 6, chords: 5, reports: 2, fits: 1 },
+          latestFit: { id: 'f1', state: 'done' },
+        },
         { id: 'e2', title: 'Other team event', teamId: 't2' },
       ]),
     );
     renderWithProviders(<EventsList teamId="t1" teamName="Outer Belt Timing Group" />);
     expect(await screen.findByText('Occultation of a 14th-magnitude star, night one')).toBeInTheDocument();
     expect(screen.queryByText('Other team event')).not.toBeInTheDocument();
+    const row = screen.getByRole('row', { name: /night one/ });
+    expect(row).toHaveTextContent('2029-05-17');
+    expect(row).toHaveTextContent('done');
   });
 
   it('EventsList says what failed and retries on request', async () => {

@@ -38,12 +38,20 @@ export function EventsList({ teamId, teamName }: { teamId: string | null; teamNa
           <TableHeader>
             <TableRow>
               <TableHeaderCell>Title</TableHeaderCell>
+              <TableHeaderCell>Date (UTC)</TableHeaderCell>
+              <TableHeaderCell>Stations</TableHeaderCell>
+              <TableHeaderCell>Chords</TableHeaderCell>
+              <TableHeaderCell>Latest fit</TableHeaderCell>
             </TableRow>
           </TableHeader>
           <TableBody>
             {mine.map((event) => (
               <TableRow key={event.id}>
                 <TableCell>{event.title}</TableCell>
+                <TableCell>{event.eventDate?.slice(0, 10) ?? '—'}</TableCell>
+                <TableCell>{event.counts?.stations ?? '—'}</TableCell>
+                <TableCell>{event.counts?.chords ?? '—'}</TableCell>
+                <TableCell>{event.latestFit?.state ?? 'none'}</TableCell>
               </TableRow>
             ))}
           </TableBody>
