@@ -255,6 +255,16 @@ describe('limbus time', () => {
       );
     });
 
+    it('run() names the row and the column a short row lacks', async () => {
+      const bad = [...rows];
+      bad[8] = isoAt(0.7);
+      await expectBad(bad.join('\n'), 'row 9, column flux: the row has 1 fields, the header 2');
+    });
+
+    it('run() names row 1 for a file with a header and no data', async () => {
+      await expectBad('time,flux\n', 'row 1: only 0 data rows; at least 8 are needed');
+    });
+
     it('run() names the row of a fluxErr that is not positive', async () => {
       const withErr = lightCurveCsv({ withErr: true }).trimEnd().split('\n');
       withErr[5] = `${isoAt(0.4)},1000,0`;

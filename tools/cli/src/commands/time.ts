@@ -207,7 +207,8 @@ export function parseUtc(text: string): UtcInstant | string {
     number,
   ];
   if (month < 1 || month > 12) return 'month out of range';
-  const daysInMonth = new Date(Date.UTC(year, month, 0)).getUTCDate();
+  const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+  const daysInMonth = [31, leap ? 29 : 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31][month - 1] ?? 0;
   if (day < 1 || day > daysInMonth) return 'day out of range';
   if (hour > 23 || minute > 59) return 'hour or minute out of range';
   if (second === 60) return 'a leap second (:60) cannot be placed on this time axis';
@@ -280,9 +281,14 @@ export function parseLightCurve(text: string): LightCurve {
     const row = i + 1;
     if (fields.length === 1 && (fields[0] ?? '').trim() === '') continue;
     if (fields.length !== header.length) {
+      const missing = [timeColumn, fluxColumn, errColumn].filter((c) => c >= fields.length);
+      const where =
+        missing.length > 0
+          ? `row ${row}, column ${header[Math.min(...missing)] ?? ''}`
+          : `row ${row}, column ${header.length + 1}`;
       problems.push({
-        path: `row ${row}`,
-        message: `has ${fields.length} fields, the header has ${header.length}`,
+        path: where,
+        message: `the row has ${fields.length} fields, the header ${header.length}`,
       });
       continue;
     }
@@ -326,7 +332,7 @@ export function parseLightCurve(text: string): LightCurve {
   }
   if (problems.length === 0 && rows.length < MIN_ROWS) {
     problems.push({
-      path: `row ${lines.length}`,
+      path: `row ${rows[rows.length - 1] ?? 1}`,
       message: `only ${rows.length} data rows; at least ${MIN_ROWS} are needed`,
     });
   }
