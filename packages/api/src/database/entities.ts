@@ -2,6 +2,7 @@ import { PasswordResetToken } from '../auth/entities/password-reset-token.entity
 import { RefreshToken } from '../auth/entities/refresh-token.entity';
 import { AuditEntry } from '../audit/entities/audit-entry.entity';
 import { Chord } from '../chords/entities/chord.entity';
+import { DynamicsContext } from '../dynamics/entities/dynamics-context.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { OccultationEvent } from '../events/entities/occultation-event.entity';
 import { FitRun } from '../fits/entities/fit-run.entity';
@@ -11,6 +12,7 @@ import { Review } from '../reviews/entities/review.entity';
 import { Station } from '../stations/entities/station.entity';
 import { Membership } from '../teams/entities/membership.entity';
 import { Team } from '../teams/entities/team.entity';
+import { LightCurveTiming } from '../timings/entities/light-curve-timing.entity';
 import { Upload } from '../uploads/entities/upload.entity';
 import { User } from '../users/entities/user.entity';
 
@@ -34,4 +36,6 @@ export const ENTITIES = [
   FitRun,
   Review,
   AuditEntry,
+  LightCurveTiming,
+  DynamicsContext,
 ];

@@ -1,6 +1,7 @@
 import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261201235328 } from './Migration20261201235328_initial';
 import { Migration20261202000927 } from './Migration20261202000927_event_workspace';
+import { Migration20261202003844 } from './Migration20261202003844_timings_dynamics';
 
 /**
  * Static list so the migrator works under vitest and from dist alike. To add one: build, run
@@ -10,4 +11,5 @@ import { Migration20261202000927 } from './Migration20261202000927_event_workspa
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201235328_initial', class: Migration20261201235328 },
   { name: 'Migration20261202000927_event_workspace', class: Migration20261202000927 },
+  { name: 'Migration20261202003844_timings_dynamics', class: Migration20261202003844 },
 ];

@@ -1,0 +1,217 @@
+import 'reflect-metadata';
+import { createHash } from 'node:crypto';
+import type { INestApplicationContext } from '@nestjs/common';
+import { NestFactory } from '@nestjs/core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Chord } from '../../src/chords/entities/chord.entity';
+import { RingEvent } from '../../src/chords/entities/ring-event.entity';
+import { OccultationEvent } from '../../src/events/entities/occultation-event.entity';
+import { Report } from '../../src/reports/entities/report.entity';
+import { Station } from '../../src/stations/entities/station.entity';
+import { StorageService } from '../../src/storage/storage.service';
+import { LightCurveTiming } from '../../src/timings/entities/light-curve-timing.entity';
+import type { TimingDetail } from '../../src/timings/timings.service';
+import { Upload } from '../../src/uploads/entities/upload.entity';
+import { User } from '../../src/users/entities/user.entity';
+import { WorkerModule } from '../../src/worker.module';
+import { createWorkspace, importExample, type Workspace } from '../events/workspace';
+import { bootTestApp, type TestApp } from '../setup';
+import { squareWellCsv } from './square-well';
+
+// The invented example event's first station; its chord there says D 02:14:02.059, R 02:14:18.359.
+const ORIGIN_UNIX_SECONDS = Date.UTC(2028, 2, 14, 2, 13, 40) / 1000;
+const TRUE_D_SECONDS = 22.059;
+const TRUE_R_SECONDS = 38.359;
+const RING_DIP = { startSeconds: 8.88, endSeconds: 9.18, opacity: 0.6 };
+// About 4.5 standard errors deep: below the 6-sigma search threshold, so only a hand mark reports it.
+const FAINT_DIP = { startSeconds: 48.0, endSeconds: 48.5, opacity: 0.04 };
+
+const CSV = squareWellCsv({
+  originUnixSeconds: ORIGIN_UNIX_SECONDS,
+  samples: 600,
+  cadenceSeconds: 0.1,
+  wells: [{ startSeconds: TRUE_D_SECONDS, endSeconds: TRUE_R_SECONDS, opacity: 1 }, RING_DIP, FAINT_DIP],
+  noiseSigma: 0.02,
+  seed: 20280314,
+});
+
+const OPTIONS = { speedKmPerS: 20, distanceKm: 6.0e9, exposureSeconds: 0.1, bottom: 'zero' };
+
+function secondsFromOrigin(iso: string): number {
+  return Date.parse(iso) / 1000 - ORIGIN_UNIX_SECONDS;
+}
+
+describe('light-curve timing routes and job', () => {
+  let t: TestApp;
+  let w: Workspace;
+  let worker: INestApplicationContext;
+  let eventId: string;
+  let reportId: string;
+  let stationId: string;
+
+  beforeAll(async () => {
+    t = await bootTestApp();
+    worker = await NestFactory.createApplicationContext(WorkerModule.register(t.config), { logger: false });
+    await worker.init();
+    w = await createWorkspace(t);
+    eventId = await importExample(t, w);
+    // Uploading is the reports routes' job; here the upload is stored the way they store one.
+    const em = t.orm.em.fork();
+    const event = await em.findOneOrFail(OccultationEvent, { id: eventId }, { populate: ['team'] });
+    const station = await em.findOneOrFail(Station, { event: eventId, code: 'amberfield' });
+    stationId = station.id;
+    const key = `e2e/timings/${eventId}/amberfield.csv`;
+    await t.app.get(StorageService).put(key, CSV, 'text/csv');
+    const upload = new Upload({
+      team: event.team,
+      storageKey: key,
+      name: 'amberfield.csv',
+      contentType: 'text/csv',
+      sizeBytes: Buffer.byteLength(CSV),
+      sha256: createHash('sha256').update(CSV).digest('hex'),
+      createdBy: null,
+    });
+    const report = new Report(event, station, em.getReference(User, w.userIds.observer), 'positive');
+    report.lightCurve = upload;
+    await em.persist([upload, report]).flush();
+    reportId = report.id;
+  });
+  afterAll(async () => {
+    await worker.close();
+    await t.close();
+  });
+
+  async function solved(timingId: string): Promise<TimingDetail> {
+    const deadline = Date.now() + 45_000;
+    for (;;) {
+      const response = await t
+        .get(`/api/events/${eventId}/timings/${timingId}`)
+        .set(w.auth('observer'))
+        .expect(200);
+      const body = response.body as TimingDetail;
+      if (body.state === 'solved' || body.state === 'failed' || Date.now() > deadline) return body;
+      await new Promise((resolve) => setTimeout(resolve, 200));
+    }
+  }
+
+  let timingId: string;
+
+  it('POST /api/events/:eventId/reports/:reportId/timings queues a job that the worker solves', async () => {
+    const response = await t
+      .post(`/api/events/${eventId}/reports/${reportId}/timings`)
+      .set(w.auth('modeller'))
+      .send(OPTIONS)
+      .expect(202);
+    timingId = (response.body as { id: string }).id;
+    const detail = await solved(timingId);
+    expect(detail.error).toBeNull();
+    expect(detail.state).toBe('solved');
+    const result = detail.result;
+    if (!result?.disappearance || !result.reappearance) throw new Error('no D or R');
+    // Truth is the square well the curve was drawn from (square-well.ts); 0.02 s is 0.2 of a sample,
+    // several times the expected 1-sigma at this noise.
+    expect(Math.abs(secondsFromOrigin(result.disappearance.time) - TRUE_D_SECONDS)).toBeLessThan(0.02);
+    expect(Math.abs(secondsFromOrigin(result.reappearance.time) - TRUE_R_SECONDS)).toBeLessThan(0.02);
+    expect(result.disappearance.sigmaSeconds).toBeGreaterThan(0);
+    expect(result.disappearance.sigmaSeconds).toBeLessThan(0.05);
+    expect(result.dips).toHaveLength(1);
+    const dip = result.dips[0];
+    if (!dip) throw new Error('no dip');
+    expect(Math.abs(secondsFromOrigin(dip.start.time) - RING_DIP.startSeconds)).toBeLessThan(0.05);
+    expect(Math.abs(secondsFromOrigin(dip.end.time) - RING_DIP.endSeconds)).toBeLessThan(0.05);
+    expect(dip.marked).toBe(false);
+    expect(result.series.flux).toHaveLength(600);
+    expect(result.series.modelFlux).toHaveLength(600);
+    const row = await t.orm.em
+      .fork()
+      .findOneOrFail(LightCurveTiming, { id: timingId }, { populate: ['result'] });
+    expect(row.state).toBe('solved');
+    expect(row.result?.disappearance).toEqual(result.disappearance);
+  });
+
+  it('POST /api/events/:eventId/timings/:timingId/accept writes D and R with their sigmas into the station chord', async () => {
+    const detail = await solved(timingId);
+    const response = await t
+      .post(`/api/events/${eventId}/timings/${timingId}/accept`)
+      .set(w.auth('modeller'))
+      .expect(200);
+    const chordId = (response.body as { chordId: string }).chordId;
+    const chord = await t.orm.em.fork().findOneOrFail(Chord, { id: chordId }, { populate: ['station'] });
+    expect(chord.station.id).toBe(stationId);
+    expect(chord.type).toBe('positive');
+    expect(chord.disappearance).toEqual(detail.result?.disappearance);
+    expect(chord.reappearance).toEqual(detail.result?.reappearance);
+    // The example's own chord at this station was updated, not joined by a second one.
+    expect(await t.orm.em.fork().count(Chord, { event: eventId, station: stationId })).toBe(1);
+  });
+
+  it('POST /api/events/:eventId/timings/:timingId/ring-events makes one ring event per dip, once', async () => {
+    const em = t.orm.em.fork();
+    const before = await em.count(RingEvent, { event: eventId });
+    const response = await t
+      .post(`/api/events/${eventId}/timings/${timingId}/ring-events`)
+      .set(w.auth('modeller'))
+      .send({ ring: 'R1' })
+      .expect(201);
+    const ids = (response.body as { ringEventIds: string[] }).ringEventIds;
+    expect(ids).toHaveLength(1);
+    const made = await t.orm.em
+      .fork()
+      .findOneOrFail(RingEvent, { id: ids[0] }, { populate: ['report', 'station'] });
+    const detail = await solved(timingId);
+    expect(made.ring).toBe('R1');
+    expect(made.station.id).toBe(stationId);
+    expect(made.report?.id).toBe(reportId);
+    expect(made.start).toEqual(detail.result?.dips[0]?.start);
+    expect(await t.orm.em.fork().count(RingEvent, { event: eventId })).toBe(before + 1);
+    await t
+      .post(`/api/events/${eventId}/timings/${timingId}/ring-events`)
+      .set(w.auth('modeller'))
+      .send({ ring: 'R1' })
+      .expect(409);
+  });
+
+  it('POST /api/events/:eventId/timings/:timingId/dips measures a hand-marked dip below the threshold', async () => {
+    const iso = (s: number): string => new Date((ORIGIN_UNIX_SECONDS + s) * 1000).toISOString();
+    const response = await t
+      .post(`/api/events/${eventId}/timings/${timingId}/dips`)
+      .set(w.auth('modeller'))
+      .send({ startUtc: iso(FAINT_DIP.startSeconds - 0.3), endUtc: iso(FAINT_DIP.endSeconds + 0.3) })
+      .expect(202);
+    const again = await solved((response.body as { id: string }).id);
+    expect(again.state).toBe('solved');
+    expect(again.options.markedDips).toHaveLength(1);
+    const marked = again.result?.dips.filter((d) => d.marked) ?? [];
+    expect(marked).toHaveLength(1);
+    const dip = marked[0];
+    if (!dip) throw new Error('no marked dip');
+    // Depth 0.04 at noise 0.02 over 5 samples: the measured opacity is within a few of its 0.009 standard errors.
+    expect(Math.abs(dip.apparentOpacity - FAINT_DIP.opacity)).toBeLessThan(0.04);
+    expect(again.result?.dips.filter((d) => !d.marked)).toHaveLength(1);
+    const rows = await t.orm.em.fork().count(LightCurveTiming, { report: reportId });
+    expect(rows).toBe(2);
+  });
+
+  it('POST /api/events/:eventId/reports/:reportId/timings answers 400 naming each bad field and stores nothing', async () => {
+    const before = await t.orm.em.fork().count(LightCurveTiming, { report: reportId });
+    const response = await t
+      .post(`/api/events/${eventId}/reports/${reportId}/timings`)
+      .set(w.auth('modeller'))
+      .send({ ...OPTIONS, speedKmPerS: -1, bottom: 'sideways' })
+      .expect(400);
+    const paths = (response.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path).sort();
+    expect(paths).toEqual(['bottom', 'speedKmPerS']);
+    expect(await t.orm.em.fork().count(LightCurveTiming, { report: reportId })).toBe(before);
+  });
+
+  it('timing routes: observers read but may not queue; another team sees nothing', async () => {
+    await t.get(`/api/events/${eventId}/reports/${reportId}/timings`).set(w.auth('observer')).expect(200);
+    await t
+      .post(`/api/events/${eventId}/reports/${reportId}/timings`)
+      .set(w.auth('observer'))
+      .send(OPTIONS)
+      .expect(403);
+    await t.get(`/api/events/${eventId}/timings/${timingId}`).set(w.auth('outsider')).expect(404);
+    await t.post(`/api/events/${eventId}/timings/${timingId}/accept`).set(w.auth('outsider')).expect(404);
+  });
+});

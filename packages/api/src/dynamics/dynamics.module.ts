@@ -1,0 +1,13 @@
+import { Module } from '@nestjs/common';
+import { AuditModule } from '../audit/audit.module';
+import { TeamsModule } from '../teams/teams.module';
+import { DynamicsController } from './dynamics.controller';
+import { DynamicsService } from './dynamics.service';
+
+/** Per-event body context beside the ring fits. Team scope comes from :eventId. */
+@Module({
+  imports: [TeamsModule, AuditModule],
+  controllers: [DynamicsController],
+  providers: [DynamicsService],
+})
+export class DynamicsModule {}

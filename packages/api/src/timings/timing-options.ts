@@ -1,0 +1,32 @@
+import { z } from 'zod';
+
+const utcText = z.string().min(1, 'must be an ISO 8601 UTC time');
+
+/** What a modeller asks of one timing job; the geometry's defaults where the trade has a usual value. */
+export const timingOptionsSchema = z.strictObject({
+  speedKmPerS: z.number().positive('must be greater than 0'),
+  distanceKm: z.number().positive('must be greater than 0'),
+  exposureSeconds: z.number().positive('must be greater than 0'),
+  wavelengthUm: z.number().positive('must be greater than 0').default(0.65),
+  bandwidthUm: z.number().nonnegative('must be 0 or more').default(0.3),
+  starDiameterKm: z.number().nonnegative('must be 0 or more').default(0),
+  bottom: z.enum(['free', 'zero']).default('free'),
+  detectionSigma: z.number().positive('must be greater than 0').default(6),
+  markedDips: z
+    .array(z.strictObject({ startUtc: utcText, endUtc: utcText }))
+    .max(20)
+    .default([]),
+});
+
+export type TimingOptions = z.infer<typeof timingOptionsSchema>;
+
+/** A dip the modeller marks by hand on a solved timing; the job is run again with it added. */
+export const markDipSchema = z.strictObject({ startUtc: utcText, endUtc: utcText });
+export type MarkDipPayload = z.infer<typeof markDipSchema>;
+
+/** Which dips become ring events, and under which ring name; all dips when `dips` is left out. */
+export const dipsToRingEventsSchema = z.strictObject({
+  ring: z.string().trim().min(1, 'must not be empty').max(100),
+  dips: z.array(z.int().min(0)).min(1).optional(),
+});
+export type DipsToRingEventsPayload = z.infer<typeof dipsToRingEventsSchema>;

@@ -1,0 +1,252 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { InjectQueue } from '@nestjs/bullmq';
+import { Injectable } from '@nestjs/common';
+import type { TimedMark } from '@limbus/geometry';
+import type { Queue } from 'bullmq';
+import { AuditService } from '../audit/audit.service';
+import type { AuthUser } from '../auth/auth-user';
+import { Chord } from '../chords/entities/chord.entity';
+import { RingEvent } from '../chords/entities/ring-event.entity';
+import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
+import { Report } from '../reports/entities/report.entity';
+import { User } from '../users/entities/user.entity';
+import { LightCurveTiming, type TimingState } from './entities/light-curve-timing.entity';
+import type { DipsToRingEventsPayload, MarkDipPayload, TimingOptions } from './timing-options';
+import type { TimingView } from './timing-result';
+import { TIMINGS_QUEUE, type TimingJobData } from './timings-queue';
+import { parseUtcInstant, secondsBetween } from './utc-instant';
+
+export interface TimingSummary {
+  id: string;
+  reportId: string;
+  stationId: string;
+  state: TimingState;
+  error: string | null;
+  options: TimingOptions;
+  acceptedAt: string | null;
+  ringEventsCreatedAt: string | null;
+  createdAt: string;
+  finishedAt: string | null;
+}
+
+export interface TimingDetail extends TimingSummary {
+  result: TimingView | null;
+}
+
+function summary(t: LightCurveTiming): TimingSummary {
+  return {
+    id: t.id,
+    reportId: t.report.id,
+    stationId: t.report.station.id,
+    state: t.state,
+    error: t.error,
+    options: t.options,
+    acceptedAt: t.acceptedAt?.toISOString() ?? null,
+    ringEventsCreatedAt: t.ringEventsCreatedAt?.toISOString() ?? null,
+    createdAt: t.createdAt.toISOString(),
+    finishedAt: t.finishedAt?.toISOString() ?? null,
+  };
+}
+
+/** A copy, so the chord's JSON column never shares an object with the timing's result. */
+function chordMark(m: TimedMark): TimedMark {
+  return { time: m.time, sigmaSeconds: m.sigmaSeconds };
+}
+
+@Injectable()
+export class TimingsService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly audit: AuditService,
+    @InjectQueue(TIMINGS_QUEUE) private readonly queue: Queue<TimingJobData>,
+  ) {}
+
+  private async report(eventId: string, reportId: string): Promise<Report> {
+    const report = await this.em.findOne(
+      Report,
+      { id: reportId, event: { id: eventId, state: 'active' } },
+      { populate: ['lightCurve', 'station', 'event'] },
+    );
+    if (!report) throw new NotFoundError('No such report in this event');
+    return report;
+  }
+
+  private async timing(eventId: string, timingId: string): Promise<LightCurveTiming> {
+    const timing = await this.em.findOne(
+      LightCurveTiming,
+      { id: timingId, event: { id: eventId, state: 'active' } },
+      { populate: ['report', 'report.station', 'event', 'result'] },
+    );
+    if (!timing) throw new NotFoundError('No such timing in this event');
+    return timing;
+  }
+
+  async create(
+    user: AuthUser,
+    eventId: string,
+    reportId: string,
+    options: TimingOptions,
+  ): Promise<TimingSummary> {
+    const report = await this.report(eventId, reportId);
+    const upload = report.lightCurve;
+    if (!upload) {
+      throw new ValidationError([{ path: 'reportId', message: 'this report has no uploaded light curve' }]);
+    }
+    options.markedDips.forEach((d, k) => {
+      const start = parseUtcInstant(d.startUtc);
+      const end = parseUtcInstant(d.endUtc);
+      const issues = [];
+      if (typeof start === 'string') issues.push({ path: `markedDips[${k}].startUtc`, message: start });
+      if (typeof end === 'string') issues.push({ path: `markedDips[${k}].endUtc`, message: end });
+      if (issues.length > 0) throw new ValidationError(issues);
+      if (typeof start !== 'string' && typeof end !== 'string' && !(secondsBetween(start, end) > 0)) {
+        throw new ValidationError([{ path: `markedDips[${k}].endUtc`, message: 'ends before it starts' }]);
+      }
+    });
+    const timing = new LightCurveTiming(report.event, report, this.em.getReference(User, user.id), {
+      uploadSha256: upload.sha256,
+      options,
+    });
+    this.audit.record(this.em, {
+      teamId: report.event.team.id,
+      eventId,
+      actorId: user.id,
+      action: 'timing.create',
+      objectType: 'timing',
+      objectId: timing.id,
+      detail: { reportId, markedDips: options.markedDips.length },
+    });
+    await this.em.persist(timing).flush();
+    // Enqueued after the row is committed, so the worker always finds it.
+    await this.queue.add('time', { timingId: timing.id }, { jobId: timing.id, removeOnComplete: 1000 });
+    return summary(timing);
+  }
+
+  async list(eventId: string, reportId: string): Promise<TimingSummary[]> {
+    await this.report(eventId, reportId);
+    const rows = await this.em.find(
+      LightCurveTiming,
+      { report: reportId },
+      { populate: ['report', 'report.station'], orderBy: { createdAt: 'desc', id: 'asc' } },
+    );
+    return rows.map(summary);
+  }
+
+  async detail(eventId: string, timingId: string): Promise<TimingDetail> {
+    const timing = await this.timing(eventId, timingId);
+    return { ...summary(timing), result: timing.result };
+  }
+
+  private solved(timing: LightCurveTiming): TimingView {
+    if (timing.state !== 'solved' || timing.result === null) {
+      throw new ConflictError(`The timing is ${timing.state}, not solved`);
+    }
+    return timing.result;
+  }
+
+  /** Writes the fitted D and R with their 1-sigma into the station's positive chord (made if missing). */
+  async accept(user: AuthUser, eventId: string, timingId: string): Promise<{ chordId: string }> {
+    const timing = await this.timing(eventId, timingId);
+    const result = this.solved(timing);
+    const { disappearance, reappearance } = result;
+    if (disappearance === null || reappearance === null) {
+      throw new ConflictError('The timing found no disappearance and reappearance to put in a chord');
+    }
+    const station = timing.report.station;
+    return this.em.transactional(async (em) => {
+      let chord =
+        (await em.findOne(Chord, { report: timing.report.id })) ??
+        (await em.findOne(
+          Chord,
+          { event: eventId, station: station.id, type: 'positive' },
+          { orderBy: { position: 'asc' } },
+        ));
+      const before = chord ? { disappearance: chord.disappearance, reappearance: chord.reappearance } : null;
+      if (!chord) {
+        chord = new Chord(timing.event, station, 'positive', 'report');
+        chord.report = timing.report;
+        chord.position = (await em.count(Chord, { event: eventId })) + 1;
+        em.persist(chord);
+      }
+      chord.disappearance = chordMark(disappearance);
+      chord.reappearance = chordMark(reappearance);
+      timing.acceptedAt = new Date();
+      this.audit.record(em, {
+        teamId: timing.event.team.id,
+        eventId,
+        actorId: user.id,
+        action: 'timing.accept',
+        objectType: 'chord',
+        objectId: chord.id,
+        detail: {
+          timingId,
+          before,
+          after: { disappearance: chord.disappearance, reappearance: chord.reappearance },
+        },
+      });
+      await em.flush();
+      return { chordId: chord.id };
+    });
+  }
+
+  /** One ring event per chosen dip, under one ring name; a timing feeds ring events once. */
+  async dipsToRingEvents(
+    user: AuthUser,
+    eventId: string,
+    timingId: string,
+    payload: DipsToRingEventsPayload,
+  ): Promise<{ ringEventIds: string[] }> {
+    const timing = await this.timing(eventId, timingId);
+    const result = this.solved(timing);
+    if (timing.ringEventsCreatedAt !== null) {
+      throw new ConflictError('Ring events were already made from this timing');
+    }
+    if (result.dips.length === 0) throw new ConflictError('The timing found no dips');
+    const indexes = payload.dips ?? result.dips.map((_, i) => i);
+    const issues = indexes
+      .map((index, k) => ({ index, k }))
+      .filter(({ index }) => index >= result.dips.length)
+      .map(({ k }) => ({ path: `dips[${k}]`, message: `there are only ${result.dips.length} dips` }));
+    if (issues.length > 0) throw new ValidationError(issues);
+    return this.em.transactional(async (em) => {
+      const position = await em.count(RingEvent, { event: eventId });
+      const made = [...new Set(indexes)].map((index, k) => {
+        const dip = result.dips[index];
+        if (!dip) throw new NotFoundError('No such dip');
+        const ringEvent = new RingEvent(timing.event, timing.report.station, {
+          ring: payload.ring,
+          start: chordMark(dip.start),
+          end: chordMark(dip.end),
+        });
+        ringEvent.report = timing.report;
+        ringEvent.position = position + k + 1;
+        em.persist(ringEvent);
+        return ringEvent;
+      });
+      timing.ringEventsCreatedAt = new Date();
+      this.audit.record(em, {
+        teamId: timing.event.team.id,
+        eventId,
+        actorId: user.id,
+        action: 'timing.ring-events',
+        objectType: 'timing',
+        objectId: timing.id,
+        detail: { ring: payload.ring, ringEventIds: made.map((r) => r.id) },
+      });
+      await em.flush();
+      return { ringEventIds: made.map((r) => r.id) };
+    });
+  }
+
+  /** A hand-marked dip is measured by running the timing again with the dip added to its marks. */
+  async markDip(
+    user: AuthUser,
+    eventId: string,
+    timingId: string,
+    dip: MarkDipPayload,
+  ): Promise<TimingSummary> {
+    const timing = await this.timing(eventId, timingId);
+    const options: TimingOptions = { ...timing.options, markedDips: [...timing.options.markedDips, dip] };
+    return this.create(user, eventId, timing.report.id, options);
+  }
+}
