@@ -1,0 +1,113 @@
+import { screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { ReportForm } from './report-form';
+import { ReportsPanel } from './reports-panel';
+import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-utils';
+
+afterEach(() => vi.unstubAllGlobals());
+
+const STATIONS = [
+  { id: 's1', code: 'kestrel-hill' },
+  { id: 's2', code: 'brackenmoor' },
+];
+
+describe('ReportForm', () => {
+  it('ReportForm submits a positive report with both timings and their sigmas', async () => {
+    const calls = stubFetch(() => jsonResponse(201, { id: 'r7' }));
+    const onSaved = vi.fn();
+    renderWithProviders(<ReportForm eventId="e1" stations={STATIONS} report={null} onSaved={onSaved} />);
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('textbox', { name: /^Disappearance \(UTC\)/ }));
+    await user.paste('2029-05-17T03:12:31.25Z');
+    await user.click(screen.getByRole('textbox', { name: /^Disappearance σ/ }));
+    await user.paste('0.04');
+    await user.click(screen.getByRole('textbox', { name: /^Reappearance \(UTC\)/ }));
+    await user.paste('2029-05-17T03:12:49.9Z');
+    await user.click(screen.getByRole('textbox', { name: /^Reappearance σ/ }));
+    await user.paste('0.05');
+    await user.click(screen.getByRole('button', { name: 'Submit report' }));
+    await waitFor(() => expect(onSaved).toHaveBeenCalledWith('r7'));
+    expect(calls[0]?.url).toBe('/api/events/e1/reports');
+    expect(calls[0]?.body).toEqual({
+      stationId: 's1',
+      result: 'positive',
+      notes: null,
+      disappearance: { time: '2029-05-17T03:12:31.25Z', sigmaSeconds: 0.04 },
+      reappearance: { time: '2029-05-17T03:12:49.9Z', sigmaSeconds: 0.05 },
+    });
+  });
+
+  it('ReportForm asks a positive report for its timings and sends nothing without them', async () => {
+    const calls = stubFetch(() => jsonResponse(201, { id: 'r7' }));
+    renderWithProviders(<ReportForm eventId="e1" stations={STATIONS} report={null} />);
+    await userEvent.setup().click(screen.getByRole('button', { name: 'Submit report' }));
+    expect(await screen.findByText('a positive report needs the disappearance')).toBeInTheDocument();
+    expect(screen.getByText('a positive report needs the reappearance')).toBeInTheDocument();
+    expect(calls).toHaveLength(0);
+  });
+
+  it('ReportForm sends a clouded-out report without any times', async () => {
+    const calls = stubFetch(() => jsonResponse(201, { id: 'r8' }));
+    renderWithProviders(<ReportForm eventId="e1" stations={STATIONS} report={null} />);
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('radio', { name: 'Clouded out' }));
+    expect(screen.queryByRole('textbox', { name: /Disappearance/ })).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Submit report' }));
+    await waitFor(() => expect(calls).toHaveLength(1));
+    expect(calls[0]?.body).toEqual({ stationId: 's1', result: 'clouded_out', notes: null });
+  });
+
+  it('ReportForm edits a submitted report with PATCH and leaves an accepted one read-only', async () => {
+    const calls = stubFetch(() => jsonResponse(200, {}));
+    const submitted = {
+      id: 'r3',
+      stationId: 's2',
+      result: 'negative' as const,
+      state: 'submitted',
+      observedFromUtc: '2029-05-17T03:10:00Z',
+      observedToUtc: '2029-05-17T03:15:00Z',
+    };
+    const { unmount } = renderWithProviders(
+      <ReportForm eventId="e1" stations={STATIONS} report={submitted} />,
+    );
+    await userEvent.setup().click(screen.getByRole('button', { name: 'Save changes' }));
+    await waitFor(() => expect(calls).toHaveLength(1));
+    expect(calls[0]?.method).toBe('PATCH');
+    expect(calls[0]?.url).toBe('/api/reports/r3');
+    unmount();
+    renderWithProviders(
+      <ReportForm eventId="e1" stations={STATIONS} report={{ ...submitted, state: 'accepted' }} />,
+    );
+    expect(screen.queryByRole('button', { name: 'Save changes' })).not.toBeInTheDocument();
+  });
+});
+
+describe('ReportsPanel', () => {
+  it('ReportsPanel lets a coordinator accept a report and refuses a rejection without a reason', async () => {
+    const calls = stubFetch((call) =>
+      call.method === 'POST'
+        ? jsonResponse(200, {})
+        : jsonResponse(200, [
+            {
+              id: 'r1',
+              stationId: 's2',
+              result: 'clouded_out',
+              state: 'submitted',
+              authorName: 'Wren Ashby',
+            },
+          ]),
+    );
+    renderWithProviders(<ReportsPanel eventId="e1" stations={STATIONS} ownStationIds={[]} canDecide />);
+    const user = userEvent.setup();
+    await user.click(await screen.findByRole('button', { name: 'Reject report of Wren Ashby' }));
+    await user.click(screen.getByRole('button', { name: 'Send rejection' }));
+    expect(
+      await screen.findByText('a reason is required so the observer knows what to fix'),
+    ).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Cancel' }));
+    await user.click(screen.getByRole('button', { name: 'Accept report of Wren Ashby' }));
+    await waitFor(() => expect(calls.map((c) => c.url)).toContain('/api/reports/r1/accept'));
+    expect(screen.queryByRole('button', { name: 'New report' })).not.toBeInTheDocument();
+  });
+});
