@@ -2,7 +2,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 
 import {
   evenTimes,
@@ -11,6 +11,7 @@ import {
   type SyntheticSetup,
 } from '../../../packages/geometry/test/lightcurve/synthetic.js';
 import { formatUtc, parseUtc, run, type TimingOutput } from '../src/commands/time.js';
+import { buildCliIfStale, runCli } from './built-cli.js';
 
 // Light curves of an invented event: station "Kestrel Ridge" watching an invented body occult an invented
 // star, written by the geometry package's independent synthetic generator (direct integration of the
@@ -85,6 +86,9 @@ function seconds(iso: string): number {
   if (typeof a === 'string' || typeof b === 'string') throw new Error('bad time');
   return a.unixSeconds - b.unixSeconds + (a.fractionSeconds - b.fractionSeconds);
 }
+
+// run() imports @limbus/geometry from its dist, so that must hold the current sources.
+beforeAll(() => buildCliIfStale(), 240_000);
 
 let stdout = '';
 let stderr = '';
@@ -287,6 +291,18 @@ describe('limbus time', () => {
         [...FLAGS, '--star-diameter-mas', '0.1'],
       );
     });
+  });
+});
+
+describe('./tools/limbus time (built, as a process)', () => {
+  it('runCli() prints the timing on stdout with exit 0, and exit 2 with nothing on stdout for a bad row', () => {
+    const good = runCli(['time', writeCsv(mainCsv), ...FLAGS]);
+    expect(good.code).toBe(0);
+    expect((JSON.parse(good.stdout) as TimingOutput).format).toBe('limbus-timing/1');
+    const bad = runCli(['time', writeCsv('time,flux\n2031-05-20T03:14:00Z,x\n'), ...FLAGS]);
+    expect(bad.code).toBe(2);
+    expect(bad.stdout).toBe('');
+    expect(bad.stderr).toContain('row 2, column flux: not a number: "x"');
   });
 });
 
