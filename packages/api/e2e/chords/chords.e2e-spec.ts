@@ -1,0 +1,134 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Chord } from '../../src/chords/entities/chord.entity';
+import { bootTestApp, type TestApp } from '../setup';
+import {
+  createWorkspace,
+  del,
+  exampleEvent,
+  importExample,
+  patch,
+  type Workspace,
+} from '../events/workspace';
+
+const HEADER =
+  'station,type,disappearance_utc,disappearance_sigma_s,reappearance_utc,reappearance_sigma_s,start_utc,end_utc,time_offset_s';
+
+describe('chord routes and the chord CSV import', () => {
+  let t: TestApp;
+  let w: Workspace;
+  let eventId: string;
+  let stationA: string;
+  let stationB: string;
+
+  beforeAll(async () => {
+    t = await bootTestApp();
+    w = await createWorkspace(t);
+    eventId = await importExample(t, w);
+    const stations = exampleEvent().stations as Array<{ id: string }>;
+    stationA = stations[0]?.id ?? '';
+    stationB = stations[1]?.id ?? '';
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  const count = () => t.orm.em.fork().count(Chord, { event: eventId });
+  const sendCsv = (csv: string, query = '') =>
+    t
+      .post(`/api/events/${eventId}/chords/import${query}`)
+      .set(w.auth('modeller'))
+      .attach('file', Buffer.from(csv), { filename: 'chords.csv', contentType: 'text/csv' });
+
+  it('POST /api/events/:eventId/chords/import with bad rows answers 400 per row and column, writing nothing', async () => {
+    const before = await count();
+    const csv = [
+      HEADER,
+      `${stationA},positive,2028-03-14T02:11:04Z,0.05,2028-03-14T02:11:20Z,0.05,,,`,
+      `${stationB},positive,2028-03-14T02:11:04Z,-1,2028-03-14T02:11:20Z,0.05,,,`,
+      `Nowhere,negative,,,,,2028-03-14T02:10:00Z,2028-03-14T02:13:00Z,`,
+      `${stationB},negative,,,,,2028-03-14 02:10,2028-03-14T02:13:00Z,`,
+    ].join('\n');
+    const response = await sendCsv(csv).expect(400);
+    const issues = (response.body as { issues: Array<{ row: number; column: string; message: string }> })
+      .issues;
+    expect(issues.map((i) => [i.row, i.column])).toEqual([
+      [3, 'disappearance_sigma_s'],
+      [4, 'station'],
+      [5, 'start_utc'],
+    ]);
+    expect(await count()).toBe(before);
+  });
+
+  it('POST /api/events/:eventId/chords/import?preview=1 returns the parsed rows and writes nothing', async () => {
+    const before = await count();
+    const csv = `${HEADER}\n${stationA},negative,,,,,2028-03-14T02:10:00Z,2028-03-14T02:13:00Z,0.2\n`;
+    const response = await sendCsv(csv, '?preview=1').expect(200);
+    expect((response.body as { chords: unknown[] }).chords).toEqual([
+      {
+        station: stationA,
+        type: 'negative',
+        start: '2028-03-14T02:10:00Z',
+        end: '2028-03-14T02:13:00Z',
+        timeOffsetSeconds: 0.2,
+      },
+    ]);
+    expect(await count()).toBe(before);
+  });
+
+  it('POST /api/events/:eventId/chords/import stores every good row', async () => {
+    const before = await count();
+    const csv = [
+      HEADER,
+      `${stationA},positive,2028-03-14T02:11:04Z,0.05,2028-03-14T02:11:20Z,0.05,,,`,
+      `${stationB},negative,,,,,2028-03-14T02:10:00Z,2028-03-14T02:13:00Z,`,
+    ].join('\r\n');
+    const response = await sendCsv(csv).expect(201);
+    expect((response.body as { ids: string[] }).ids).toHaveLength(2);
+    expect(await count()).toBe(before + 2);
+    const stored = await t.orm.em
+      .fork()
+      .findOneOrFail(Chord, { id: (response.body as { ids: string[] }).ids[0] ?? '' });
+    expect(stored.source).toBe('csv');
+    expect(stored.disappearance).toEqual({ time: '2028-03-14T02:11:04Z', sigmaSeconds: 0.05 });
+  });
+
+  it('POST, PATCH and DELETE on chords validate against the event file chord schema', async () => {
+    const created = await t
+      .post(`/api/events/${eventId}/chords`)
+      .set(w.auth('coordinator'))
+      .send({
+        station: stationA,
+        type: 'negative',
+        start: '2028-03-14T02:10:00Z',
+        end: '2028-03-14T02:12:00Z',
+      })
+      .expect(201);
+    const id = (created.body as { id: string }).id;
+    const bad = await patch(t, `/api/chords/${id}`)
+      .set(w.auth('modeller'))
+      .send({ end: '2028-03-14T02:09:00Z' })
+      .expect(400);
+    expect((bad.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path)).toEqual(['end']);
+    const good = await patch(t, `/api/chords/${id}`)
+      .set(w.auth('modeller'))
+      .send({ timeOffsetSeconds: 0.5 })
+      .expect(200);
+    expect((good.body as { timeOffsetSeconds: number; end: string }).timeOffsetSeconds).toBe(0.5);
+    await t
+      .post(`/api/events/${eventId}/chords`)
+      .set(w.auth('coordinator'))
+      .send({
+        station: 'Nowhere',
+        type: 'negative',
+        start: '2028-03-14T02:10:00Z',
+        end: '2028-03-14T02:12:00Z',
+      })
+      .expect(400);
+    await del(t, `/api/chords/${id}`).set(w.auth('observer')).expect(403);
+    await del(t, `/api/chords/${id}`).set(w.auth('outsider')).expect(404);
+    await del(t, `/api/chords/${id}`).set(w.auth('modeller')).expect(204);
+    expect(await t.orm.em.fork().count(Chord, { id })).toBe(0);
+    const list = await t.get(`/api/events/${eventId}/chords`).set(w.auth('observer')).expect(200);
+    expect(list.body).toHaveLength(await count());
+  });
+});

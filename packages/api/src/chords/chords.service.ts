@@ -1,0 +1,159 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { Injectable } from '@nestjs/common';
+import type { ChordInput } from '@limbus/geometry';
+import { chordPayloadSchema } from '@limbus/schema';
+import { AuditService } from '../audit/audit.service';
+import type { AuthUser } from '../auth/auth-user';
+import { NotFoundError, ValidationError } from '../common/domain-errors';
+import type { OccultationEvent } from '../events/entities/occultation-event.entity';
+import { applyChordInput, chordInput, chordRow } from '../events/event-rows';
+import { EventsService } from '../events/events.service';
+import { type ChordView, chordView } from '../events/views';
+import { Station } from '../stations/entities/station.entity';
+import { parseChordCsv, type ParsedChordRow } from './chord-csv';
+import { Chord } from './entities/chord.entity';
+
+export class CsvValidationError extends ValidationError {}
+
+@Injectable()
+export class ChordsService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly events: EventsService,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(eventId: string): Promise<ChordView[]> {
+    const event = await this.events.find(eventId);
+    const chords = await this.em.find(
+      Chord,
+      { event },
+      { populate: ['station'], orderBy: { position: 'asc', createdAt: 'asc', id: 'asc' } },
+    );
+    return chords.map(chordView);
+  }
+
+  private async stationByCode(event: OccultationEvent, code: string): Promise<Station> {
+    const station = await this.em.findOne(Station, { event, code });
+    if (!station)
+      throw new ValidationError([{ path: 'station', message: `unknown station "${code}" in this event` }]);
+    return station;
+  }
+
+  private async nextPosition(event: OccultationEvent): Promise<number> {
+    const last = await this.em.findOne(
+      Chord,
+      { event },
+      { orderBy: { position: 'desc' }, fields: ['position'] },
+    );
+    return (last?.position ?? -1) + 1;
+  }
+
+  async create(user: AuthUser, eventId: string, body: ChordInput): Promise<ChordView> {
+    const event = await this.events.find(eventId);
+    const station = await this.stationByCode(event, body.station);
+    const chord = chordRow(event, station, body, 'manual', await this.nextPosition(event));
+    this.em.persist(chord);
+    this.audit.record(this.em, {
+      teamId: event.team.id,
+      eventId,
+      actorId: user.id,
+      action: 'chord.create',
+      objectType: 'chord',
+      objectId: chord.id,
+      detail: { station: station.code, type: chord.type },
+    });
+    await this.em.flush();
+    return chordView(chord);
+  }
+
+  private async find(chordId: string): Promise<Chord> {
+    const chord = await this.em.findOne(
+      Chord,
+      { id: chordId, event: { state: 'active' } },
+      { populate: ['station', 'event', 'event.team'] },
+    );
+    if (!chord) throw new NotFoundError();
+    return chord;
+  }
+
+  /** The body's fields over the stored chord; a change of type starts from the body alone. */
+  async update(user: AuthUser, chordId: string, body: Record<string, unknown>): Promise<ChordView> {
+    const chord = await this.find(chordId);
+    const base = body.type === undefined || body.type === chord.type ? chordInput(chord) : {};
+    const parsed = chordPayloadSchema.safeParse({ ...base, ...body });
+    if (!parsed.success)
+      throw new ValidationError(
+        parsed.error.issues.map((i) => ({
+          path: i.path.map(String).join('.') || '(body)',
+          message: i.message,
+        })),
+      );
+    const station = await this.stationByCode(chord.event, parsed.data.station);
+    applyChordInput(chord, station, parsed.data);
+    this.audit.record(this.em, {
+      teamId: chord.event.team.id,
+      eventId: chord.event.id,
+      actorId: user.id,
+      action: 'chord.update',
+      objectType: 'chord',
+      objectId: chord.id,
+      detail: { fields: Object.keys(body) },
+    });
+    await this.em.flush();
+    return chordView(chord);
+  }
+
+  async remove(user: AuthUser, chordId: string): Promise<void> {
+    const chord = await this.find(chordId);
+    this.audit.record(this.em, {
+      teamId: chord.event.team.id,
+      eventId: chord.event.id,
+      actorId: user.id,
+      action: 'chord.delete',
+      objectType: 'chord',
+      objectId: chord.id,
+      detail: { chord: chordInput(chord) },
+    });
+    this.em.remove(chord);
+    await this.em.flush();
+  }
+
+  /** All rows or none: any bad row answers 400 listing every bad row, and nothing is written. */
+  async importCsv(
+    user: AuthUser,
+    eventId: string,
+    text: string | undefined,
+    preview: boolean,
+  ): Promise<{ chords: ChordInput[]; ids: string[] }> {
+    if (text === undefined)
+      throw new ValidationError([{ path: 'file', message: 'missing; send the CSV as field "file"' }]);
+    const event = await this.events.find(eventId);
+    const stations = await this.em.find(Station, { event });
+    const byCode = new Map(stations.map((s) => [s.code, s]));
+    const parsed = parseChordCsv(text, new Set(byCode.keys()));
+    if (!parsed.ok) throw new CsvValidationError(parsed.problems);
+    const chords = parsed.rows.map((r: ParsedChordRow) => r.chord);
+    if (preview) return { chords, ids: [] };
+    return this.em.transactional(async (em) => {
+      let position = await this.nextPosition(event);
+      const rows = chords.map((c) => {
+        const station = byCode.get(c.station);
+        if (!station) throw new Error(`station ${c.station} vanished during the import`);
+        return chordRow(event, station, c, 'csv', position++);
+      });
+      em.persist(rows);
+      this.audit.record(em, {
+        teamId: event.team.id,
+        eventId,
+        actorId: user.id,
+        action: 'chord.import',
+        objectType: 'event',
+        objectId: eventId,
+        detail: { chords: rows.length },
+      });
+      await em.flush();
+      return { chords, ids: rows.map((r) => r.id) };
+    });
+  }
+}
