@@ -4,6 +4,7 @@ import { LoggerModule } from 'nestjs-pino';
 import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { ChordsModule } from './chords/chords.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
 import { HttpErrorFilter } from './common/http-error.filter';
 import { AppConfig } from './config/app-config';
@@ -18,6 +19,8 @@ import { MailModule } from './mail/mail.module';
 import { QueueModule } from './queue/queue.module';
 import { RedisModule } from './redis/redis.module';
 import { StorageModule } from './storage/storage.module';
+import { ReportsModule } from './reports/reports.module';
+import { StationsModule } from './stations/stations.module';
 import { RolesGuard } from './teams/roles.guard';
 import { TeamsModule } from './teams/teams.module';
 import { TimingsModule } from './timings/timings.module';
@@ -59,6 +62,9 @@ export class AppModule {
         EventsModule,
         AuditModule,
         FitsModule,
+        StationsModule,
+        ChordsModule,
+        ReportsModule,
         TimingsModule,
         DynamicsModule,
       ],
