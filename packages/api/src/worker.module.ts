@@ -1,5 +1,6 @@
 import { DynamicModule, Module } from '@nestjs/common';
 import { coreImports } from './app.module';
+import { ComparisonsWorkerModule } from './comparisons/comparisons-worker.module';
 import type { AppConfig } from './config/app-config';
 import { FitsWorkerModule } from './fits/fits-worker.module';
 import { StorageModule } from './storage/storage.module';
@@ -11,7 +12,13 @@ export class WorkerModule {
   static register(config: AppConfig): DynamicModule {
     return {
       module: WorkerModule,
-      imports: [...(coreImports(config) ?? []), StorageModule, FitsWorkerModule, TimingsWorkerModule],
+      imports: [
+        ...(coreImports(config) ?? []),
+        StorageModule,
+        FitsWorkerModule,
+        TimingsWorkerModule,
+        ComparisonsWorkerModule,
+      ],
     };
   }
 }

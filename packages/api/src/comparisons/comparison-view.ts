@@ -1,0 +1,93 @@
+// One row per fit for the comparison table and plots: every limb and ring parameter with its 1-sigma,
+// against the event's date. Chords are left out; the overlay draws ellipses from their parameters.
+import type { EventInput, Solution } from '@limbus/geometry';
+import type { ReviewState } from '../fits/entities/fit-run.entity';
+
+export interface ValueSigma {
+  value: number;
+  sigma: number;
+}
+
+export interface ComparisonLimb {
+  centerFKm: ValueSigma;
+  centerGKm: ValueSigma;
+  equatorialRadiusKm: ValueSigma;
+  oblateness: ValueSigma;
+  positionAngleDeg: ValueSigma;
+  equivalentRadiusKm: ValueSigma;
+  chi2: number;
+  dof: number;
+}
+
+export interface ComparisonRing {
+  ring: string;
+  radiusKm: ValueSigma;
+  openingAngleDeg: ValueSigma;
+  positionAngleDeg: ValueSigma;
+  poles: Array<{ raDeg: number; decDeg: number }>;
+}
+
+export interface ComparisonFit {
+  fitId: string;
+  eventId: string;
+  eventTitle: string;
+  /** The astrometry reference time, else the earliest timing in the event (ISO UTC). */
+  eventDateUtc: string | null;
+  reviewState: ReviewState;
+  finishedAt: string | null;
+  limb: ComparisonLimb | null;
+  rings: ComparisonRing[];
+}
+
+export interface ComparisonView {
+  teamId: string;
+  selection: 'approved' | 'all';
+  ringLabels: string[];
+  fits: ComparisonFit[];
+}
+
+function earliestTimingUtc(event: EventInput): string | null {
+  const times: string[] = [];
+  for (const c of event.chords) times.push(c.type === 'positive' ? c.disappearance.time : c.start);
+  for (const r of event.ringEvents) times.push(r.start.time);
+  // ISO 8601 UTC strings with Z sort as text in time order.
+  return times.sort()[0] ?? null;
+}
+
+export function comparisonFit(
+  fit: { id: string; reviewState: ReviewState; finishedAt: Date | null },
+  eventRow: { id: string; title: string },
+  event: EventInput,
+  solution: Solution,
+): ComparisonFit {
+  const limb = solution.limb;
+  const u = limb?.uncertainty;
+  return {
+    fitId: fit.id,
+    eventId: eventRow.id,
+    eventTitle: eventRow.title,
+    eventDateUtc: solution.astrometry?.referenceTimeUtc ?? earliestTimingUtc(event),
+    reviewState: fit.reviewState,
+    finishedAt: fit.finishedAt?.toISOString() ?? null,
+    limb:
+      limb === null || u === undefined
+        ? null
+        : {
+            centerFKm: { value: limb.centerFKm, sigma: u.centerFKm },
+            centerGKm: { value: limb.centerGKm, sigma: u.centerGKm },
+            equatorialRadiusKm: { value: limb.equatorialRadiusKm, sigma: u.equatorialRadiusKm },
+            oblateness: { value: limb.oblateness, sigma: u.oblateness },
+            positionAngleDeg: { value: limb.positionAngleDeg, sigma: u.positionAngleDeg },
+            equivalentRadiusKm: { value: limb.equivalentRadiusKm, sigma: u.equivalentRadiusKm },
+            chi2: limb.chi2,
+            dof: limb.dof,
+          },
+    rings: solution.rings.map((r) => ({
+      ring: r.ring,
+      radiusKm: { value: r.radiusKm, sigma: r.uncertainty.radiusKm },
+      openingAngleDeg: { value: r.openingAngleDeg, sigma: r.uncertainty.openingAngleDeg },
+      positionAngleDeg: { value: r.positionAngleDeg, sigma: r.uncertainty.positionAngleDeg },
+      poles: r.poles.map((p) => ({ raDeg: p.raDeg, decDeg: p.decDeg })),
+    })),
+  };
+}
