@@ -4,6 +4,7 @@
 // (Press et al., Numerical Recipes, 3rd ed., §10.2) rather than trusting derivatives.
 
 const GOLDEN = (3 - Math.sqrt(5)) / 2;
+const PARABOLA_ROUNDS = 1;
 
 export interface Minimum1d {
   x: number;
@@ -116,7 +117,8 @@ export function minimizeAlternating(
  * Distance from the minimum x* at which the profile g rises to g(x*) + 1 in the direction `direction`
  * (+1 or −1). Stops at `limit` (the data's end) and returns the distance to it if g never rises that far.
  * Beyond the first crossing it scans `lookFurther` more for a further stretch below g(x*) + 1 and, if it
- * finds one, returns the outer crossing of that.
+ * finds one, returns the outer crossing of that. The scan may use a cheaper `screen` that is never below g
+ * (χ² with the profiled-out parameters held, rather than re-minimised): where it is under the target, g is.
  */
 export function profileHalfWidth(
   g: (x: number) => number,
@@ -127,32 +129,59 @@ export function profileHalfWidth(
   limit: number,
   tolerance: number,
   lookFurther = 0,
+  screen: (x: number) => number = g,
 ): number {
   const target = gStar + 1;
   const maxDistance = Math.abs(limit - xStar);
+  const excess = (d: number): number => g(xStar + direction * d) - target;
   let inside = 0;
+  let excessInside = gStar - target;
   let step = Math.min(firstStep, maxDistance);
-  while (g(xStar + direction * step) < target) {
+  let excessStep = excess(step);
+  while (excessStep < 0) {
     inside = step;
+    excessInside = excessStep;
     if (step >= maxDistance) return maxDistance;
     step = Math.min(2 * step, maxDistance);
+    excessStep = excess(step);
   }
   let outside = step;
+  let excessOutside = excessStep;
+  // Illinois (modified regula falsi): the profile is nearly quadratic, so a few secant steps find the
+  // crossing where bisection would take a dozen evaluations of a re-minimised χ².
   const bisect = (): void => {
-    while (outside - inside > tolerance) {
-      const mid = (inside + outside) / 2;
-      if (g(xStar + direction * mid) < target) inside = mid;
-      else outside = mid;
+    let kept = 0;
+    for (let k = 0; k < 60 && outside - inside > tolerance; k++) {
+      let mid = (inside * excessOutside - outside * excessInside) / (excessOutside - excessInside);
+      if (!(mid > inside && mid < outside)) mid = (inside + outside) / 2;
+      const e = excess(mid);
+      if (Math.abs(e) < 1e-9) {
+        inside = mid;
+        outside = mid;
+        return;
+      }
+      if (e < 0) {
+        inside = mid;
+        excessInside = e;
+        if (kept === -1) excessOutside /= 2;
+        kept = -1;
+      } else {
+        outside = mid;
+        excessOutside = e;
+        if (kept === 1) excessInside /= 2;
+        kept = 1;
+      }
     }
   };
   bisect();
+  const firstCrossing = (inside + outside) / 2;
   // A fringe or a dead gap between exposures can make χ² dip below the target again further out; the
   // half-width is that of the whole region below it, so look on for another lobe.
   if (lookFurther > 0) {
     const scanStep = Math.max(lookFurther / 32, tolerance);
     let last = outside;
     for (let d = outside + scanStep; d <= Math.min(maxDistance, outside + lookFurther); d += scanStep) {
-      if (g(xStar + direction * d) < target) {
+      if (screen(xStar + direction * d) < target) {
         last = d;
       } else if (last > outside) {
         break;
@@ -160,8 +189,12 @@ export function profileHalfWidth(
     }
     if (last > outside) {
       inside = last;
+      excessInside = excess(last);
       outside = Math.min(maxDistance, last + scanStep);
-      if (g(xStar + direction * outside) < target) return outside;
+      excessOutside = excess(outside);
+      if (excessOutside < 0) return outside;
+      // The screen is an upper bound only up to the inner minimiser's accuracy; trust the profile itself.
+      if (excessInside >= 0) return firstCrossing;
       bisect();
     }
   }
@@ -169,7 +202,7 @@ export function profileHalfWidth(
 }
 
 /**
- * Two rounds of a three-point parabola around a warm start, keeping the lowest point evaluated. For a
+ * PARABOLA_ROUNDS rounds of a three-point parabola around a warm start, keeping the lowest point seen. For a
  * minimum already known to lie within a few steps of the start; where the stencil is not convex the
  * round keeps its best node.
  */
@@ -183,7 +216,7 @@ export function parabolicMinimum(
   const x0Start = clampX(start);
   let best: Minimum1d = { x: x0Start, fx: f(x0Start) };
   let h = step;
-  for (let round = 0; round < 2; round++) {
+  for (let round = 0; round < PARABOLA_ROUNDS; round++) {
     const x0 = best.x;
     const f0 = best.fx;
     const xm = x0 - h;

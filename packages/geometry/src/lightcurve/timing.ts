@@ -165,12 +165,15 @@ function fitEdgePair(
   bounds: { lo: number; hi: number },
   firstStepSeconds: number,
   lookFurtherSeconds: number,
+  startIsMinimum = false,
 ): EdgePairFit {
-  const best = minimizeAlternating(chi2, t1Start, t2Start, {
-    span: spanSeconds,
-    tolerance: TIME_TOLERANCE_SECONDS,
-    bounds,
-  });
+  const best = startIsMinimum
+    ? { x: t1Start, y: t2Start, fxy: chi2(t1Start, t2Start) }
+    : minimizeAlternating(chi2, t1Start, t2Start, {
+        span: spanSeconds,
+        tolerance: TIME_TOLERANCE_SECONDS,
+        bounds,
+      });
   // The inner minimisation may find a slightly lower χ² than the outer one did; the lowest seen is the minimum.
   let chi2Min = best.fxy;
   // The other time barely moves as one is profiled (it is coupled only through the levels, or through
@@ -192,19 +195,39 @@ function fitEdgePair(
   profile1(best.x);
   profile2(best.y);
   const tol = Math.max(TIME_TOLERANCE_SECONDS, firstStepSeconds * 1e-3);
-  const halfWidths = (g: (t: number) => number, t: number): number => {
+  const halfWidths = (g: (t: number) => number, screen: (t: number) => number, t: number): number => {
     warm1 = best.x;
     warm2 = best.y;
-    const up = profileHalfWidth(g, t, chi2Min, 1, firstStepSeconds, bounds.hi, tol, lookFurtherSeconds);
-    const down = profileHalfWidth(g, t, chi2Min, -1, firstStepSeconds, bounds.lo, tol, lookFurtherSeconds);
+    const up = profileHalfWidth(
+      g,
+      t,
+      chi2Min,
+      1,
+      firstStepSeconds,
+      bounds.hi,
+      tol,
+      lookFurtherSeconds,
+      screen,
+    );
+    const down = profileHalfWidth(
+      g,
+      t,
+      chi2Min,
+      -1,
+      firstStepSeconds,
+      bounds.lo,
+      tol,
+      lookFurtherSeconds,
+      screen,
+    );
     return (up + down) / 2;
   };
   return {
     t1: best.x,
     t2: best.y,
     chi2: chi2Min,
-    sigma1: halfWidths(profile1, best.x),
-    sigma2: halfWidths(profile2, best.y),
+    sigma1: halfWidths(profile1, (t1) => chi2(t1, best.y), best.x),
+    sigma2: halfWidths(profile2, (t2) => chi2(best.x, t2), best.y),
   };
 }
 
@@ -309,7 +332,18 @@ export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit 
     t1Start = first.x;
     t2Start = first.y;
   }
-  const edges = fitEdgePair(chi2Of(series), t1Start, t2Start, span, bounds, firstStep, span / 2);
+  // Uniform weights rescaled by one factor leave the minimum where the first pass found it.
+  const startIsMinimum = input.fluxErr === undefined && restart === undefined;
+  const edges = fitEdgePair(
+    chi2Of(series),
+    t1Start,
+    t2Start,
+    span,
+    bounds,
+    firstStep,
+    span / 2,
+    startIsMinimum,
+  );
   const levels = solveLevels(model.sums(edges.t1, edges.t2, series, 0, n), series.wyyTotal, input.bottom);
   const modelFlux = new Float64Array(n);
   for (let i = 0; i < n; i++) {
