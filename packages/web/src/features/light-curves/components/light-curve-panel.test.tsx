@@ -1,0 +1,85 @@
+import { screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { LightCurvePanel } from './light-curve-panel';
+import { TEST_TIMING } from './test-timing';
+import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-utils';
+
+afterEach(() => vi.unstubAllGlobals());
+
+const { result: _result, ...SUMMARY } = TEST_TIMING;
+
+function api() {
+  return stubFetch((call) => {
+    if (call.url === '/api/events/e1/reports/r1/timings' && call.method === 'GET')
+      return jsonResponse(200, [SUMMARY]);
+    if (call.url === '/api/events/e1/timings/tm1' && call.method === 'GET')
+      return jsonResponse(200, TEST_TIMING);
+    if (call.url === '/api/events/e1/timings/tm1/accept') return jsonResponse(200, { chordId: 'c1' });
+    if (call.url === '/api/events/e1/timings/tm1/ring-events')
+      return jsonResponse(201, { ringEventIds: ['re1'] });
+    if (call.url === '/api/events/e1/reports/r1/timings')
+      return jsonResponse(202, { ...SUMMARY, id: 'tm2', state: 'queued' });
+    return jsonResponse(404, { message: 'unexpected' });
+  });
+}
+
+describe('LightCurvePanel', () => {
+  it('LightCurvePanel shows the newest timing with its times and 1σ, and accepts it into the chord', async () => {
+    const calls = api();
+    const user = userEvent.setup();
+    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    await screen.findByRole('img', { name: /^Light curve of quillmoor/ });
+    const table = screen.getByRole('table', { name: 'Fitted times' });
+    expect(table).toHaveTextContent('2028-03-14T02:13:48.000250Z');
+    expect(table).toHaveTextContent('± 0.1200');
+    expect(table).toHaveTextContent('Dip 1 start');
+    await user.click(screen.getByRole('button', { name: 'Accept timing into chord' }));
+    expect(await screen.findByText('Accepted into the chord.')).toBeInTheDocument();
+    expect(calls.some((c) => c.url === '/api/events/e1/timings/tm1/accept' && c.method === 'POST')).toBe(
+      true,
+    );
+  });
+
+  it('LightCurvePanel turns the dips into ring events under the ring name given', async () => {
+    const calls = api();
+    const user = userEvent.setup();
+    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    await screen.findByRole('img', { name: /^Light curve/ });
+    const ring = screen.getByRole('textbox', { name: 'Ring name' });
+    await user.clear(ring);
+    await user.click(screen.getByRole('button', { name: 'Dips to ring events' }));
+    expect(await screen.findByText('ring name must not be empty')).toBeInTheDocument();
+    await user.type(ring, 'R2');
+    await user.click(screen.getByRole('button', { name: 'Dips to ring events' }));
+    await screen.findByText('Ring events made from these dips.');
+    expect(calls.find((c) => c.url.endsWith('/ring-events'))?.body).toEqual({ ring: 'R2' });
+  });
+
+  it('LightCurvePanel names the bad field of a new timing and of a hand-marked dip before sending', async () => {
+    const calls = api();
+    const user = userEvent.setup();
+    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    await screen.findByRole('img', { name: /^Light curve/ });
+    await user.type(screen.getByRole('textbox', { name: 'Shadow speed (km/s)' }), '-3');
+    await user.type(screen.getByRole('textbox', { name: 'Distance (km)' }), '6e9');
+    await user.type(screen.getByRole('textbox', { name: 'Exposure (s)' }), '0.1');
+    await user.click(screen.getByRole('button', { name: 'Time light curve' }));
+    expect(await screen.findByText('speedKmPerS must be greater than zero')).toBeInTheDocument();
+    await user.type(screen.getByRole('textbox', { name: 'Dip start (UTC)' }), '2028-03-14T02:13:57Z');
+    await user.type(screen.getByRole('textbox', { name: 'Dip end (UTC)' }), 'soon');
+    await user.click(screen.getByRole('button', { name: 'Mark dip' }));
+    expect(await screen.findByText(/^enter a UTC time such as 2028-03-14T02:14:31.0Z/)).toBeInTheDocument();
+    expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
+  });
+
+  it('LightCurvePanel for a reader shows the plot without the actions', async () => {
+    api();
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit={false} />,
+    );
+    await screen.findByRole('img', { name: /^Light curve/ });
+    expect(screen.queryByRole('button', { name: 'Accept timing into chord' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Time this light curve' })).not.toBeInTheDocument();
+  });
+});

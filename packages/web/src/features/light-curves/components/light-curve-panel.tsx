@@ -1,0 +1,301 @@
+import {
+  Button,
+  Field,
+  Input,
+  makeStyles,
+  Radio,
+  RadioGroup,
+  Select,
+  Subtitle2,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  tokens,
+} from '@fluentui/react-components';
+import { useEffect, useState, type FormEvent } from 'react';
+import { useAcceptTiming } from '../api/accept-timing';
+import { createTimingInputSchema, useCreateTiming } from '../api/create-timing';
+import { ringNameSchema, useDipsToRingEvents } from '../api/dips-to-ring-events';
+import { useTiming } from '../api/get-timing';
+import { useTimings } from '../api/get-timings';
+import { useMarkDip } from '../api/mark-dip';
+import type { TimingDetail, TimingResult } from '../api/timing-schema';
+import { LightCurvePlot } from './light-curve-plot';
+import { FormError } from '@/components/form-error';
+import {
+  errorMessage,
+  fieldErrorsFromApi,
+  fieldErrorsFromZod,
+  type FieldErrors,
+} from '@/components/form-errors';
+import { Loading, RequestFailed } from '@/components/request-state';
+
+const useStyles = makeStyles({
+  panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+  row: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'end' },
+});
+
+export interface LightCurvePanelProps {
+  eventId: string;
+  reportId: string;
+  stationLabel: string;
+  /** Coordinators and modellers may queue, accept and mark; everyone else reads. */
+  canEdit: boolean;
+}
+
+const numberOf = (text: string) => (text.trim() === '' ? Number.NaN : Number(text));
+
+function TimingForm({
+  eventId,
+  reportId,
+  onQueued,
+}: {
+  eventId: string;
+  reportId: string;
+  onQueued: (id: string) => void;
+}) {
+  const styles = useStyles();
+  const [speed, setSpeed] = useState('');
+  const [distance, setDistance] = useState('');
+  const [exposure, setExposure] = useState('');
+  const [bottom, setBottom] = useState<'free' | 'zero'>('free');
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const create = useCreateTiming(eventId, reportId, onQueued);
+  const onSubmit = (event: FormEvent) => {
+    event.preventDefault();
+    const parsed = createTimingInputSchema.safeParse({
+      speedKmPerS: numberOf(speed),
+      distanceKm: numberOf(distance),
+      exposureSeconds: numberOf(exposure),
+      bottom,
+    });
+    if (!parsed.success) {
+      setErrors(fieldErrorsFromZod(parsed.error));
+      return;
+    }
+    setErrors({});
+    create.mutate(parsed.data, { onError: (error) => setErrors(fieldErrorsFromApi(error)) });
+  };
+  return (
+    <form aria-label="Time this light curve" onSubmit={onSubmit} noValidate>
+      <div className={styles.row}>
+        <Field label="Shadow speed (km/s)" validationMessage={errors.speedKmPerS}>
+          <Input value={speed} onChange={(_, d) => setSpeed(d.value)} inputMode="decimal" />
+        </Field>
+        <Field label="Distance (km)" validationMessage={errors.distanceKm}>
+          <Input value={distance} onChange={(_, d) => setDistance(d.value)} inputMode="decimal" />
+        </Field>
+        <Field label="Exposure (s)" validationMessage={errors.exposureSeconds}>
+          <Input value={exposure} onChange={(_, d) => setExposure(d.value)} inputMode="decimal" />
+        </Field>
+        <Field label="Bottom of the well">
+          <RadioGroup
+            layout="horizontal"
+            value={bottom}
+            onChange={(_, d) => setBottom(d.value === 'zero' ? 'zero' : 'free')}
+          >
+            <Radio value="free" label="fitted" />
+            <Radio value="zero" label="zero flux" />
+          </RadioGroup>
+        </Field>
+        <Button type="submit" appearance="primary" disabled={create.isPending}>
+          Time light curve
+        </Button>
+      </div>
+      {create.isError && Object.keys(fieldErrorsFromApi(create.error)).length === 0 && (
+        <FormError title="Could not queue the timing" message={errorMessage(create.error)} />
+      )}
+    </form>
+  );
+}
+
+function TimesTable({ result }: { result: TimingResult }) {
+  const rows = [
+    { label: 'Disappearance', mark: result.disappearance },
+    { label: 'Reappearance', mark: result.reappearance },
+    ...result.dips.flatMap((d, k) => [
+      { label: `Dip ${k + 1} start${d.marked ? ' (marked)' : ''}`, mark: d.start },
+      { label: `Dip ${k + 1} end${d.marked ? ' (marked)' : ''}`, mark: d.end },
+    ]),
+  ];
+  return (
+    <Table aria-label="Fitted times" size="small">
+      <TableHeader>
+        <TableRow>
+          <TableHeaderCell>Edge</TableHeaderCell>
+          <TableHeaderCell>Time (UTC)</TableHeaderCell>
+          <TableHeaderCell>1σ (s)</TableHeaderCell>
+        </TableRow>
+      </TableHeader>
+      <TableBody>
+        {rows.map((r) => (
+          <TableRow key={r.label}>
+            <TableCell>{r.label}</TableCell>
+            <TableCell>{r.mark?.time ?? 'not found'}</TableCell>
+            <TableCell>{r.mark ? `± ${r.mark.sigmaSeconds.toFixed(4)}` : ''}</TableCell>
+          </TableRow>
+        ))}
+      </TableBody>
+    </Table>
+  );
+}
+
+function TimingActions({
+  eventId,
+  reportId,
+  timing,
+  onQueued,
+}: {
+  eventId: string;
+  reportId: string;
+  timing: TimingDetail;
+  onQueued: (id: string) => void;
+}) {
+  const styles = useStyles();
+  const accept = useAcceptTiming(eventId, timing.id);
+  const toRings = useDipsToRingEvents(eventId, timing.id);
+  const mark = useMarkDip(eventId, reportId, timing.id, onQueued);
+  const [ring, setRing] = useState('R1');
+  const [ringError, setRingError] = useState<string | undefined>();
+  const [dipStart, setDipStart] = useState('');
+  const [dipEnd, setDipEnd] = useState('');
+  const [dipErrors, setDipErrors] = useState<FieldErrors>({});
+  const result = timing.result;
+  const canAccept = result?.disappearance != null && result.reappearance != null;
+
+  const onRings = () => {
+    const parsed = ringNameSchema.safeParse(ring);
+    if (!parsed.success) {
+      setRingError(parsed.error.issues[0]?.message);
+      return;
+    }
+    setRingError(undefined);
+    toRings.mutate(parsed.data);
+  };
+  const onMark = (event: FormEvent) => {
+    event.preventDefault();
+    const next: FieldErrors = {};
+    const utc = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?Z$/;
+    if (!utc.test(dipStart.trim())) next.startUtc = 'enter a UTC time such as 2028-03-14T02:14:30.5Z';
+    if (!utc.test(dipEnd.trim())) next.endUtc = 'enter a UTC time such as 2028-03-14T02:14:31.0Z';
+    if (Object.keys(next).length === 0 && Date.parse(dipEnd) <= Date.parse(dipStart))
+      next.endUtc = 'must be after the start';
+    setDipErrors(next);
+    if (Object.keys(next).length > 0) return;
+    mark.mutate(
+      { startUtc: dipStart.trim(), endUtc: dipEnd.trim() },
+      { onError: (error) => setDipErrors(fieldErrorsFromApi(error)) },
+    );
+  };
+
+  return (
+    <div className={styles.panel}>
+      <div className={styles.row}>
+        <Button
+          appearance="primary"
+          disabled={!canAccept || accept.isPending}
+          onClick={() => accept.mutate()}
+        >
+          Accept timing into chord
+        </Button>
+        {(timing.acceptedAt !== null || accept.isSuccess) && (
+          <span role="status">Accepted into the chord.</span>
+        )}
+      </div>
+      {accept.isError && (
+        <FormError title="Could not accept the timing" message={errorMessage(accept.error)} />
+      )}
+      <div className={styles.row}>
+        <Field label="Ring name" validationMessage={ringError}>
+          <Input value={ring} onChange={(_, d) => setRing(d.value)} />
+        </Field>
+        <Button
+          disabled={
+            (result?.dips.length ?? 0) === 0 || timing.ringEventsCreatedAt !== null || toRings.isPending
+          }
+          onClick={onRings}
+        >
+          Dips to ring events
+        </Button>
+        {(timing.ringEventsCreatedAt !== null || toRings.isSuccess) && (
+          <span role="status">Ring events made from these dips.</span>
+        )}
+      </div>
+      {toRings.isError && (
+        <FormError title="Could not make ring events" message={errorMessage(toRings.error)} />
+      )}
+      <form aria-label="Mark a dip by hand" onSubmit={onMark} noValidate>
+        <div className={styles.row}>
+          <Field label="Dip start (UTC)" validationMessage={dipErrors.startUtc}>
+            <Input value={dipStart} onChange={(_, d) => setDipStart(d.value)} />
+          </Field>
+          <Field label="Dip end (UTC)" validationMessage={dipErrors.endUtc}>
+            <Input value={dipEnd} onChange={(_, d) => setDipEnd(d.value)} />
+          </Field>
+          <Button type="submit" disabled={mark.isPending}>
+            Mark dip
+          </Button>
+        </div>
+      </form>
+    </div>
+  );
+}
+
+/** One report's light curve: queue a timing, see it drawn with its times, and act on it. */
+export function LightCurvePanel({ eventId, reportId, stationLabel, canEdit }: LightCurvePanelProps) {
+  const styles = useStyles();
+  const timings = useTimings(eventId, reportId);
+  const [selected, setSelected] = useState<string | null>(null);
+  const newest = timings.data?.[0]?.id ?? null;
+  useEffect(() => {
+    if (selected === null && newest !== null) setSelected(newest);
+  }, [selected, newest]);
+  const timing = useTiming(eventId, selected);
+
+  return (
+    <section className={styles.panel} aria-label={`Light curve of ${stationLabel}`}>
+      <Subtitle2 as="h3">Light curve of {stationLabel}</Subtitle2>
+      {canEdit && <TimingForm eventId={eventId} reportId={reportId} onQueued={setSelected} />}
+      {timings.isPending && <Loading label="Loading timings" />}
+      {timings.isError && (
+        <RequestFailed what="the timings" error={timings.error} onRetry={() => void timings.refetch()} />
+      )}
+      {timings.data !== undefined && timings.data.length > 1 && (
+        <Field label="Timing run">
+          <Select value={selected ?? ''} onChange={(_, d) => setSelected(d.value)}>
+            {timings.data.map((t) => (
+              <option key={t.id} value={t.id}>
+                {t.createdAt} ({t.state}
+                {t.options.markedDips.length > 0 ? `, ${t.options.markedDips.length} marked dips` : ''})
+              </option>
+            ))}
+          </Select>
+        </Field>
+      )}
+      {timings.data?.length === 0 && <p>No timing of this light curve yet.</p>}
+      {timing.data && (timing.data.state === 'queued' || timing.data.state === 'running') && (
+        <Loading label={`Timing ${timing.data.state}`} />
+      )}
+      {timing.data?.state === 'failed' && (
+        <FormError title="The timing failed" message={timing.data.error ?? 'no reason given'} />
+      )}
+      {timing.data?.result && (
+        <>
+          <LightCurvePlot result={timing.data.result} stationLabel={stationLabel} />
+          <TimesTable result={timing.data.result} />
+          {canEdit && (
+            <TimingActions
+              eventId={eventId}
+              reportId={reportId}
+              timing={timing.data}
+              onQueued={setSelected}
+            />
+          )}
+        </>
+      )}
+    </section>
+  );
+}
