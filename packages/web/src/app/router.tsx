@@ -19,6 +19,11 @@ export const routes: RouteObject[] = [
     children: [
       { index: true, element: <Navigate to={paths.events} replace /> },
       { path: paths.events, element: <EventsRoute /> },
+      {
+        path: '/events/:eventId',
+        // The desk (DataGrid, forms, and D3 behind it) loads on first visit, not with the sign-in page.
+        lazy: () => import('./routes/event').then((m) => ({ Component: m.EventRoute })),
+      },
       { path: paths.adminOutbox, element: <AdminOutboxRoute /> },
       {
         path: paths.plotsPreview,

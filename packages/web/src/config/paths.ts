@@ -5,6 +5,7 @@ export const paths = {
   resetPassword: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
   invitation: (token: string) => `/invitations/${encodeURIComponent(token)}`,
   events: '/events',
+  event: (eventId: string) => `/events/${encodeURIComponent(eventId)}`,
   adminOutbox: '/admin/outbox',
   plotsPreview: '/plots/preview',
 } as const;

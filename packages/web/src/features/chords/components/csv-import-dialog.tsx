@@ -130,9 +130,9 @@ export function CsvImportDialog({ eventId }: { eventId: string }) {
           <DialogTitle>Import chords from CSV</DialogTitle>
           <DialogContent className={styles.content}>
             <Body1 as="p">
-              Nothing is written until the whole file passes the checks. Columns: station, type,
-              disappearance, disappearanceSigmaSeconds, reappearance, reappearanceSigmaSeconds, start, end,
-              timeOffsetSeconds.
+              Nothing is written until the whole file passes the checks. A header row names the columns, in
+              any order: station, type, disappearance_utc, disappearance_sigma_s, reappearance_utc,
+              reappearance_sigma_s, start_utc, end_utc, time_offset_s.
             </Body1>
             <Field label="CSV file" validationMessage={fileError}>
               {(fieldProps) => (

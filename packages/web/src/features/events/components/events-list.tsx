@@ -12,6 +12,8 @@ import {
 } from '@fluentui/react-components';
 import { useEvents } from '../api/get-events';
 import { Loading, RequestFailed } from '@/components/request-state';
+import { RouterLink } from '@/components/router-link';
+import { paths } from '@/config/paths';
 
 // Fluent's text components are inline; the page reads top to bottom.
 const useStyles = makeStyles({
@@ -47,7 +49,9 @@ export function EventsList({ teamId, teamName }: { teamId: string | null; teamNa
           <TableBody>
             {mine.map((event) => (
               <TableRow key={event.id}>
-                <TableCell>{event.title}</TableCell>
+                <TableCell>
+                  <RouterLink to={paths.event(event.id)}>{event.title}</RouterLink>
+                </TableCell>
                 <TableCell>{event.eventDate?.slice(0, 10) ?? '—'}</TableCell>
                 <TableCell>{event.counts?.stations ?? '—'}</TableCell>
                 <TableCell>{event.counts?.chords ?? '—'}</TableCell>

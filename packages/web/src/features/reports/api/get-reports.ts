@@ -19,7 +19,7 @@ export const reportSchema = z.object({
   notes: z.string().nullable().optional(),
   rejectReason: z.string().nullable().optional(),
   authorName: z.string().nullable().optional(),
-  lightCurve: z.object({ id: z.string(), filename: z.string().optional() }).nullable().optional(),
+  lightCurve: z.object({ id: z.string(), name: z.string().optional() }).nullable().optional(),
 });
 
 export type Report = z.infer<typeof reportSchema>;

@@ -230,7 +230,7 @@ export function ReportForm({
         label="Light curve file"
         hint={
           report?.lightCurve
-            ? `Uploaded: ${report.lightCurve.filename ?? 'a file'}; choose another to replace it.`
+            ? `Uploaded: ${report.lightCurve.name ?? 'a file'}; choose another to replace it.`
             : 'Optional.'
         }
         validationMessage={fileError}
