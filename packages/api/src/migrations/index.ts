@@ -1,6 +1,7 @@
 import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261201235328 } from './Migration20261201235328_initial';
 import { Migration20261202000927 } from './Migration20261202000927_event_workspace';
+import { Migration20261202004801 } from './Migration20261202004801_times_in_ms';
 import { Migration20261202003844 } from './Migration20261202003844_timings_dynamics';
 
 /**
@@ -12,4 +13,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201235328_initial', class: Migration20261201235328 },
   { name: 'Migration20261202000927_event_workspace', class: Migration20261202000927 },
   { name: 'Migration20261202003844_timings_dynamics', class: Migration20261202003844 },
+  { name: 'Migration20261202004801_times_in_ms', class: Migration20261202004801 },
 ];

@@ -62,7 +62,8 @@ export class FitRun {
   @Property({ type: 'string', length: 16 })
   reviewState: ReviewState & Opt = 'none';
 
-  @Property({ type: 'datetime' })
+  // Milliseconds, so that lists ordered by time keep the order things happened within one second.
+  @Property({ type: 'datetime', length: 3 })
   createdAt: Date & Opt = new Date();
 
   @Property({ type: 'datetime', nullable: true })

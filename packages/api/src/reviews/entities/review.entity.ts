@@ -23,7 +23,8 @@ export class Review {
   @Property({ type: 'text' })
   comment: string;
 
-  @Property({ type: 'datetime' })
+  // Milliseconds, so that lists ordered by time keep the order things happened within one second.
+  @Property({ type: 'datetime', length: 3 })
   createdAt: Date & Opt = new Date();
 
   constructor(fit: FitRun, reviewer: User, decision: ReviewDecision, comment: string) {

@@ -1,0 +1,130 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { Injectable } from '@nestjs/common';
+import type { ReviewDecisionPayload } from '@limbus/schema';
+import { AuditService } from '../audit/audit.service';
+import type { AuthUser } from '../auth/auth-user';
+import { ConflictError, ForbiddenError } from '../common/domain-errors';
+import { FitRun, type ReviewState } from '../fits/entities/fit-run.entity';
+import { FitNotices } from '../fits/fit-notices';
+import { FitsService } from '../fits/fits.service';
+import { Membership } from '../teams/entities/membership.entity';
+import { User } from '../users/entities/user.entity';
+import { Review } from './entities/review.entity';
+
+export interface ReviewView {
+  id: string;
+  fitId: string;
+  decision: 'approve' | 'return';
+  comment: string;
+  reviewer: { id: string; name: string };
+  createdAt: string;
+}
+
+function reviewView(r: Review): ReviewView {
+  return {
+    id: r.id,
+    fitId: r.fit.id,
+    decision: r.decision,
+    comment: r.comment,
+    reviewer: { id: r.reviewer.id, name: r.reviewer.name },
+    createdAt: r.createdAt.toISOString(),
+  };
+}
+
+/** solved → in review → approved | returned; a returned fit may be sent again. Approved is final. */
+@Injectable()
+export class ReviewsService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly fits: FitsService,
+    private readonly audit: AuditService,
+    private readonly notices: FitNotices,
+  ) {}
+
+  async requestReview(user: AuthUser, fitId: string): Promise<{ id: string; reviewState: ReviewState }> {
+    const fit = await this.fits.find(fitId);
+    if (fit.createdBy.id !== user.id)
+      throw new ForbiddenError('Only the author of a fit can send it for review');
+    if (fit.state !== 'solved')
+      throw new ConflictError(`Only a solved fit can be reviewed; this one is ${fit.state}`);
+    if (fit.reviewState === 'in_review' || fit.reviewState === 'approved')
+      throw new ConflictError(`The fit is already ${fit.reviewState.replace('_', ' ')}`);
+    // Conditional, so two requests at once move it only once.
+    const moved = await this.em.nativeUpdate(
+      FitRun,
+      { id: fitId, reviewState: { $in: ['none', 'returned'] } },
+      { reviewState: 'in_review' },
+    );
+    if (moved === 0) throw new ConflictError('The fit changed meanwhile; reload it');
+    this.audit.record(this.em, {
+      teamId: fit.event.team.id,
+      eventId: fit.event.id,
+      actorId: user.id,
+      action: 'fit.review-request',
+      objectType: 'fit',
+      objectId: fit.id,
+    });
+    await this.em.flush();
+    const reviewers = await this.em.find(Membership, { team: fit.event.team.id }, { populate: ['user'] });
+    const ctx = { fitId: fit.id, eventId: fit.event.id, eventTitle: fit.event.title };
+    for (const m of reviewers)
+      if (m.roles.includes('reviewer') && m.user.id !== user.id)
+        await this.notices.send(
+          m.user.email,
+          `Review requested: ${fit.event.title}`,
+          [`${fit.createdBy.name} asks you to review a fit of "${fit.event.title}".`],
+          ctx,
+        );
+    return { id: fit.id, reviewState: 'in_review' };
+  }
+
+  async decide(user: AuthUser, fitId: string, body: ReviewDecisionPayload): Promise<ReviewView> {
+    const fit = await this.fits.find(fitId);
+    if (fit.createdBy.id === user.id) throw new ForbiddenError('A fit cannot be reviewed by its own author');
+    if (fit.reviewState !== 'in_review') throw new ConflictError('The fit is not waiting for review');
+    const next: ReviewState = body.decision === 'approve' ? 'approved' : 'returned';
+    const review = new Review(fit, this.em.getReference(User, user.id), body.decision, body.comment);
+    await this.em.transactional(async (em) => {
+      const moved = await em.nativeUpdate(
+        FitRun,
+        { id: fitId, reviewState: 'in_review' },
+        { reviewState: next },
+      );
+      if (moved === 0) throw new ConflictError('Another reviewer decided meanwhile');
+      em.persist(review);
+      this.audit.record(em, {
+        teamId: fit.event.team.id,
+        eventId: fit.event.id,
+        actorId: user.id,
+        action: `fit.review.${body.decision}`,
+        objectType: 'fit',
+        objectId: fit.id,
+        detail: { comment: body.comment },
+      });
+      await em.flush();
+    });
+    const reviewer = await this.em.findOneOrFail(User, { id: user.id });
+    await this.notices.send(
+      fit.createdBy.email,
+      body.decision === 'approve' ? `Fit approved: ${fit.event.title}` : `Fit returned: ${fit.event.title}`,
+      [
+        `${reviewer.name} ${body.decision === 'approve' ? 'approved' : 'returned'} your fit of "${fit.event.title}".`,
+        ...(body.comment ? [`Comment: ${body.comment}`] : []),
+      ],
+      { fitId: fit.id, eventId: fit.event.id, eventTitle: fit.event.title },
+    );
+    return reviewView(
+      await this.em.findOneOrFail(Review, { id: review.id }, { populate: ['reviewer', 'fit'] }),
+    );
+  }
+
+  async list(fitId: string): Promise<ReviewView[]> {
+    const fit = await this.fits.find(fitId);
+    const reviews = await this.em.find(
+      Review,
+      { fit },
+      { populate: ['reviewer', 'fit'], orderBy: { createdAt: 'asc', id: 'asc' } },
+    );
+    return reviews.map(reviewView);
+  }
+}
