@@ -4,7 +4,6 @@ import { LoggerModule } from 'nestjs-pino';
 import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
-import { ComparisonsModule } from './comparisons/comparisons.module';
 import { ChordsModule } from './chords/chords.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
 import { HttpErrorFilter } from './common/http-error.filter';
@@ -13,7 +12,6 @@ import { ConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
 import { DynamicsModule } from './dynamics/dynamics.module';
 import { EventsModule } from './events/events.module';
-import { ExportsModule } from './exports/exports.module';
 import { FitsModule } from './fits/fits.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -23,6 +21,8 @@ import { RedisModule } from './redis/redis.module';
 import { StorageModule } from './storage/storage.module';
 import { ReportsModule } from './reports/reports.module';
 import { StationsModule } from './stations/stations.module';
+import { ReviewsModule } from './reviews/reviews.module';
+import { UploadsModule } from './uploads/uploads.module';
 import { RolesGuard } from './teams/roles.guard';
 import { TeamsModule } from './teams/teams.module';
 import { TimingsModule } from './timings/timings.module';
@@ -67,8 +67,8 @@ export class AppModule {
         StationsModule,
         ChordsModule,
         ReportsModule,
-        ExportsModule,
-        ComparisonsModule,
+        ReviewsModule,
+        UploadsModule,
         TimingsModule,
         DynamicsModule,
       ],
