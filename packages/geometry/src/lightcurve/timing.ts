@@ -102,6 +102,16 @@ function validate(input: TimingInput): void {
     throw new GeometryInputError('exposureSeconds', 'must be zero or positive');
 }
 
+/**
+ * A residual scatter of exactly zero (a noiseless or quantised curve fitted perfectly) would give infinite
+ * weights; keep it at a rounding-level fraction of the flux scale instead.
+ */
+function noiseFloor(sigma: number, flux: ArrayLike<number>): number {
+  let scale = 0;
+  for (let i = 0; i < flux.length; i++) scale = Math.max(scale, Math.abs(flux[i] ?? 0));
+  return Math.max(sigma, 1e-12 * (scale || 1));
+}
+
 function medianSpacing(t: ArrayLike<number>): number {
   const d: number[] = [];
   for (let i = 1; i < t.length; i++) d.push((t[i] ?? 0) - (t[i - 1] ?? 0));
@@ -116,7 +126,11 @@ function differenceScatter(y: ArrayLike<number>): number {
   d.sort((a, b) => a - b);
   const med = d[Math.floor(d.length / 2)] ?? 0;
   const dev = d.map((x) => Math.abs(x - med)).sort((a, b) => a - b);
-  return (1.4826 * (dev[Math.floor(dev.length / 2)] ?? 0)) / Math.SQRT2;
+  const robust = (1.4826 * (dev[Math.floor(dev.length / 2)] ?? 0)) / Math.SQRT2;
+  if (robust > 0) return robust;
+  // Mostly identical successive values (quantised or noiseless data): the RMS difference, then a floor.
+  const rms = Math.sqrt(d.reduce((sum, x) => sum + x * x, 0) / Math.max(1, d.length)) / Math.SQRT2;
+  return noiseFloor(rms, y);
 }
 
 interface Levels {
@@ -325,7 +339,7 @@ export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit 
       tolerance: TIME_TOLERANCE_SECONDS,
       bounds,
     });
-    const sigma = Math.sqrt(first.fxy / (n - parameters));
+    const sigma = noiseFloor(Math.sqrt(Math.max(0, first.fxy) / (n - parameters)), flux);
     noiseSigmaFlux = sigma;
     weights.fill(1 / (sigma * sigma));
     series = weightedSeries(flux, weights);
@@ -385,7 +399,9 @@ export function fitTiming(input: TimingInput): TimingResult {
       rss += (y - (full[i] ?? 0)) ** 2;
     }
     const noiseSigmaFlux =
-      input.fluxErr === undefined ? Math.sqrt(rss / (n - parameters - 3 * dips.length)) : null;
+      input.fluxErr === undefined
+        ? noiseFloor(Math.sqrt(rss / Math.max(1, n - parameters - 3 * dips.length)), input.flux)
+        : null;
     const previousNoise = main.noiseSigmaFlux;
     const refit = fitMainEvent(
       { ...input, flux: corrected },
