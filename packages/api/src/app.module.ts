@@ -4,6 +4,7 @@ import { LoggerModule } from 'nestjs-pino';
 import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { ComparisonsModule } from './comparisons/comparisons.module';
 import { ChordsModule } from './chords/chords.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
 import { HttpErrorFilter } from './common/http-error.filter';
@@ -12,6 +13,7 @@ import { ConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
 import { DynamicsModule } from './dynamics/dynamics.module';
 import { EventsModule } from './events/events.module';
+import { ExportsModule } from './exports/exports.module';
 import { FitsModule } from './fits/fits.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -69,6 +71,8 @@ export class AppModule {
         ReportsModule,
         ReviewsModule,
         UploadsModule,
+        ExportsModule,
+        ComparisonsModule,
         TimingsModule,
         DynamicsModule,
       ],
