@@ -156,6 +156,38 @@ describe('fitTiming()', () => {
     expectClose(two.disappearance.sigmaSeconds / one.disappearance.sigmaSeconds, 2, 0.1);
   });
 
+  // Regression fixture: with this noise, χ² in the disappearance time has two lobes (a fringe on one side
+  // of the dead gap, the next exposure on the other) and the truth lies in the shallower one. The first
+  // Δχ² = 1 crossing alone gave 0.028 s, 9 sigma from the truth; the whole region below χ²min + 1 gives
+  // about 0.14 s.
+  it('fitTiming() widens a sigma over a second χ² lobe beyond the first Δχ² = 1 crossing', () => {
+    const c = CASES[2];
+    if (c === undefined) throw new Error('no case');
+    const setup: SyntheticSetup = { ...c.setup, speedKmPerS: 25 };
+    const times = evenTimes(0, c.cadenceSeconds, c.count);
+    const clean = syntheticFlux(setup, {
+      timesSeconds: times,
+      disappearanceSeconds: c.disappearanceSeconds,
+      reappearanceSeconds: c.reappearanceSeconds,
+      baselineFlux: 1000,
+      bottomFlux: c.bottomFlux,
+    });
+    const gauss = gaussianSource(17);
+    const flux = clean.map((f) => f + 25 * gauss());
+    const result = fitTiming({
+      timesSeconds: times,
+      flux,
+      speedKmPerS: 25,
+      exposureSeconds: setup.exposureSeconds,
+      profile: buildEdgeProfile(setup),
+      bottom: c.bottom,
+    });
+    const d = result.disappearance;
+    if (d === null) throw new Error('event not found');
+    expect(d.sigmaSeconds).toBeGreaterThan(0.1);
+    expect(Math.abs(d.timeSeconds - c.disappearanceSeconds)).toBeLessThan(3 * d.sigmaSeconds);
+  });
+
   it('fitTiming() finds no event in a flat noisy curve and returns null times and no dips', () => {
     const gauss = gaussianSource(5);
     const times = evenTimes(0, 0.1, 400);
