@@ -26,6 +26,10 @@ export const routes: RouteObject[] = [
       },
       { path: paths.adminOutbox, element: <AdminOutboxRoute /> },
       {
+        path: paths.comparison,
+        lazy: () => import('./routes/comparison').then((m) => ({ Component: m.ComparisonRoute })),
+      },
+      {
         path: paths.plotsPreview,
         // The preview pulls in D3 and the fixture; it loads only when visited.
         lazy: () => import('./routes/plots-preview').then((m) => ({ Component: m.PlotsPreviewRoute })),

@@ -7,5 +7,6 @@ export const paths = {
   events: '/events',
   event: (eventId: string) => `/events/${encodeURIComponent(eventId)}`,
   adminOutbox: '/admin/outbox',
+  comparison: '/comparison',
   plotsPreview: '/plots/preview',
 } as const;

@@ -93,6 +93,7 @@ export function AppLayout() {
         nav={
           <>
             <RouterLink to={paths.events}>Events</RouterLink>
+            <RouterLink to={paths.comparison}>Comparison</RouterLink>
             <RouterLink to={paths.plotsPreview}>Plot preview</RouterLink>
             {me.data.isAdmin ? <RouterLink to={paths.adminOutbox}>Outbox</RouterLink> : null}
           </>

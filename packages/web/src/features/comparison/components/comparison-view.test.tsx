@@ -1,0 +1,140 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { Comparison, ComparisonFit } from '../api/get-comparison';
+import type { JointPoleJob } from '../api/joint-pole';
+import { ComparisonView } from './comparison-view';
+import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-utils';
+
+afterEach(() => vi.unstubAllGlobals());
+
+// Invented numbers for an invented body; only their formatting and placement are under test.
+function fit(id: string, date: string, approved: boolean, withLimb = true): ComparisonFit {
+  return {
+    fitId: id,
+    eventId: `e-${id}`,
+    eventTitle: `Event ${id}`,
+    eventDateUtc: date,
+    reviewState: approved ? 'approved' : 'none',
+    finishedAt: date,
+    limb: withLimb
+      ? {
+          centerFKm: { value: 1.234, sigma: 0.51 },
+          centerGKm: { value: -2.5, sigma: 0.4 },
+          equatorialRadiusKm: { value: 401.23, sigma: 1.84 },
+          oblateness: { value: 0.1, sigma: 0.0123 },
+          positionAngleDeg: { value: 35.2, sigma: 0.31 },
+          equivalentRadiusKm: { value: 380.4, sigma: 1.2 },
+          chi2: 3.1,
+          dof: 10,
+        }
+      : null,
+    rings: [
+      {
+        ring: 'R1',
+        radiusKm: { value: 1080.04, sigma: 2.3 },
+        openingAngleDeg: { value: 31.8, sigma: 0.08 },
+        positionAngleDeg: { value: 70.7, sigma: 0.055 },
+        poles: [
+          { raDeg: 41.1, decDeg: 27.2 },
+          { raDeg: 80.3, decDeg: -5.4 },
+        ],
+      },
+    ],
+  };
+}
+
+const APPROVED: Comparison = {
+  teamId: 't1',
+  selection: 'approved',
+  ringLabels: ['R1'],
+  fits: [fit('a', '2028-03-14T02:11:00.000Z', true), fit('b', '2031-07-02T20:00:00.000Z', true)],
+};
+const ALL: Comparison = {
+  ...APPROVED,
+  selection: 'all',
+  fits: [...APPROVED.fits, fit('c', '2036-01-09T04:00:00.000Z', false, false)],
+};
+const JOB: JointPoleJob = {
+  id: 'j1',
+  state: 'solved',
+  fitIds: ['a', 'b', 'c'],
+  ring: 'R1',
+  issues: [],
+  createdAt: '2036-02-01T00:00:00.000Z',
+  result: {
+    format: 'limbus-joint/1',
+    ring: 'R1',
+    pole: { raDeg: 41.02, decDeg: 26.97 },
+    uncertainty: { raDeg: 0.12, decDeg: 0.08 },
+    radiusKm: 1080.1,
+    radiusSigmaKm: 0.9,
+    chi2: 31.2,
+    dof: 35,
+    events: [],
+    ambiguityResolved: true,
+    alternativePole: { raDeg: 80.1, decDeg: -5.2, chi2: 412.7 },
+  },
+};
+
+function server() {
+  return stubFetch((call) => {
+    if (call.url.includes('/comparison?fits=approved')) return jsonResponse(200, APPROVED);
+    if (call.url.includes('/comparison?fits=all')) return jsonResponse(200, ALL);
+    if (call.url.endsWith('/joint-poles') && call.method === 'POST') return jsonResponse(202, { id: 'j1' });
+    if (call.url.endsWith('/joint-poles/j1')) return jsonResponse(200, JOB);
+    return jsonResponse(404, { message: 'no route' });
+  });
+}
+
+describe('ComparisonView', () => {
+  it('ComparisonView tables the approved fits with ± 1σ against the event date, and asks for approved fits first', async () => {
+    const calls = server();
+    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole />);
+    const table = await screen.findByRole('table', { name: 'Parameters by event' });
+    const rows = within(table).getAllByRole('row');
+    expect(rows).toHaveLength(3);
+    expect(rows[1]).toHaveTextContent('2028-03-14 02:11:00');
+    expect(rows[1]).toHaveTextContent('401.2 ± 1.8');
+    expect(rows[1]).toHaveTextContent('0.100 ± 0.012');
+    expect(rows[1]).toHaveTextContent('1080.0 ± 2.3');
+    expect(calls[0]?.url).toBe('/api/teams/t1/comparison?fits=approved');
+    expect(
+      screen.getByRole('img', { name: 'Centred overlay of 2 limb and 2 ring ellipses' }),
+    ).toBeInTheDocument();
+    const chart = screen.getByRole('img', { name: 'Pole candidates of ring R1: 4 event solutions' });
+    expect(chart.querySelectorAll('[data-pole]')).toHaveLength(4);
+  });
+
+  it('ComparisonView adds unapproved fits on request, an event without a limb showing dashes', async () => {
+    server();
+    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole />);
+    await screen.findByRole('table', { name: 'Parameters by event' });
+    await userEvent.click(screen.getByRole('switch', { name: 'Include fits that are not approved' }));
+    await waitFor(() => expect(screen.getAllByRole('row')).toHaveLength(4));
+    const last = screen.getAllByRole('row')[3];
+    expect(last).toHaveTextContent('not approved');
+    expect(last).toHaveTextContent('—');
+  });
+
+  it('ComparisonView queues the joint pole over the chosen events and says which pole survives', async () => {
+    const calls = server();
+    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole />);
+    await screen.findByRole('table', { name: 'Parameters by event' });
+    await userEvent.click(screen.getByRole('checkbox', { name: 'Use Event b in the joint pole' }));
+    await userEvent.click(screen.getByRole('button', { name: /Fit joint pole of ring R1 \(1 event\)/ }));
+    const status = await screen.findByRole('status', { name: 'Joint pole' });
+    expect(status).toHaveTextContent('RA 41.02° ± 0.12°, Dec 26.97° ± 0.08°');
+    expect(status).toHaveTextContent('The other pole is ruled out: its best χ² is larger by 381.5');
+    expect(calls.find((c) => c.method === 'POST')?.body).toEqual({ fitIds: ['a'], ring: 'R1' });
+    const chart = screen.getByRole('img', { name: /and the joint pole$/ });
+    expect(chart.querySelector('[data-role="joint-pole"] ellipse')).not.toBeNull();
+  });
+
+  it('ComparisonView lets only modellers and coordinators fit the joint pole', async () => {
+    server();
+    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole={false} />);
+    await screen.findByRole('table', { name: 'Parameters by event' });
+    expect(screen.getByRole('button', { name: /Fit joint pole/ })).toBeDisabled();
+  });
+});

@@ -1,0 +1,181 @@
+import {
+  Body1,
+  Button,
+  Caption1,
+  makeStyles,
+  MessageBar,
+  MessageBarBody,
+  MessageBarTitle,
+  Select,
+  Subtitle2,
+  Switch,
+  Title2,
+  tokens,
+} from '@fluentui/react-components';
+import { useState } from 'react';
+import { type FitSelection, useComparison } from '../api/get-comparison';
+import { type JointPoleDocument, useJointPole, useSubmitJointPole } from '../api/joint-pole';
+import { EllipseOverlay } from './ellipse-overlay';
+import { ParameterTable } from './parameter-table';
+import { PoleChart } from './pole-chart';
+import { Loading, RequestFailed } from '@/components/request-state';
+import { errorMessage } from '@/components/form-errors';
+
+const useStyles = makeStyles({
+  page: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
+  controls: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalL, alignItems: 'center' },
+  plots: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalXXL, alignItems: 'flex-start' },
+  figure: { margin: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
+});
+
+function AmbiguityText({ doc }: { doc: JointPoleDocument }) {
+  const delta = doc.alternativePole.chi2 - doc.chi2;
+  const pole = `RA ${doc.pole.raDeg.toFixed(2)}° ± ${doc.uncertainty.raDeg.toFixed(2)}°, Dec ${doc.pole.decDeg.toFixed(2)}° ± ${doc.uncertainty.decDeg.toFixed(2)}°`;
+  return (
+    <Body1>
+      Joint pole of ring {doc.ring}: {pole}; radius {doc.radiusKm.toFixed(1)} ± {doc.radiusSigmaKm.toFixed(1)}{' '}
+      km; χ² = {doc.chi2.toFixed(2)} for {doc.dof} degrees of freedom.{' '}
+      {doc.ambiguityResolved
+        ? `The other pole is ruled out: its best χ² is larger by ${delta.toFixed(1)} (more than 9).`
+        : `Both poles remain: the other family's best χ² is larger by only ${delta.toFixed(1)} (at most 9).`}
+    </Body1>
+  );
+}
+
+export interface ComparisonViewProps {
+  teamId: string;
+  teamName: string;
+  /** Modellers and coordinators may queue a joint pole fit. */
+  canFitJointPole: boolean;
+}
+
+/** A team's fits side by side: parameters against date, centred ellipses, pole candidates and the joint pole. */
+export function ComparisonView({ teamId, teamName, canFitJointPole }: ComparisonViewProps) {
+  const styles = useStyles();
+  const [selection, setSelection] = useState<FitSelection>('approved');
+  const comparison = useComparison(teamId, selection);
+  const [unselected, setUnselected] = useState<ReadonlySet<string>>(new Set());
+  const [ring, setRing] = useState<string | null>(null);
+  const [jointId, setJointId] = useState<string | null>(null);
+  const submit = useSubmitJointPole(teamId, setJointId);
+  const jointJob = useJointPole(jointId);
+
+  if (comparison.isPending) return <Loading label="Loading the comparison…" />;
+  if (comparison.isError)
+    return (
+      <RequestFailed
+        what="the comparison"
+        error={comparison.error}
+        onRetry={() => void comparison.refetch()}
+      />
+    );
+
+  const data = comparison.data;
+  const activeRing = ring ?? data.ringLabels[0] ?? null;
+  const selected = new Set(
+    data.fits
+      .filter((f) => !unselected.has(f.fitId) && f.rings.some((r) => r.ring === activeRing))
+      .map((f) => f.fitId),
+  );
+  const toggle = (fitId: string) =>
+    setUnselected((prev) => {
+      const next = new Set(prev);
+      if (next.has(fitId)) next.delete(fitId);
+      else next.add(fitId);
+      return next;
+    });
+  const job = jointJob.data;
+  const joint = job?.state === 'solved' ? job.result : null;
+
+  return (
+    <section className={styles.page} aria-labelledby="comparison-title">
+      <Title2 id="comparison-title">Comparison of fits — {teamName}</Title2>
+      <div className={styles.controls}>
+        <Switch
+          label="Include fits that are not approved"
+          checked={selection === 'all'}
+          onChange={(_, d) => setSelection(d.checked ? 'all' : 'approved')}
+        />
+        {data.ringLabels.length > 1 ? (
+          <label>
+            Ring{' '}
+            <Select value={activeRing ?? ''} onChange={(_, d) => setRing(d.value)}>
+              {data.ringLabels.map((l) => (
+                <option key={l}>{l}</option>
+              ))}
+            </Select>
+          </label>
+        ) : null}
+      </div>
+      {data.fits.length === 0 ? (
+        <MessageBar intent="info">
+          <MessageBarBody>
+            {selection === 'approved'
+              ? 'No approved fits yet. Switch on "Include fits that are not approved" to compare every solved fit.'
+              : 'No solved fits in this team yet.'}
+          </MessageBarBody>
+        </MessageBar>
+      ) : (
+        <>
+          <ParameterTable
+            fits={data.fits}
+            ringLabels={data.ringLabels}
+            selected={selected}
+            onToggle={toggle}
+          />
+          <div className={styles.plots}>
+            <figure className={styles.figure}>
+              <Subtitle2 as="h3">Limbs and rings, centred</Subtitle2>
+              <EllipseOverlay fits={data.fits} />
+              <Caption1>Solid: limb ellipses; dashed: ring ellipses; colours as in the table.</Caption1>
+            </figure>
+            <figure className={styles.figure}>
+              <Subtitle2 as="h3">Ring pole candidates</Subtitle2>
+              <PoleChart fits={data.fits} ring={activeRing} joint={joint} />
+              <Caption1>
+                Filled circle: solution 1 of an event; open square: solution 2; triangle: joint pole with its
+                1σ region; open triangle: the best pole of the other family.
+              </Caption1>
+            </figure>
+          </div>
+          {activeRing !== null ? (
+            <div className={styles.controls}>
+              <Button
+                appearance="primary"
+                disabled={!canFitJointPole || selected.size === 0 || submit.isPending}
+                onClick={() => submit.mutate({ fitIds: [...selected], ring: activeRing })}
+              >
+                Fit joint pole of ring {activeRing} ({selected.size}{' '}
+                {selected.size === 1 ? 'event' : 'events'})
+              </Button>
+              {!canFitJointPole ? (
+                <Caption1>Modellers and coordinators can fit the joint pole.</Caption1>
+              ) : null}
+            </div>
+          ) : null}
+          {submit.isError ? (
+            <MessageBar intent="error" role="alert">
+              <MessageBarBody>{errorMessage(submit.error)}</MessageBarBody>
+            </MessageBar>
+          ) : null}
+          {job !== undefined && (job.state === 'queued' || job.state === 'running') ? (
+            <Loading label="Fitting the joint pole…" />
+          ) : null}
+          {job?.state === 'failed' ? (
+            <MessageBar intent="error" role="alert" layout="multiline">
+              <MessageBarBody>
+                <MessageBarTitle>The joint pole could not be fitted</MessageBarTitle>
+                {job.issues.map((i) => `${i.path}: ${i.message}`).join('; ')}
+              </MessageBarBody>
+            </MessageBar>
+          ) : null}
+          {joint !== null ? (
+            <div role="status" aria-label="Joint pole">
+              <AmbiguityText doc={joint} />
+            </div>
+          ) : null}
+        </>
+      )}
+    </section>
+  );
+}

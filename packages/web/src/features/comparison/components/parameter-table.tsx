@@ -1,0 +1,102 @@
+import {
+  Checkbox,
+  makeStyles,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  tokens,
+} from '@fluentui/react-components';
+import type { ComparisonFit, ValueSigma } from '../api/get-comparison';
+import { fitColour, formatValueSigma } from '../format';
+
+const useStyles = makeStyles({
+  scroll: { overflowX: 'auto' },
+  number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end', whiteSpace: 'nowrap' },
+  swatch: { display: 'inline-block', width: '10px', height: '10px', marginRight: tokens.spacingHorizontalXS },
+});
+
+function Cell({ v }: { v: ValueSigma | undefined }) {
+  const styles = useStyles();
+  return (
+    <TableCell className={styles.number}>
+      {v === undefined ? '—' : formatValueSigma(v.value, v.sigma)}
+    </TableCell>
+  );
+}
+
+export interface ParameterTableProps {
+  fits: ComparisonFit[];
+  ringLabels: string[];
+  selected: ReadonlySet<string>;
+  onToggle: (fitId: string) => void;
+}
+
+/** Every limb and ring parameter of each fit, ± 1σ, against the event date. */
+export function ParameterTable({ fits, ringLabels, selected, onToggle }: ParameterTableProps) {
+  const styles = useStyles();
+  return (
+    <div className={styles.scroll}>
+      <Table aria-label="Parameters by event" size="small">
+        <TableHeader>
+          <TableRow>
+            <TableHeaderCell>Joint pole</TableHeaderCell>
+            <TableHeaderCell>Event date (UTC)</TableHeaderCell>
+            <TableHeaderCell>Event</TableHeaderCell>
+            <TableHeaderCell>Review</TableHeaderCell>
+            <TableHeaderCell>Equatorial radius (km)</TableHeaderCell>
+            <TableHeaderCell>Oblateness</TableHeaderCell>
+            <TableHeaderCell>Limb position angle (°)</TableHeaderCell>
+            <TableHeaderCell>Equivalent radius (km)</TableHeaderCell>
+            <TableHeaderCell>Centre f (km)</TableHeaderCell>
+            <TableHeaderCell>Centre g (km)</TableHeaderCell>
+            {ringLabels.flatMap((label) => [
+              <TableHeaderCell key={`${label}-r`}>Ring {label} radius (km)</TableHeaderCell>,
+              <TableHeaderCell key={`${label}-b`}>Ring {label} opening angle (°)</TableHeaderCell>,
+              <TableHeaderCell key={`${label}-p`}>Ring {label} position angle (°)</TableHeaderCell>,
+            ])}
+          </TableRow>
+        </TableHeader>
+        <TableBody>
+          {fits.map((fit, i) => {
+            const limb = fit.limb;
+            return (
+              <TableRow key={fit.fitId} data-fit={fit.fitId}>
+                <TableCell>
+                  <Checkbox
+                    checked={selected.has(fit.fitId)}
+                    disabled={fit.rings.length === 0}
+                    onChange={() => onToggle(fit.fitId)}
+                    aria-label={`Use ${fit.eventTitle} in the joint pole`}
+                  />
+                </TableCell>
+                <TableCell>{fit.eventDateUtc?.slice(0, 19).replace('T', ' ') ?? '—'}</TableCell>
+                <TableCell>
+                  <span className={styles.swatch} style={{ background: fitColour(i) }} aria-hidden />
+                  {fit.eventTitle}
+                </TableCell>
+                <TableCell>{fit.reviewState === 'approved' ? 'approved' : 'not approved'}</TableCell>
+                <Cell v={limb?.equatorialRadiusKm} />
+                <Cell v={limb?.oblateness} />
+                <Cell v={limb?.positionAngleDeg} />
+                <Cell v={limb?.equivalentRadiusKm} />
+                <Cell v={limb?.centerFKm} />
+                <Cell v={limb?.centerGKm} />
+                {ringLabels.flatMap((label) => {
+                  const ring = fit.rings.find((r) => r.ring === label);
+                  return [
+                    <Cell key={`${label}-r`} v={ring?.radiusKm} />,
+                    <Cell key={`${label}-b`} v={ring?.openingAngleDeg} />,
+                    <Cell key={`${label}-p`} v={ring?.positionAngleDeg} />,
+                  ];
+                })}
+              </TableRow>
+            );
+          })}
+        </TableBody>
+      </Table>
+    </div>
+  );
+}
