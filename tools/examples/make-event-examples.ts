@@ -32,7 +32,7 @@ interface Ellipse {
   positionAngleDeg: number;
 }
 
-interface EventSpec {
+export interface EventSpec {
   file: string;
   title: string;
   star: {
@@ -184,7 +184,7 @@ function ringEllipse(
   };
 }
 
-function buildEvent(spec: EventSpec): EventInput {
+export function buildEvent(spec: EventSpec): EventInput {
   const t0 = Date.parse(spec.centralUtc) / 1000;
   const speed = Math.hypot(spec.relativeVelocity.f, spec.relativeVelocity.g);
   const along = { f: spec.relativeVelocity.f / speed, g: spec.relativeVelocity.g / speed };

@@ -2,7 +2,8 @@ import 'reflect-metadata';
 import { MikroORM } from '@mikro-orm/mariadb';
 import { loadConfigOrExit } from '../config/app-config';
 import { ormOptions } from '../database/orm-options';
-import { seedDatabase } from '../database/seed';
+import { DEMO_TEAM_NAME, seedDatabase } from '../database/seed';
+import { seedDemoScenario } from '../demo/demo-scenario';
 import { PasswordService } from '../users/password.service';
 
 async function main(): Promise<void> {
@@ -10,6 +11,7 @@ async function main(): Promise<void> {
   const orm = await MikroORM.init(ormOptions(config));
   try {
     console.log(await seedDatabase(orm.em.fork(), config, new PasswordService()));
+    if (config.demo) console.log(await seedDemoScenario(orm.em.fork(), DEMO_TEAM_NAME));
   } finally {
     await orm.close();
   }
