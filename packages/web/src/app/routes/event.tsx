@@ -12,6 +12,7 @@ import type { ChordInput } from '@limbus/geometry';
 import { Suspense, useMemo } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useSignedIn } from './app-layout';
+import { EventDynamicsSection, EventLightCurvesSection } from './event-analysis';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { useChords, type ChordRow } from '@/features/chords/api/get-chords';
 import { ChordTable } from '@/features/chords/components/chord-table';
@@ -34,6 +35,7 @@ const SECTIONS = [
   { id: 'stations', label: 'Stations & reports' },
   { id: 'chords', label: 'Chords' },
   { id: 'sky', label: 'Sky plane' },
+  { id: 'light-curves', label: 'Light curves' },
   { id: 'fits', label: 'Fits' },
   { id: 'review', label: 'Review' },
   { id: 'figures', label: 'Figures' },
@@ -213,7 +215,15 @@ export function EventRoute() {
             <Subtitle1 as="h3">Fits</Subtitle1>
             <FitsList eventId={e.id} selectedFitId={fitId} onSelect={(id) => setParam('fit', id)} />
             {fitId !== null ? <FitView fitId={fitId} /> : null}
+            <EventDynamicsSection eventId={e.id} canEdit={has('coordinator', 'modeller')} />
           </>
+        ) : null}
+        {section === 'light-curves' ? (
+          <EventLightCurvesSection
+            eventId={e.id}
+            stations={e.stations}
+            canEdit={has('coordinator', 'modeller')}
+          />
         ) : null}
         {section === 'review' ? (
           fit.data === undefined ? (

@@ -1,0 +1,64 @@
+import { Body1, Field, makeStyles, Select, Subtitle1, tokens } from '@fluentui/react-components';
+import { useState } from 'react';
+import { Loading, RequestFailed } from '@/components/request-state';
+import { DynamicsPanel } from '@/features/dynamics/components/dynamics-panel';
+import { LightCurvePanel } from '@/features/light-curves/components/light-curve-panel';
+import { useReports } from '@/features/reports/api/get-reports';
+
+// Composes the light-curve and dynamics features into the event desk (event.tsx mounts these two), so
+// neither feature needs to know about reports or fits beyond the ids it is given.
+
+const useStyles = makeStyles({
+  section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
+});
+
+export interface EventAnalysisProps {
+  eventId: string;
+  stations: Array<{ id: string; code: string }>;
+  canEdit: boolean;
+}
+
+/** Reports that carry a light curve, one chosen at a time, with its timing view. */
+export function EventLightCurvesSection({ eventId, stations, canEdit }: EventAnalysisProps) {
+  const styles = useStyles();
+  const reports = useReports(eventId);
+  const [chosen, setChosen] = useState<string | null>(null);
+  if (reports.isPending) return <Loading label="Loading the reports…" />;
+  if (reports.isError)
+    return <RequestFailed what="the reports" error={reports.error} onRetry={() => void reports.refetch()} />;
+  const withCurve = reports.data.filter((r) => r.lightCurve != null);
+  const code = (stationId: string) => stations.find((s) => s.id === stationId)?.code ?? stationId;
+  const reportId = chosen ?? withCurve[0]?.id ?? null;
+  const report = withCurve.find((r) => r.id === reportId);
+  return (
+    <section className={styles.section} aria-label="Light curves">
+      <Subtitle1 as="h3">Light curves</Subtitle1>
+      {withCurve.length === 0 ? <Body1 as="p">No report has an uploaded light curve yet.</Body1> : null}
+      {withCurve.length > 1 ? (
+        <Field label="Report">
+          <Select value={reportId ?? ''} onChange={(_, d) => setChosen(d.value)}>
+            {withCurve.map((r) => (
+              <option key={r.id} value={r.id}>
+                {code(r.stationId)}: {r.lightCurve?.name ?? 'light curve'}
+              </option>
+            ))}
+          </Select>
+        </Field>
+      ) : null}
+      {report !== undefined ? (
+        <LightCurvePanel
+          key={report.id}
+          eventId={eventId}
+          reportId={report.id}
+          stationLabel={code(report.stationId)}
+          canEdit={canEdit}
+        />
+      ) : null}
+    </section>
+  );
+}
+
+/** The body's dynamics strip, shown beside the ring fit in the Fits section. */
+export function EventDynamicsSection({ eventId, canEdit }: Omit<EventAnalysisProps, 'stations'>) {
+  return <DynamicsPanel eventId={eventId} canEdit={canEdit} />;
+}
