@@ -1,0 +1,221 @@
+import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { baseUrl, openBrowser, signIn, unexpectedFailures, type BrowserSession } from './browser';
+
+// The event desk against the real API and worker. The flows share one event: the demo event when the
+// seed has one, else the invented example event file imported by the coordinator.
+const PASSWORD = 'limbus-demo';
+const EXAMPLE_EVENT = resolve(
+  dirname(fileURLToPath(import.meta.url)),
+  '../../../docs/examples/event-example.json',
+);
+const OBSERVER_STATION = `e2e-observer-${Date.now().toString(36)}`;
+
+interface ApiSession {
+  token: string;
+  call<T>(method: string, path: string, body?: unknown): Promise<T>;
+}
+
+async function apiSignIn(email: string): Promise<ApiSession> {
+  const response = await fetch(`${baseUrl()}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: PASSWORD }),
+  });
+  if (!response.ok) throw new Error(`sign-in of ${email} failed: ${response.status}`);
+  const { accessToken } = (await response.json()) as { accessToken: string };
+  return {
+    token: accessToken,
+    async call<T>(method: string, path: string, body?: unknown): Promise<T> {
+      const isForm = body instanceof FormData;
+      const res = await fetch(`${baseUrl()}${path}`, {
+        method,
+        headers: {
+          Authorization: `Bearer ${accessToken}`,
+          ...(body === undefined || isForm ? {} : { 'Content-Type': 'application/json' }),
+        },
+        body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
+      });
+      if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`);
+      return (res.status === 204 ? undefined : await res.json()) as T;
+    },
+  };
+}
+
+// Opening a desk URL directly reloads the app, which keeps its access token only in memory: the first
+// /api/me answers 401 and the refresh cookie restores the session. That 401 is the design, not a fault.
+const RELOAD = [{ status: 401, path: '/api/me' }];
+
+let eventId = '';
+let chordCount = 0;
+let fitId = '';
+let session: BrowserSession | null = null;
+
+beforeAll(async () => {
+  const coordinator = await apiSignIn('coordinator@example.org');
+  const me = await coordinator.call<{ teams: Array<{ id: string }> }>('GET', '/api/me');
+  const teamId = me.teams[0]?.id ?? '';
+  const events = await coordinator.call<Array<{ id: string; teamId: string }>>('GET', '/api/events');
+  eventId = events.find((e) => e.teamId === teamId)?.id ?? '';
+  if (eventId === '') {
+    const form = new FormData();
+    form.append('file', new Blob([readFileSync(EXAMPLE_EVENT)], { type: 'application/json' }), 'event.json');
+    form.append('teamId', teamId);
+    eventId = (await coordinator.call<{ id: string }>('POST', '/api/events/import', form)).id;
+  }
+  // The observer reports only for a station they observe from; give them one of their own.
+  const members = await coordinator.call<Array<{ userId: string; email: string }>>(
+    'GET',
+    `/api/teams/${teamId}/members`,
+  );
+  const observerId = members.find((m) => m.email === 'observer@example.org')?.userId;
+  await coordinator.call('POST', `/api/events/${eventId}/stations`, {
+    code: OBSERVER_STATION,
+    latDeg: -30.25,
+    lonDeg: -70.5,
+    heightM: 2100,
+    observerId,
+  });
+  chordCount = (await coordinator.call<unknown[]>('GET', `/api/events/${eventId}/chords`)).length;
+}, 60_000);
+
+afterEach(async () => {
+  await session?.close();
+  session = null;
+});
+
+async function openDesk(email: string, query: string): Promise<BrowserSession> {
+  session = await openBrowser();
+  await signIn(session.page, email, PASSWORD);
+  await session.page.waitForURL(`${baseUrl()}/events`);
+  await session.page.goto(`${baseUrl()}/events/${eventId}${query}`);
+  await session.page.getByRole('tablist', { name: 'Event sections' }).waitFor();
+  return session;
+}
+
+describe('event desk in the browser', () => {
+  it('a modeller opens the event, runs a fit, sees progress reach solved and the parameters, and asks for review', async () => {
+    session = await openBrowser();
+    const s = session;
+    const { page } = s;
+    await signIn(page, 'modeller@example.org', PASSWORD);
+    await page.waitForURL(`${baseUrl()}/events`);
+    await page.locator(`a[href="/events/${eventId}"]`).click();
+    await page.getByRole('tablist', { name: 'Event sections' }).waitFor();
+    await page.getByRole('grid', { name: 'Chord table' }).waitFor();
+    await expect(page.locator('[data-chord-row]').count()).resolves.toBe(chordCount);
+    await s.screenshot('event-desk-chords');
+
+    await page.getByRole('tab', { name: 'Fits' }).click();
+    await page.getByRole('button', { name: 'Run fit' }).click();
+    await page.waitForURL(/[?&]fit=/);
+    fitId = new URL(page.url()).searchParams.get('fit') ?? '';
+    expect(fitId).not.toBe('');
+    // The bar shows while the worker runs; a fast solve may finish before it is drawn.
+    const table = page.getByRole('table', { name: 'Limb parameters' });
+    await table.waitFor({ timeout: 120_000 });
+    await expect(
+      table.getByRole('row').filter({ hasText: 'Equatorial radius' }).textContent(),
+    ).resolves.toMatch(/\d+\.\d{2} ± \d+\.\d{2}\s*km/);
+    await expect(page.getByText(/degrees of freedom/).count()).resolves.toBeGreaterThan(0);
+    await s.screenshot('event-desk-fit');
+
+    await page.getByRole('tab', { name: 'Sky plane' }).click();
+    const plot = page.getByRole('img', { name: /^Sky-plane plot/ });
+    await plot.waitFor();
+    await expect(plot.locator('[data-chord]').count()).resolves.toBe(chordCount);
+    await s.screenshot('event-desk-sky-plane');
+
+    await page.getByRole('tab', { name: 'Review' }).click();
+    await page.getByRole('button', { name: 'Request review' }).click();
+    await page.getByText('Waiting for a reviewer.').waitFor();
+    expect(s.consoleErrors).toEqual([]);
+    expect(unexpectedFailures(s.failedResponses, RELOAD)).toEqual([]);
+  }, 180_000);
+
+  it('a reviewer approves the fit and it shows as frozen', async () => {
+    expect(fitId).not.toBe('');
+    const s = await openDesk('reviewer@example.org', `?section=review&fit=${fitId}`);
+    const { page } = s;
+    await page.getByRole('button', { name: 'Approve fit' }).click();
+    await page.getByText('The fit is frozen: its options and solution no longer change.').waitFor();
+    await expect(page.getByRole('list', { name: 'Review history' }).textContent()).resolves.toMatch(
+      /approved/,
+    );
+    await page.getByRole('tab', { name: 'Fits' }).click();
+    await page.getByText('Approved and frozen').waitFor();
+    await s.screenshot('event-desk-review');
+    expect(s.consoleErrors).toEqual([]);
+    expect(unexpectedFailures(s.failedResponses, RELOAD)).toEqual([]);
+  }, 90_000);
+
+  it('an observer submits a report for their own station and a coordinator accepts it', async () => {
+    const observer = await openDesk('observer@example.org', '?section=stations');
+    await observer.page.getByRole('button', { name: 'New report' }).click();
+    const form = observer.page.getByRole('form', { name: 'Observer report' });
+    await form.getByRole('combobox', { name: 'Station' }).selectOption({ label: OBSERVER_STATION });
+    await form.getByRole('radio', { name: /^Negative/ }).check();
+    await form.getByRole('textbox', { name: 'Watched from (UTC)' }).fill('2028-03-14T02:05:00Z');
+    await form.getByRole('textbox', { name: 'Watched to (UTC)' }).fill('2028-03-14T02:20:00Z');
+    await form.getByRole('button', { name: 'Submit report' }).click();
+    await observer.page.getByRole('cell', { name: OBSERVER_STATION }).waitFor();
+    await observer.screenshot('event-desk-observer-report');
+    expect(observer.consoleErrors).toEqual([]);
+    await observer.close();
+    session = null;
+
+    const coordinator = await openDesk('coordinator@example.org', '?section=stations');
+    const { page } = coordinator;
+    const row = page.getByRole('row').filter({ hasText: OBSERVER_STATION }).filter({ hasText: 'negative' });
+    await row.getByRole('button', { name: /^Accept report of/ }).click();
+    await row.getByText('accepted').waitFor();
+    await coordinator.screenshot('event-desk-reports');
+    expect(coordinator.consoleErrors).toEqual([]);
+    expect(unexpectedFailures(coordinator.failedResponses, RELOAD)).toEqual([]);
+  }, 120_000);
+
+  it('a CSV import with a bad row shows the row error and writes nothing', async () => {
+    const s = await openDesk('coordinator@example.org', '?section=chords');
+    const { page } = s;
+    await page.getByRole('grid', { name: 'Chord table' }).waitFor();
+    const before = await page.locator('[data-chord-row]').count();
+    await page.getByRole('button', { name: 'Import CSV…' }).click();
+    const csv = [
+      'station,type,disappearance_utc,disappearance_sigma_s,reappearance_utc,reappearance_sigma_s',
+      `${OBSERVER_STATION},positive,2028-03-14T02:11:04.25Z,0.05,2028-03-14T02:11:19.80Z,0.05`,
+      `${OBSERVER_STATION},positive,2028-03-14T02:11:04.25Z,0.05,2028-03-14T02:10:00Z,0.05`,
+    ].join('\n');
+    await page
+      .getByLabel('CSV file')
+      .setInputFiles({ name: 'chords.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    const problems = page.getByRole('list', { name: 'Row problems' });
+    await problems.waitFor();
+    await expect(problems.textContent()).resolves.toMatch(/Row 3/);
+    await expect(page.getByRole('button', { name: 'Import', exact: true }).isDisabled()).resolves.toBe(true);
+    await s.screenshot('event-desk-csv-error');
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    await page.reload();
+    await page.getByRole('grid', { name: 'Chord table' }).waitFor();
+    await expect(page.locator('[data-chord-row]').count()).resolves.toBe(before);
+    expect(s.consoleErrors).toEqual([]);
+    // The preview's 400 is the expected answer to a bad file.
+    expect(
+      unexpectedFailures(s.failedResponses, [
+        ...RELOAD,
+        { status: 400, path: `/api/events/${eventId}/chords/import` },
+      ]),
+    ).toEqual([]);
+  }, 90_000);
+
+  it('the event desk works in a narrow window', async () => {
+    session = await openBrowser({ width: 420, height: 860 });
+    await signIn(session.page, 'modeller@example.org', PASSWORD);
+    await session.page.waitForURL(`${baseUrl()}/events`);
+    await session.page.goto(`${baseUrl()}/events/${eventId}?section=fits`);
+    await session.page.getByRole('button', { name: 'Run fit' }).waitFor();
+    await session.screenshot('event-desk-narrow');
+    expect(session.consoleErrors).toEqual([]);
+  }, 60_000);
+});
