@@ -197,6 +197,15 @@ describe('limbus time', () => {
     expect(Math.abs(out.starDiameterKm - 0.581776)).toBeLessThan(1e-6);
   });
 
+  it('run() estimates the star diameter from --star-v-mag and --star-k-mag', async () => {
+    const flags = ['--speed-km-s', '6', '--distance-km', '6e9', '--exposure-s', '0.08'];
+    expect(await run([writeCsv(mainCsv), ...flags, '--star-v-mag', '12', '--star-k-mag', '10.5'])).toBe(0);
+    const out = JSON.parse(stdout) as TimingOutput;
+    // Kervella et al. 2004 (V−K) relation: log θ = 0.0755·1.5 + 0.5170 − 0.2·10.5 = −1.46975 → 0.033904 mas,
+    // × 4.8481368e-9 rad/mas × 6e9 km = 0.98623 km.
+    expect(Math.abs(out.starDiameterKm - 0.98623)).toBeLessThan(1e-4);
+  });
+
   it('run() on a light curve with no event prints null times and no dips, and says so on stderr', async () => {
     expect(await run([writeCsv(lightCurveCsv({ event: false })), ...FLAGS])).toBe(0);
     const out = JSON.parse(stdout) as TimingOutput;
@@ -289,6 +298,11 @@ describe('limbus time', () => {
         mainCsv,
         '--star-diameter-km: give either --star-diameter-km or --star-diameter-mas, not both',
         [...FLAGS, '--star-diameter-mas', '0.1'],
+      );
+      await expectBad(
+        mainCsv,
+        '--star-k-mag: the diameter from magnitudes needs both --star-v-mag and --star-k-mag',
+        [...FLAGS, '--star-v-mag', '12'],
       );
     });
   });

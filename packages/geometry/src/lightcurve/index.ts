@@ -19,4 +19,4 @@ export {
   type TimedEdge,
   type DipResult,
 } from './timing.js';
-export { starDiameterKmFromMas } from './star.js';
+export { starAngularDiameterMasFromVK, starDiameterKmFromMas } from './star.js';

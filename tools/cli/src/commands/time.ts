@@ -10,6 +10,7 @@ import {
   DEFAULT_DETECTION_SIGMA,
   fitTiming,
   GeometryInputError,
+  starAngularDiameterMasFromVK,
   starDiameterKmFromMas,
   type TimedEdge,
   type TimingResult,
@@ -21,7 +22,8 @@ export const TIMING_OUTPUT_FORMAT = 'limbus-timing/1';
 
 const USAGE =
   'usage: limbus time LIGHTCURVE.csv --speed-km-s V --distance-km D --exposure-s E [--wavelength-um 0.65] ' +
-  '[--bandwidth-um 0.3] [--star-diameter-km S | --star-diameter-mas M] [--bottom free|zero] ' +
+  '[--bandwidth-um 0.3] [--star-diameter-km S | --star-diameter-mas M | --star-v-mag V --star-k-mag K] ' +
+  '[--bottom free|zero] ' +
   '[--dip START/END ...] [--detection-sigma 6]';
 
 const MIN_ROWS = 8;
@@ -35,6 +37,8 @@ export interface TimingOptions {
   bandwidthUm: number;
   starDiameterKm?: number;
   starDiameterMas?: number;
+  starVMag?: number;
+  starKMag?: number;
   bottom: 'free' | 'zero';
   detectionSigma: number;
   dips: Array<{ start: string; end: string }>;
@@ -68,6 +72,8 @@ const NUMBER_OPTIONS = {
   '--bandwidth-um': 'bandwidthUm',
   '--star-diameter-km': 'starDiameterKm',
   '--star-diameter-mas': 'starDiameterMas',
+  '--star-v-mag': 'starVMag',
+  '--star-k-mag': 'starKMag',
   '--detection-sigma': 'detectionSigma',
 } as const;
 type NumberOption = keyof typeof NUMBER_OPTIONS;
@@ -168,6 +174,19 @@ export function parseTimingArguments(args: string[]): TimingOptions {
   if (numbers.starDiameterMas !== undefined && !(numbers.starDiameterMas >= 0)) {
     problems.push({ path: '--star-diameter-mas', message: 'must be zero or positive' });
   }
+  const hasMagnitudes = numbers.starVMag !== undefined || numbers.starKMag !== undefined;
+  if (hasMagnitudes && (numbers.starVMag === undefined || numbers.starKMag === undefined)) {
+    problems.push({
+      path: numbers.starVMag === undefined ? '--star-v-mag' : '--star-k-mag',
+      message: 'the diameter from magnitudes needs both --star-v-mag and --star-k-mag',
+    });
+  }
+  if (hasMagnitudes && (numbers.starDiameterKm !== undefined || numbers.starDiameterMas !== undefined)) {
+    problems.push({
+      path: '--star-v-mag',
+      message: 'give the star diameter or its magnitudes, not both',
+    });
+  }
   const detectionSigma = numbers.detectionSigma ?? DEFAULT_DETECTION_SIGMA;
   if (!(detectionSigma > 0)) problems.push({ path: '--detection-sigma', message: 'must be positive' });
   if (problems.length > 0) throw new InputProblems(problems);
@@ -180,6 +199,8 @@ export function parseTimingArguments(args: string[]): TimingOptions {
     bandwidthUm,
     ...(numbers.starDiameterKm === undefined ? {} : { starDiameterKm: numbers.starDiameterKm }),
     ...(numbers.starDiameterMas === undefined ? {} : { starDiameterMas: numbers.starDiameterMas }),
+    ...(numbers.starVMag === undefined ? {} : { starVMag: numbers.starVMag }),
+    ...(numbers.starKMag === undefined ? {} : { starKMag: numbers.starKMag }),
     bottom,
     detectionSigma,
     dips,
@@ -384,11 +405,14 @@ export async function timingFromFile(
     }
     return { startSeconds, endSeconds };
   });
+  const starDiameterMas =
+    options.starDiameterMas ??
+    (options.starVMag !== undefined && options.starKMag !== undefined
+      ? starAngularDiameterMasFromVK(options.starVMag, options.starKMag)
+      : undefined);
   const starDiameterKm =
     options.starDiameterKm ??
-    (options.starDiameterMas === undefined
-      ? 0
-      : starDiameterKmFromMas(options.starDiameterMas, options.distanceKm));
+    (starDiameterMas === undefined ? 0 : starDiameterKmFromMas(starDiameterMas, options.distanceKm));
   const profile = buildEdgeProfile({
     distanceKm: options.distanceKm,
     wavelengthUm: options.wavelengthUm,
