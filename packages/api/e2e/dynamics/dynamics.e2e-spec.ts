@@ -85,10 +85,25 @@ describe('dynamics context routes', () => {
     expect(stored.document.body.radiusKm).toBe(560);
   });
 
-  it('PUT /api/events/:eventId/dynamics is for coordinators and modellers; another team sees 404', async () => {
-    await put('observer', CONTEXT).expect(403);
-    await put('outsider', CONTEXT).expect(404);
-    await t.get(`/api/events/${eventId}/dynamics`).set(w.auth('outsider')).expect(404);
+  // Every cell of the dynamics rows of docs/authorization.md ("outsider" is the other team's coordinator).
+  it('GET and PUT /api/events/:eventId/dynamics answer each role as docs/authorization.md says', async () => {
+    const actors = [
+      'admin',
+      'coordinator',
+      'observer',
+      'modeller',
+      'reviewer',
+      'outsider',
+      'anonymous',
+    ] as const;
+    const gets: number[] = [];
+    const puts: number[] = [];
+    for (const actor of actors) {
+      gets.push((await t.get(`/api/events/${eventId}/dynamics`).set(w.auth(actor))).status);
+      puts.push((await put(actor, CONTEXT)).status);
+    }
+    expect(gets).toEqual([200, 200, 200, 200, 200, 404, 401]);
+    expect(puts).toEqual([200, 200, 403, 200, 403, 404, 401]);
   });
 
   it('GET /api/events/:eventId/dynamics sets the latest solved ring fit against the context', async () => {

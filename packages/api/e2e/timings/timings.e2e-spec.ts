@@ -204,6 +204,59 @@ describe('light-curve timing routes and job', () => {
     expect(await t.orm.em.fork().count(LightCurveTiming, { report: reportId })).toBe(before);
   });
 
+  const ACTORS = [
+    'admin',
+    'coordinator',
+    'observer',
+    'modeller',
+    'reviewer',
+    'outsider',
+    'anonymous',
+  ] as const;
+  async function freshSolvedTiming(): Promise<string> {
+    const response = await t
+      .post(`/api/events/${eventId}/reports/${reportId}/timings`)
+      .set(w.auth('modeller'))
+      .send(OPTIONS)
+      .expect(202);
+    const id = (response.body as { id: string }).id;
+    expect((await solved(id)).state).toBe('solved');
+    return id;
+  }
+
+  // Every cell of the timing rows of docs/authorization.md ("outsider" is the other team's coordinator).
+  it.each([
+    { route: 'POST …/reports/:reportId/timings', codes: [202, 202, 403, 202, 403, 404, 401] },
+    { route: 'GET …/reports/:reportId/timings', codes: [200, 200, 200, 200, 200, 404, 401] },
+    { route: 'GET …/timings/:timingId', codes: [200, 200, 200, 200, 200, 404, 401] },
+    { route: 'POST …/timings/:timingId/accept', codes: [200, 200, 403, 200, 403, 404, 401] },
+    { route: 'POST …/timings/:timingId/ring-events', codes: [201, 201, 403, 201, 403, 404, 401] },
+    { route: 'POST …/timings/:timingId/dips', codes: [202, 202, 403, 202, 403, 404, 401] },
+  ])('$route answers each role as docs/authorization.md says', async ({ route, codes }) => {
+    const actual: number[] = [];
+    for (const [k, actor] of ACTORS.entries()) {
+      const allowed = codes[k] !== undefined && codes[k] < 400;
+      // Ring events are made once per timing, so each allowed caller gets a timing of its own.
+      const id = route.endsWith('ring-events') && allowed ? await freshSolvedTiming() : timingId;
+      const url = route
+        .replace('POST ', '')
+        .replace('GET ', '')
+        .replace('…', `/api/events/${eventId}`)
+        .replace(':reportId', reportId)
+        .replace(':timingId', id);
+      const req = route.startsWith('GET') ? t.get(url) : t.post(url);
+      const body = route.endsWith('/timings')
+        ? OPTIONS
+        : route.endsWith('ring-events')
+          ? { ring: 'R9' }
+          : route.endsWith('dips')
+            ? { startUtc: '2028-03-14T02:14:27.5Z', endUtc: '2028-03-14T02:14:28.5Z' }
+            : {};
+      actual.push((await req.set(w.auth(actor)).send(body)).status);
+    }
+    expect(actual).toEqual(codes);
+  });
+
   it('timing routes: observers read but may not queue; another team sees nothing', async () => {
     await t.get(`/api/events/${eventId}/reports/${reportId}/timings`).set(w.auth('observer')).expect(200);
     await t
