@@ -44,10 +44,16 @@ type SectionId = (typeof SECTIONS)[number]['id'];
 
 const useStyles = makeStyles({
   page: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
+  // Fluent's text components are inline; the heading and its summary line stack.
+  header: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS },
   tabs: { overflowX: 'auto' },
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
   plots: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '100%' },
 });
+
+function utcText(iso: string): string {
+  return `${iso.slice(0, 19).replace('T', ' ')} UTC`;
+}
 
 /** The plot shows times in its tooltips; it takes the chords in the event file's own shape. */
 function toChordInput(row: ChordRow): ChordInput | null {
@@ -129,7 +135,7 @@ export function EventRoute() {
 
   return (
     <div className={styles.page}>
-      <header>
+      <header className={styles.header}>
         <Title3 as="h2">{e.title}</Title3>
         <Body1 as="p">
           Star RA {e.star.raDeg.toFixed(6)}°, Dec {e.star.decDeg.toFixed(6)}° · {e.stations.length} stations ·{' '}
@@ -186,7 +192,7 @@ export function EventRoute() {
             ) : null}
             {fit.data !== undefined ? (
               <Body1 as="p">
-                Showing the fit of {new Date(fit.data.createdAt).toLocaleString()}{' '}
+                Showing the fit of {utcText(fit.data.createdAt)}{' '}
                 <Badge appearance="outline">
                   {fit.data.reviewState === 'approved' ? 'approved' : fit.data.state}
                 </Badge>

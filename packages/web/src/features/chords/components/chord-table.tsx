@@ -41,6 +41,18 @@ const useStyles = makeStyles({
 
 const NEW_ROW_ID = '__new__';
 
+// Full ISO times must fit on one line; the grid would otherwise share the width out equally.
+const COLUMN_WIDTHS = {
+  station: { minWidth: 110, defaultWidth: 140 },
+  type: { minWidth: 90, defaultWidth: 100 },
+  from: { minWidth: 230, defaultWidth: 240 },
+  fromSigma: { minWidth: 70, defaultWidth: 80 },
+  to: { minWidth: 230, defaultWidth: 240 },
+  toSigma: { minWidth: 70, defaultWidth: 80 },
+  offset: { minWidth: 90, defaultWidth: 110 },
+  actions: { minWidth: 150, defaultWidth: 160 },
+};
+
 interface GridRow {
   id: string;
   chord: ChordRow | null;
@@ -338,6 +350,8 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
             sortable
             getRowId={(row: GridRow) => row.id}
             focusMode="composite"
+            resizableColumns
+            columnSizingOptions={COLUMN_WIDTHS}
           >
             <DataGridHeader>
               <DataGridRow>

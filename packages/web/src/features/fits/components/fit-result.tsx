@@ -108,7 +108,7 @@ export function FitResult({
         </>
       )}
       {solution.rings.map((ring) => (
-        <section key={ring.ring} aria-label={`Ring ${ring.ring}`}>
+        <section key={ring.ring} className={styles.result} aria-label={`Ring ${ring.ring}`}>
           <Subtitle2 as="h4">Ring {ring.ring}</Subtitle2>
           <Body1 as="p">
             Radius {withSigma(ring.radiusKm, ring.uncertainty.radiusKm, 1)} km, opening angle{' '}

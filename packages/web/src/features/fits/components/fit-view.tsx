@@ -13,6 +13,7 @@ import {
 import { useFitEvents } from '../api/fit-events';
 import { useFit, type Fit } from '../api/get-fit';
 import { FitResult } from './fit-result';
+import { utcText } from '../utc-text';
 import { Loading, RequestFailed } from '@/components/request-state';
 
 const useStyles = makeStyles({
@@ -55,7 +56,7 @@ export function FitView({ fitId }: { fitId: string }) {
   return (
     <section className={styles.view} aria-label="Selected fit">
       <div className={styles.heading}>
-        <Subtitle1 as="h3">Fit of {new Date(f.createdAt).toLocaleString()}</Subtitle1>
+        <Subtitle1 as="h3">Fit of {utcText(f.createdAt)}</Subtitle1>
         <Badge appearance="outline">{f.state}</Badge>
         <Badge
           appearance={f.reviewState === 'approved' ? 'filled' : 'outline'}

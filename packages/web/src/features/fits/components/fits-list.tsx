@@ -11,6 +11,7 @@ import {
 } from '@fluentui/react-components';
 import { useFits } from '../api/get-fits';
 import { REVIEW_LABELS } from './fit-view';
+import { utcText } from '../utc-text';
 import { Loading, RequestFailed } from '@/components/request-state';
 
 export function FitsList({
@@ -41,7 +42,7 @@ export function FitsList({
       </TableHeader>
       <TableBody>
         {newestFirst.map((fit) => {
-          const started = new Date(fit.createdAt).toLocaleString();
+          const started = utcText(fit.createdAt);
           return (
             <TableRow key={fit.id} aria-selected={fit.id === selectedFitId}>
               <TableCell>{started}</TableCell>

@@ -19,6 +19,11 @@ import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
 import { Loading, RequestFailed } from '@/components/request-state';
 
+// The desk speaks UTC throughout, as the timings do; a local clock time would invite mix-ups.
+function utcText(iso: string): string {
+  return `${iso.slice(0, 19).replace('T', ' ')} UTC`;
+}
+
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '48em' },
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
@@ -51,8 +56,7 @@ function History({ fitId }: { fitId: string }) {
     <ol className={styles.history} aria-label="Review history">
       {reviews.data.map((r) => (
         <li key={r.id}>
-          {new Date(r.createdAt).toLocaleString()}: {r.reviewerName ?? r.reviewer ?? 'someone'}{' '}
-          {DECISION_WORDS[r.decision]}
+          {utcText(r.createdAt)}: {r.reviewerName ?? r.reviewer ?? 'someone'} {DECISION_WORDS[r.decision]}
           {r.comment === '' ? '' : ` — “${r.comment}”`}
         </li>
       ))}
