@@ -50,8 +50,9 @@ describe('dynamics context routes', () => {
     await t.close();
   });
 
-  it('GET /api/events/:eventId/dynamics answers 404 before any context is stored', async () => {
-    await t.get(`/api/events/${eventId}/dynamics`).set(w.auth('observer')).expect(404);
+  it('GET /api/events/:eventId/dynamics answers an empty view before any context is stored', async () => {
+    const response = await t.get(`/api/events/${eventId}/dynamics`).set(w.auth('observer')).expect(200);
+    expect(response.body).toEqual({ input: null, result: null, ringFits: [], updatedAt: null });
   });
 
   it('PUT /api/events/:eventId/dynamics stores the input with its sources and returns the geometry result', async () => {

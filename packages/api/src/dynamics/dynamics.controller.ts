@@ -4,7 +4,7 @@ import { contextInputSchema } from '@limbus/schema';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
 import { openApiSchema } from '../common/zod-validation.pipe';
 import { Roles, TeamMember } from '../teams/roles.decorator';
-import { type DynamicsView, DynamicsService } from './dynamics.service';
+import { type DynamicsView, DynamicsService, type NoDynamics } from './dynamics.service';
 
 @ApiTags('dynamics')
 @ApiBearerAuth()
@@ -14,7 +14,7 @@ export class DynamicsController {
 
   @Get()
   @TeamMember()
-  get(@Param('eventId') eventId: string): Promise<DynamicsView> {
+  get(@Param('eventId') eventId: string): Promise<DynamicsView | NoDynamics> {
     return this.dynamics.get(eventId);
   }
 

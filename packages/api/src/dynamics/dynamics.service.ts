@@ -23,6 +23,14 @@ export interface DynamicsView {
   updatedAt: string;
 }
 
+/** No context stored yet is an ordinary state of an event, not a missing resource, so it is not a 404. */
+export interface NoDynamics {
+  input: null;
+  result: null;
+  ringFits: [];
+  updatedAt: null;
+}
+
 @Injectable()
 export class DynamicsService {
   constructor(
@@ -69,10 +77,10 @@ export class DynamicsService {
     return this.view(row);
   }
 
-  async get(eventId: string): Promise<DynamicsView> {
+  async get(eventId: string): Promise<DynamicsView | NoDynamics> {
     await this.event(eventId);
     const row = await this.em.findOne(DynamicsContext, { event: eventId });
-    if (!row) throw new NotFoundError('This event has no dynamics context yet');
+    if (!row) return { input: null, result: null, ringFits: [], updatedAt: null };
     return this.view(row);
   }
 

@@ -72,4 +72,7 @@ export const dynamicsViewSchema = z.object({
 });
 export type DynamicsView = z.infer<typeof dynamicsViewSchema>;
 
+/** What the route answers before any context is stored. */
+export const noDynamicsSchema = z.object({ input: z.null(), result: z.null() });
+
 export const dynamicsQueryKey = (eventId: string) => ['dynamics', eventId] as const;

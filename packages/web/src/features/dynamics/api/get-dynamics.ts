@@ -1,18 +1,16 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { dynamicsQueryKey, dynamicsViewSchema, type DynamicsView } from './dynamics-schema';
-import { ApiError, apiRequest } from '@/lib/api-client';
+import { z } from 'zod';
+import { dynamicsQueryKey, dynamicsViewSchema, type DynamicsView, noDynamicsSchema } from './dynamics-schema';
+import { apiRequest } from '@/lib/api-client';
 
-/** null when the event has no context yet (404), so the panel can offer the form instead of an error. */
-export async function getDynamics(eventId: string, signal?: AbortSignal): Promise<DynamicsView | null> {
-  try {
-    return await apiRequest(`/api/events/${encodeURIComponent(eventId)}/dynamics`, {
-      schema: dynamicsViewSchema,
-      signal,
-    });
-  } catch (error) {
-    if (error instanceof ApiError && error.status === 404) return null;
-    throw error;
-  }
+const responseSchema = z.union([noDynamicsSchema.transform(() => null), dynamicsViewSchema]);
+
+/** null when the event has no context yet, so the panel can offer the form. */
+export function getDynamics(eventId: string, signal?: AbortSignal): Promise<DynamicsView | null> {
+  return apiRequest(`/api/events/${encodeURIComponent(eventId)}/dynamics`, {
+    schema: responseSchema,
+    signal,
+  });
 }
 
 export function dynamicsQueryOptions(eventId: string) {

@@ -55,7 +55,7 @@ describe('DynamicsPanel', () => {
   });
 
   it('DynamicsPanel offers the form when the event has no context yet', async () => {
-    stubFetch(() => jsonResponse(404, { message: 'This event has no dynamics context yet' }));
+    stubFetch(() => jsonResponse(200, { input: null, result: null, ringFits: [], updatedAt: null }));
     renderWithProviders(<DynamicsPanel eventId="e1" canEdit />);
     expect(await screen.findByText('No dynamics context for this body yet.')).toBeInTheDocument();
     expect(screen.getByRole('form', { name: 'Dynamics context inputs' })).toBeInTheDocument();
