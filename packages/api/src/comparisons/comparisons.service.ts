@@ -92,9 +92,11 @@ export class ComparisonsService {
   }
 
   async getJoint(jointId: string): Promise<JointPoleView> {
+    // State first, then the job: read the other way round, a job finishing in between would be seen
+    // as completed without its return value.
+    const state = await this.queue.getJobState(jointId);
     const job = await this.queue.getJob(jointId);
-    if (!job) throw new NotFoundError();
-    const state = await job.getState();
+    if (!job || state === 'unknown') throw new NotFoundError();
     const view: JointPoleView = {
       id: jointId,
       state: 'queued',
@@ -110,7 +112,8 @@ export class ComparisonsService {
       view.issues = [{ path: '(job)', message: job.failedReason || 'the joint fit stopped' }];
     } else if (state === 'completed') {
       const r = job.returnvalue;
-      if (r.ok) {
+      if (r === null || r === undefined) view.state = 'running';
+      else if (r.ok) {
         view.state = 'solved';
         view.result = r.result;
       } else {

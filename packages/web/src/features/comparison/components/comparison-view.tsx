@@ -89,7 +89,9 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
 
   return (
     <section className={styles.page} aria-labelledby="comparison-title">
-      <Title2 id="comparison-title">Comparison of fits — {teamName}</Title2>
+      <Title2 as="h2" id="comparison-title">
+        Comparison of fits — {teamName}
+      </Title2>
       <div className={styles.controls}>
         <Switch
           label="Include fits that are not approved"

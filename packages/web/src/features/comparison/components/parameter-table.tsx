@@ -14,6 +14,8 @@ import { fitColour, formatValueSigma } from '../format';
 
 const useStyles = makeStyles({
   scroll: { overflowX: 'auto' },
+  // Fluent's table is fixed-layout; these columns must grow to their numbers instead of overlapping.
+  table: { tableLayout: 'auto', width: 'max-content', minWidth: '100%' },
   number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end', whiteSpace: 'nowrap' },
   swatch: { display: 'inline-block', width: '10px', height: '10px', marginRight: tokens.spacingHorizontalXS },
 });
@@ -39,7 +41,7 @@ export function ParameterTable({ fits, ringLabels, selected, onToggle }: Paramet
   const styles = useStyles();
   return (
     <div className={styles.scroll}>
-      <Table aria-label="Parameters by event" size="small">
+      <Table className={styles.table} aria-label="Parameters by event" size="small">
         <TableHeader>
           <TableRow>
             <TableHeaderCell>Joint pole</TableHeaderCell>

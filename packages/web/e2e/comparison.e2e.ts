@@ -1,0 +1,100 @@
+import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import {
+  apiJson,
+  apiToken,
+  baseUrl,
+  openBrowser,
+  signIn,
+  unexpectedFailures,
+  type BrowserSession,
+} from './browser';
+
+const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
+// Invented events of one ring seen from two star directions (docs/examples and the CLI's joint fixtures).
+const EVENT_FILES = ['docs/examples/event-example.json', 'tools/cli/test/fixtures/joint-2031.json'];
+
+let session: BrowserSession;
+const fitIds: string[] = [];
+
+async function importEvent(token: string, teamId: string, file: string): Promise<string> {
+  const form = new FormData();
+  form.append('teamId', teamId);
+  form.append(
+    'file',
+    new Blob([readFileSync(resolve(ROOT, file))], { type: 'application/json' }),
+    'event.json',
+  );
+  const response = await fetch(`${baseUrl()}/api/events/import`, {
+    method: 'POST',
+    headers: { Authorization: `Bearer ${token}` },
+    body: form,
+  });
+  if (!response.ok) throw new Error(`import of ${file} failed: ${response.status} ${await response.text()}`);
+  return ((await response.json()) as { id: string }).id;
+}
+
+async function solvedFit(token: string, eventId: string): Promise<string> {
+  const { id } = await apiJson<{ id: string }>(token, `/api/events/${eventId}/fits`, {
+    method: 'POST',
+    body: { options: {} },
+  });
+  for (let attempt = 0; attempt < 300; attempt++) {
+    const { state } = await apiJson<{ state: string }>(token, `/api/fits/${id}`);
+    if (state === 'solved') return id;
+    if (state === 'failed') throw new Error(`fit ${id} failed`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`fit ${id} did not finish`);
+}
+
+beforeAll(async () => {
+  const coordinator = await apiToken('coordinator@example.org', 'limbus-demo');
+  const modeller = await apiToken('modeller@example.org', 'limbus-demo');
+  const me = await apiJson<{ teams: Array<{ id: string }> }>(coordinator, '/api/me');
+  const teamId = me.teams[0]?.id;
+  if (teamId === undefined) throw new Error('the demo coordinator has no team');
+  for (const file of EVENT_FILES)
+    fitIds.push(await solvedFit(modeller, await importEvent(coordinator, teamId, file)));
+  session = await openBrowser();
+  await signIn(session.page, 'modeller@example.org', 'limbus-demo');
+  await session.page.waitForURL(`${baseUrl()}/events`);
+});
+
+afterAll(async () => {
+  await session.close();
+});
+
+describe('comparison in the browser', () => {
+  it('the comparison page shows the parameter table and the pole chart, and fits the joint pole of two events', async () => {
+    const { page } = session;
+    await page.getByRole('link', { name: 'Comparison' }).click();
+    await page.getByRole('heading', { name: /^Comparison of fits/ }).waitFor();
+    // The demo's fits are not reviewed; the comparison shows approved fits unless asked for all.
+    await page.getByRole('switch', { name: 'Include fits that are not approved' }).check();
+    const table = page.getByRole('table', { name: 'Parameters by event' });
+    for (const id of fitIds) await table.locator(`[data-fit="${id}"]`).waitFor();
+    await expect(table.locator(`[data-fit="${fitIds[0]}"]`).textContent()).resolves.toMatch(
+      /\d+\.\d+ ± \d+\.\d+/,
+    );
+    // Other tests may have left fits in the demo team: the joint pole here uses only this test's two.
+    for (const row of await table.locator('[data-fit]').all()) {
+      const id = await row.getAttribute('data-fit');
+      const box = row.getByRole('checkbox');
+      if (!fitIds.includes(id ?? '') && (await box.isChecked())) await box.uncheck();
+    }
+    const chart = page.getByRole('img', { name: /^Pole candidates of ring R1/ });
+    await chart.waitFor();
+    await expect(chart.locator('[data-pole]').count()).resolves.toBeGreaterThanOrEqual(4);
+    await page.getByRole('button', { name: 'Fit joint pole of ring R1 (2 events)' }).click();
+    const status = page.getByRole('status', { name: 'Joint pole' });
+    await status.waitFor({ timeout: 30_000 });
+    await expect(status.textContent()).resolves.toMatch(/Joint pole of ring R1: RA \d+\.\d\d° ± \d+\.\d\d°/);
+    await chart.locator('[data-role="joint-pole"] ellipse').waitFor();
+    await session.screenshot('comparison');
+    expect(session.consoleErrors).toEqual([]);
+    expect(unexpectedFailures(session.failedResponses, [])).toEqual([]);
+  });
+});
