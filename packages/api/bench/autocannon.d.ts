@@ -1,0 +1,25 @@
+// The slice of autocannon's API the bench uses; the package ships no types.
+declare module 'autocannon' {
+  interface Histogram {
+    average: number;
+    mean: number;
+    p50: number;
+    p99: number;
+    max: number;
+  }
+  interface Result {
+    requests: Histogram & { total: number };
+    latency: Histogram;
+    non2xx: number;
+    errors: number;
+    duration: number;
+  }
+  interface Options {
+    url: string;
+    connections?: number;
+    duration?: number;
+    headers?: Record<string, string>;
+  }
+  function autocannon(options: Options): Promise<Result>;
+  export default autocannon;
+}
