@@ -40,6 +40,15 @@ describe('event routes', () => {
     expect(await em.count(Chord, { event: id })).toBe((file.chords as unknown[]).length);
     expect(await em.count(RingEvent, { event: id })).toBe((file.ringEvents as unknown[]).length);
     expect(await em.count(AuditEntry, { eventId: id, action: 'event.import' })).toBe(1);
+    const audit = await t.get(`/api/events/${id}/audit`).set(w.auth('coordinator')).expect(200);
+    expect(audit.body).toEqual([
+      expect.objectContaining({
+        action: 'event.import',
+        objectType: 'event',
+        objectId: id,
+        actorId: w.userIds.coordinator,
+      }),
+    ]);
   });
 
   it('GET /api/events/:eventId/export gives back a file that imports to an equal event (round trip)', async () => {
