@@ -7,7 +7,13 @@ import type { ComparisonView } from '../../src/comparisons/comparison-view';
 import type { JointPoleView } from '../../src/comparisons/comparisons.service';
 import { jointPole } from '../../src/comparisons/joint-pole';
 import { FitRun } from '../../src/fits/entities/fit-run.entity';
-import { createWorkspace, exampleEvent, importExample, type Workspace } from '../events/workspace';
+import {
+  type Actor,
+  createWorkspace,
+  exampleEvent,
+  importExample,
+  type Workspace,
+} from '../events/workspace';
 import { bootWorker } from '../fits/worker';
 import { bootTestApp, type TestApp } from '../setup';
 
@@ -178,5 +184,61 @@ describe('comparison across events and the joint ring pole job', () => {
     ).id;
     await t.get(`/api/joint-poles/${id}`).set(w.auth('outsider')).expect(404);
     await t.get(`/api/joint-poles/00000000-0000-0000-0000-000000000000`).set(w.auth('observer')).expect(404);
+  });
+  it('every cell of the exports and comparison rows of docs/authorization.md', async () => {
+    const jointId = (
+      (
+        await t
+          .post(`/api/teams/${w.team.id}/joint-poles`)
+          .set(w.auth('modeller'))
+          .send({ fitIds })
+          .expect(202)
+      ).body as { id: string }
+    ).id;
+    const fit = fitIds[0] as string;
+    const anyone = {
+      admin: 200,
+      coordinator: 200,
+      observer: 200,
+      modeller: 200,
+      reviewer: 200,
+      outsider: 404,
+      anonymous: 401,
+    };
+    const matrix: Array<{
+      method: 'get' | 'post';
+      url: string;
+      body?: object;
+      expected: Record<Actor, number>;
+    }> = [
+      { method: 'get', url: `/api/fits/${fit}/figure?format=svg`, expected: anyone },
+      { method: 'get', url: `/api/fits/${fit}/table?format=csv`, expected: anyone },
+      { method: 'get', url: `/api/teams/${w.team.id}/comparison`, expected: anyone },
+      {
+        method: 'post',
+        url: `/api/teams/${w.team.id}/joint-poles`,
+        body: { fitIds: [fit] },
+        expected: {
+          admin: 202,
+          coordinator: 202,
+          observer: 403,
+          modeller: 202,
+          reviewer: 403,
+          outsider: 404,
+          anonymous: 401,
+        },
+      },
+      { method: 'get', url: `/api/joint-poles/${jointId}`, expected: anyone },
+    ];
+    const seen: string[] = [];
+    const wanted: string[] = [];
+    for (const row of matrix)
+      for (const [actor, status] of Object.entries(row.expected) as Array<[Actor, number]>) {
+        const req = row.method === 'get' ? t.get(row.url) : t.post(row.url).send(row.body);
+        const res = await req.set(w.auth(actor));
+        seen.push(`${row.method} ${row.url} ${actor} ${res.status}`);
+        wanted.push(`${row.method} ${row.url} ${actor} ${status}`);
+      }
+    expect(seen).toEqual(wanted);
   });
 });
