@@ -209,6 +209,35 @@ describe('event desk in the browser', () => {
     ).toEqual([]);
   }, 90_000);
 
+  it('importing an event file with mistakes lists each problem by its JSON path and creates nothing', async () => {
+    session = await openBrowser();
+    const { page } = session;
+    await signIn(page, 'coordinator@example.org', PASSWORD);
+    await page.waitForURL(`${baseUrl()}/events`);
+    await page.locator(`a[href="/events/${eventId}"]`).waitFor();
+    const before = await page.locator('a[href^="/events/"]').count();
+    await page.getByRole('button', { name: 'New event…' }).click();
+    const example = JSON.parse(readFileSync(EXAMPLE_EVENT, 'utf8')) as { earthRotation?: unknown };
+    const broken = { ...example, earthRotation: { dut1Seconds: 1.5 } };
+    await page.getByLabel('Event file (limbus-event/1 JSON)').setInputFiles({
+      name: 'broken-event.json',
+      mimeType: 'application/json',
+      buffer: Buffer.from(JSON.stringify(broken)),
+    });
+    await page.getByRole('button', { name: 'Import', exact: true }).click();
+    const problems = page.getByRole('list', { name: 'Problems in the event file' });
+    await problems.waitFor();
+    await expect(problems.textContent()).resolves.toMatch(/earthRotation\.dut1Seconds/);
+    await session.screenshot('event-desk-import-error');
+    await page.reload();
+    await page.locator(`a[href="/events/${eventId}"]`).waitFor();
+    await expect(page.locator('a[href^="/events/"]').count()).resolves.toBe(before);
+    expect(session.consoleErrors).toEqual([]);
+    expect(
+      unexpectedFailures(session.failedResponses, [...RELOAD, { status: 400, path: '/api/events/import' }]),
+    ).toEqual([]);
+  }, 60_000);
+
   it('the event desk works in a narrow window', async () => {
     session = await openBrowser({ width: 420, height: 860 });
     await signIn(session.page, 'modeller@example.org', PASSWORD);
