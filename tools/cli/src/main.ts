@@ -34,7 +34,9 @@ main(process.argv.slice(2)).then(
     process.exitCode = code;
   },
   (error: unknown) => {
-    process.stderr.write(`limbus: internal error: ${error instanceof Error ? error.message : String(error)}\n`);
+    process.stderr.write(
+      `limbus: internal error: ${error instanceof Error ? error.message : String(error)}\n`,
+    );
     process.exitCode = 1;
   },
 );
