@@ -29,6 +29,8 @@ describe('fit worker killed mid-job', () => {
         FIT_TEST_DELAY_MS: '20000',
         FIT_STALLED_INTERVAL_MS: '1000',
         FIT_LOCK_DURATION_MS: '1000',
+        // High, so that it takes this job even when jobs left over from other test files are waiting.
+        FIT_CONCURRENCY: '32',
       }),
     );
     children.push(slow);
