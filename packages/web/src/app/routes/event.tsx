@@ -127,6 +127,9 @@ export function EventRoute() {
   const canEditChords = has('coordinator', 'modeller');
   const stationCodes = e.stations.map((s) => s.code);
   const ownStationIds = e.stations.filter((s) => s.observerId === me.id).map((s) => s.id);
+  // An observer and nothing more sees only their own stations; the server already limits their reports.
+  const observerOnly = !has('coordinator', 'modeller', 'reviewer');
+  const visibleStations = observerOnly ? e.stations.filter((s) => s.observerId === me.id) : e.stations;
   const solution = fit.data?.state === 'solved' ? (fit.data.solution ?? null) : null;
   const chordInputs = (chords.data ?? []).map(toChordInput).filter((c): c is ChordInput => c !== null);
   const positiveStations = [
@@ -166,7 +169,7 @@ export function EventRoute() {
         {section === 'stations' ? (
           <>
             <Subtitle1 as="h3">Stations</Subtitle1>
-            <StationsPanel eventId={e.id} stations={e.stations} canEdit={has('coordinator')} />
+            <StationsPanel eventId={e.id} stations={visibleStations} canEdit={has('coordinator')} />
             <Subtitle1 as="h3">Observer reports</Subtitle1>
             <ReportsPanel
               eventId={e.id}

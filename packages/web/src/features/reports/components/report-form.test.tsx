@@ -38,6 +38,26 @@ describe('ReportForm', () => {
     });
   });
 
+  it('ReportForm uploads the chosen light curve to the report it has just created', async () => {
+    const calls = stubFetch((call) =>
+      call.url.endsWith('/light-curve') ? jsonResponse(201, {}) : jsonResponse(201, { id: 'r9' }),
+    );
+    const onSaved = vi.fn();
+    renderWithProviders(<ReportForm eventId="e1" stations={STATIONS} report={null} onSaved={onSaved} />);
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('radio', { name: 'Technical failure' }));
+    await user.upload(
+      screen.getByLabelText(/^Light curve file/),
+      new File(['t,flux\n0,1.00\n0.04,0.98\n'], 'kestrel-hill.csv', { type: 'text/csv' }),
+    );
+    await user.click(screen.getByRole('button', { name: 'Submit report' }));
+    await waitFor(() => expect(onSaved).toHaveBeenCalledWith('r9'));
+    expect(calls.map((c) => `${c.method} ${c.url}`)).toEqual([
+      'POST /api/events/e1/reports',
+      'POST /api/reports/r9/light-curve',
+    ]);
+  });
+
   it('ReportForm asks a positive report for its timings and sends nothing without them', async () => {
     const calls = stubFetch(() => jsonResponse(201, { id: 'r7' }));
     renderWithProviders(<ReportForm eventId="e1" stations={STATIONS} report={null} />);
