@@ -2,6 +2,9 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { INestApplicationContext } from '@nestjs/common';
 import type { Solution } from '@limbus/geometry';
+import { PDFDocument } from 'pdf-lib';
+import type request from 'supertest';
+import { XMLValidator } from 'fast-xml-parser';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ComparisonView } from '../../src/comparisons/comparison-view';
 import type { JointPoleView } from '../../src/comparisons/comparisons.service';
@@ -24,6 +27,15 @@ const FIXTURES = path.resolve(__dirname, '../../../../tools/cli/test/fixtures');
 const fixture = (name: string) =>
   JSON.parse(readFileSync(path.join(FIXTURES, name), 'utf8')) as Record<string, unknown>;
 const TRUE_POLE = { raDeg: 41, decDeg: 27 };
+
+/** Collects a binary body: supertest buffers only text types by default. */
+function binary(req: request.Test): request.Test {
+  return req.buffer(true).parse((res, done) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => done(null, Buffer.concat(chunks)));
+  });
+}
 
 describe('comparison across events and the joint ring pole job', () => {
   let t: TestApp;
@@ -185,6 +197,35 @@ describe('comparison across events and the joint ring pole job', () => {
     await t.get(`/api/joint-poles/${id}`).set(w.auth('outsider')).expect(404);
     await t.get(`/api/joint-poles/00000000-0000-0000-0000-000000000000`).set(w.auth('observer')).expect(404);
   });
+  it('GET /api/teams/:teamId/comparison/figure draws the chosen fits and a solved joint pole as SVG, PNG and PDF', async () => {
+    const view = await joint({ fitIds });
+    const base = `/api/teams/${w.team.id}/comparison/figure?fits=all&jointId=${view.id}`;
+    const svg = await t.get(`${base}&format=svg&widthMm=180`).set(w.auth('observer')).expect(200);
+    const text = Buffer.isBuffer(svg.body) ? svg.body.toString('utf8') : svg.text;
+    expect(XMLValidator.validate(text)).toBe(true);
+    for (const id of fitIds) expect(text).toContain(`fitId="${id}"`);
+    expect(text.match(/data-pole="/g)).toHaveLength(2 * fitIds.length);
+    expect(text).toContain('data-role="joint-pole"');
+    const png = (
+      await binary(t.get(`${base}&format=png&widthMm=88&dpi=600`).set(w.auth('observer'))).expect(200)
+    ).body as Buffer;
+    expect(png.readUInt32BE(16)).toBe(2079);
+    const pdf = (await binary(t.get(`${base}&format=pdf`).set(w.auth('observer'))).expect(200))
+      .body as Buffer;
+    const doc = await PDFDocument.load(pdf, { updateMetadata: false });
+    for (const id of fitIds) expect(doc.getKeywords()).toContain(`fitId=${id}`);
+    // A joint job of another team is not found, one that failed cannot be drawn.
+    await t
+      .get(`/api/teams/${w.team.id}/comparison/figure?format=svg&jointId=nope`)
+      .set(w.auth('observer'))
+      .expect(404);
+    const failed = await joint({ fitIds: fitIds.slice(0, 1), ring: 'R9' });
+    await t
+      .get(`/api/teams/${w.team.id}/comparison/figure?format=svg&jointId=${failed.id}`)
+      .set(w.auth('observer'))
+      .expect(409);
+  });
+
   it('every cell of the exports and comparison rows of docs/authorization.md', async () => {
     const jointId = (
       (
@@ -214,6 +255,7 @@ describe('comparison across events and the joint ring pole job', () => {
       { method: 'get', url: `/api/fits/${fit}/figure?format=svg`, expected: anyone },
       { method: 'get', url: `/api/fits/${fit}/table?format=csv`, expected: anyone },
       { method: 'get', url: `/api/teams/${w.team.id}/comparison`, expected: anyone },
+      { method: 'get', url: `/api/teams/${w.team.id}/comparison/figure?format=svg`, expected: anyone },
       {
         method: 'post',
         url: `/api/teams/${w.team.id}/joint-poles`,

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { figureQuerySchema } from '../exports/export-query';
 
 /** Approved fits are what a team stands behind; "all" adds every other solved fit, on request. */
 export const comparisonQuerySchema = z.strictObject({
@@ -10,6 +11,14 @@ export const comparisonQuerySchema = z.strictObject({
     .transform((s) => (s === undefined || s === '' ? null : s.split(',').map((id) => id.trim()))),
 });
 export type ComparisonQuery = z.infer<typeof comparisonQuerySchema>;
+
+export const comparisonFigureQuerySchema = z.strictObject({
+  ...comparisonQuerySchema.shape,
+  ...figureQuerySchema.shape,
+  /** A solved joint-pole job of this team, drawn on the pole panel. */
+  jointId: z.string().min(1).max(36).optional(),
+});
+export type ComparisonFigureQuery = z.infer<typeof comparisonFigureQuerySchema>;
 
 export const jointPolePayloadSchema = z.strictObject({
   fitIds: z.array(z.string().min(1).max(36)).min(1).max(50),

@@ -1,9 +1,12 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiQuery, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, HttpCode, Param, Post, Query, Res, StreamableFile } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiProduces, ApiQuery, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { Roles, TeamMember } from '../teams/roles.decorator';
 import {
+  type ComparisonFigureQuery,
+  comparisonFigureQuerySchema,
   type ComparisonQuery,
   comparisonQuerySchema,
   type JointPolePayload,
@@ -27,6 +30,25 @@ export class ComparisonsController {
     @Query(new ZodValidationPipe(comparisonQuerySchema)) query: ComparisonQuery,
   ): Promise<ComparisonView> {
     return this.comparisons.comparison(teamId, query);
+  }
+
+  @Get('teams/:teamId/comparison/figure')
+  @TeamMember()
+  @ApiProduces('image/svg+xml', 'application/pdf', 'image/png')
+  @ApiQuery({ name: 'format', enum: ['svg', 'pdf', 'png'] })
+  @ApiQuery({ name: 'widthMm', required: false, description: '40 to 300; 88 single column, 180 double' })
+  @ApiQuery({ name: 'dpi', required: false, enum: ['300', '600'], description: 'PNG only' })
+  @ApiQuery({ name: 'fits', required: false, enum: ['approved', 'all'] })
+  @ApiQuery({ name: 'events', required: false, description: 'comma-separated event ids' })
+  @ApiQuery({ name: 'jointId', required: false, description: 'a solved joint pole to draw' })
+  async figure(
+    @Param('teamId') teamId: string,
+    @Query(new ZodValidationPipe(comparisonFigureQuerySchema)) query: ComparisonFigureQuery,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<StreamableFile> {
+    const file = await this.comparisons.figure(teamId, query);
+    res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
+    return new StreamableFile(file.body, { type: file.contentType, length: file.body.length });
   }
 
   @Post('teams/:teamId/joint-poles')

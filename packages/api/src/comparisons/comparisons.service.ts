@@ -5,9 +5,14 @@ import { Injectable } from '@nestjs/common';
 import { validateEventFile } from '@limbus/schema';
 import type { Queue } from 'bullmq';
 import type { AuthUser } from '../auth/auth-user';
-import { NotFoundError, ValidationError } from '../common/domain-errors';
+import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
+import { comparisonCaptionDraft, renderComparisonFigureSvg } from '../exports/comparison-figure-svg';
+import type { ExportFile } from '../exports/exports.service';
+import { type Provenance, provenanceOf } from '../exports/provenance';
+import { renderPdf, renderPng } from '../exports/raster';
 import { FitRun } from '../fits/entities/fit-run.entity';
-import type { ComparisonQuery, JointPolePayload } from './comparison-schemas';
+import { Team } from '../teams/entities/team.entity';
+import type { ComparisonFigureQuery, ComparisonQuery, JointPolePayload } from './comparison-schemas';
 import { comparisonFit, type ComparisonView } from './comparison-view';
 import type { JointPoleDocument } from './joint-pole';
 import { JOINT_QUEUE, JOINT_RESULT_KEEP_SECONDS, type JointJobData } from './joint-queue';
@@ -32,6 +37,13 @@ export class ComparisonsService {
   ) {}
 
   async comparison(teamId: string, query: ComparisonQuery): Promise<ComparisonView> {
+    return (await this.load(teamId, query)).view;
+  }
+
+  private async load(
+    teamId: string,
+    query: ComparisonQuery,
+  ): Promise<{ view: ComparisonView; provenance: Provenance[] }> {
     const fits = await this.em.find(
       FitRun,
       {
@@ -48,14 +60,53 @@ export class ComparisonsService {
     const rows = fits.flatMap((f) => {
       const v = validateEventFile(JSON.parse(f.input));
       if (!v.ok || f.solution === null) return [];
-      return [comparisonFit(f, f.event, v.event, f.solution)];
+      return [{ row: comparisonFit(f, f.event, v.event, f.solution), provenance: provenanceOf(f) }];
     });
-    rows.sort((a, b) => (a.eventDateUtc ?? '').localeCompare(b.eventDateUtc ?? ''));
+    rows.sort((a, b) => (a.row.eventDateUtc ?? '').localeCompare(b.row.eventDateUtc ?? ''));
     return {
-      teamId,
-      selection: query.fits,
-      ringLabels: [...new Set(rows.flatMap((r) => r.rings.map((g) => g.ring)))],
-      fits: rows,
+      view: {
+        teamId,
+        selection: query.fits,
+        ringLabels: [...new Set(rows.flatMap((r) => r.row.rings.map((g) => g.ring)))],
+        fits: rows.map((r) => r.row),
+      },
+      provenance: rows.map((r) => r.provenance),
+    };
+  }
+
+  /** The comparison as a figure; with `jointId`, that solved joint pole (of this team) is drawn too. */
+  async figure(teamId: string, query: ComparisonFigureQuery): Promise<ExportFile> {
+    const { view, provenance } = await this.load(teamId, query);
+    let joint: JointPoleDocument | null = null;
+    if (query.jointId !== undefined) {
+      if ((await this.teamOfJoint(query.jointId)) !== teamId) throw new NotFoundError();
+      const job = await this.getJoint(query.jointId);
+      if (job.result === null)
+        throw new ConflictError(`joint pole ${query.jointId} is ${job.state}, not solved`);
+      joint = job.result;
+    }
+    const team = await this.em.findOneOrFail(Team, { id: teamId }, { fields: ['name'] });
+    const ring = joint?.ring ?? view.ringLabels[0] ?? null;
+    const caption = comparisonCaptionDraft(team.name, view.selection, view.fits, ring, joint);
+    const input = { fits: view.fits, ring, joint, caption, provenance, widthMm: query.widthMm };
+    const base = `limbus-comparison-${teamId}-${query.widthMm}mm`;
+    if (query.format === 'svg') {
+      const { svg } = renderComparisonFigureSvg({ ...input, embedFont: true, sizeUnit: 'mm' });
+      return { body: Buffer.from(svg, 'utf8'), contentType: 'image/svg+xml', fileName: `${base}.svg` };
+    }
+    if (query.format === 'png') {
+      const { svg } = renderComparisonFigureSvg({ ...input, embedFont: false, sizeUnit: 'mm' });
+      return {
+        body: renderPng(svg, query.widthMm, query.dpi, provenance),
+        contentType: 'image/png',
+        fileName: `${base}-${query.dpi}dpi.png`,
+      };
+    }
+    const fig = renderComparisonFigureSvg({ ...input, embedFont: false, sizeUnit: 'pt' });
+    return {
+      body: await renderPdf(fig.svg, fig.widthPt, fig.heightPt, provenance),
+      contentType: 'application/pdf',
+      fileName: `${base}.pdf`,
     };
   }
 

@@ -10,6 +10,7 @@ import {
 } from '@limbus/geometry';
 import { FIGURE_FONT_FAMILY, latoFontFaceCss } from './fonts';
 import { type Provenance, provenanceEntries, provenanceLine } from './provenance';
+import { escapeXml as esc, svgNumber as n } from './svg-text';
 
 /** Okabe–Ito colours, as in the client's plot (packages/web/src/features/sky-plane/palette.ts cites the source). */
 const COLOUR = {
@@ -50,15 +51,6 @@ export interface SvgFigure {
   svg: string;
   widthPt: number;
   heightPt: number;
-}
-
-function esc(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
-}
-
-/** Coordinates are written with 0.01 pt resolution: finer than any printer, and keeps files small. */
-function n(x: number): string {
-  return (Math.round(x * 100) / 100).toString();
 }
 
 /** 1, 2 or 5 times a power of ten, the usual "nice" axis steps (common practice, no source). */

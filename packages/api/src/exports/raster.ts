@@ -28,7 +28,8 @@ function pngChunk(type: string, data: Buffer): Buffer {
  * Adds pHYs (the print resolution, so a layout program places the figure at its width) and one tEXt
  * chunk per provenance field, right after IHDR (PNG spec, W3C 2nd ed., sections 11.3.5.3 and 11.3.4.3).
  */
-export function withPngMetadata(png: Buffer, dpi: number, provenance: Provenance): Buffer {
+export function withPngMetadata(png: Buffer, dpi: number, provenance: Provenance | Provenance[]): Buffer {
+  const all = Array.isArray(provenance) ? provenance : [provenance];
   const ihdrEnd = 8 + 8 + 13 + 4;
   const perMetre = Math.round(dpi / 0.0254);
   const phys = Buffer.alloc(9);
@@ -37,13 +38,19 @@ export function withPngMetadata(png: Buffer, dpi: number, provenance: Provenance
   phys.writeUInt8(1, 8);
   const texts = [
     ['Software', 'Limbus'],
-    ['Description', provenanceLine(provenance)],
-    ...provenanceEntries(provenance).map(([k, v]) => [`Limbus ${k}`, v]),
+    ['Description', all.map(provenanceLine).join(' | ')],
+    // tEXt keywords may repeat (PNG spec, 11.3.4.3): a comparison figure lists each fit's fields in turn.
+    ...all.flatMap((p) => provenanceEntries(p).map(([k, v]) => [`Limbus ${k}`, v])),
   ].map(([k, v]) => pngChunk('tEXt', Buffer.from(`${k}\0${v}`, 'latin1')));
   return Buffer.concat([png.subarray(0, ihdrEnd), pngChunk('pHYs', phys), ...texts, png.subarray(ihdrEnd)]);
 }
 
-export function renderPng(svg: string, widthMm: number, dpi: number, provenance: Provenance): Buffer {
+export function renderPng(
+  svg: string,
+  widthMm: number,
+  dpi: number,
+  provenance: Provenance | Provenance[],
+): Buffer {
   const resvg = new Resvg(svg, {
     fitTo: { mode: 'width', value: pixelWidth(widthMm, dpi) },
     background: '#ffffff',
@@ -56,9 +63,16 @@ export function renderPdf(
   svg: string,
   widthPt: number,
   heightPt: number,
-  provenance: Provenance,
+  provenance: Provenance | Provenance[],
 ): Promise<Buffer> {
-  const date = new Date(provenance.date);
+  const all = Array.isArray(provenance) ? provenance : [provenance];
+  // The newest fit's date: fixed for a given set of fits, so the bytes repeat.
+  const date = new Date(
+    all
+      .map((p) => p.date)
+      .sort()
+      .at(-1) ?? 0,
+  );
   const doc = new PDFDocument({
     size: [widthPt, heightPt],
     margin: 0,
@@ -66,10 +80,14 @@ export function renderPdf(
     info: {
       Title: 'Sky-plane solution',
       Author: 'Limbus',
-      Subject: provenanceLine(provenance),
-      Keywords: provenanceEntries(provenance)
-        .map(([k, v]) => `${k}=${v}`)
-        .join('; '),
+      Subject: all.map(provenanceLine).join(' | '),
+      Keywords: all
+        .map((p) =>
+          provenanceEntries(p)
+            .map(([k, v]) => `${k}=${v}`)
+            .join('; '),
+        )
+        .join(' | '),
       Creator: 'Limbus',
       // The fit's date, not now: the same fit gives the same file.
       CreationDate: date,
