@@ -49,6 +49,11 @@ async function apiSignIn(email: string): Promise<ApiSession> {
 const RELOAD = [{ status: 401, path: '/api/me' }];
 
 let eventId = '';
+let watchFromUtc = '';
+let watchToUtc = '';
+let disappearanceUtc = '';
+let reappearanceUtc = '';
+let tooEarlyUtc = '';
 let chordCount = 0;
 let fitId = '';
 let session: BrowserSession | null = null;
@@ -71,14 +76,39 @@ beforeAll(async () => {
     `/api/teams/${teamId}/members`,
   );
   const observerId = members.find((m) => m.email === 'observer@example.org')?.userId;
+  // Near the event's own stations and inside its own night, so the accepted report is a plausible chord
+  // and later fits of the same event stay sound.
+  const detail = await coordinator.call<{ stations: Array<{ latDeg: number; lonDeg: number }> }>(
+    'GET',
+    `/api/events/${eventId}`,
+  );
+  const near = detail.stations[0] ?? { latDeg: -30.25, lonDeg: -70.5 };
   await coordinator.call('POST', `/api/events/${eventId}/stations`, {
     code: OBSERVER_STATION,
-    latDeg: -30.25,
-    lonDeg: -70.5,
-    heightM: 2100,
+    latDeg: Math.max(-89, Math.min(89, near.latDeg + 0.35)),
+    lonDeg: near.lonDeg > 179 ? near.lonDeg - 0.35 : near.lonDeg + 0.35,
+    heightM: 210,
     observerId,
   });
-  chordCount = (await coordinator.call<unknown[]>('GET', `/api/events/${eventId}/chords`)).length;
+  const chords = await coordinator.call<
+    Array<{
+      disappearance: { time: string } | null;
+      reappearance: { time: string } | null;
+      start: string | null;
+      end: string | null;
+    }>
+  >('GET', `/api/events/${eventId}/chords`);
+  chordCount = chords.length;
+  const timesMs = chords
+    .flatMap((c) => [c.disappearance?.time, c.reappearance?.time, c.start, c.end])
+    .filter((t): t is string => typeof t === 'string')
+    .map((t) => Date.parse(t));
+  const iso = (ms: number) => new Date(ms).toISOString().replace('.000Z', 'Z');
+  watchFromUtc = iso(Math.min(...timesMs) - 120_000);
+  watchToUtc = iso(Math.max(...timesMs) + 120_000);
+  disappearanceUtc = iso(Math.min(...timesMs) + 5_000);
+  reappearanceUtc = iso(Math.min(...timesMs) + 15_000);
+  tooEarlyUtc = iso(Math.min(...timesMs) - 5_000);
 }, 60_000);
 
 afterEach(async () => {
@@ -157,8 +187,8 @@ describe('event desk in the browser', () => {
     const form = observer.page.getByRole('form', { name: 'Observer report' });
     await form.getByRole('combobox', { name: 'Station' }).selectOption({ label: OBSERVER_STATION });
     await form.getByRole('radio', { name: /^Negative/ }).check();
-    await form.getByRole('textbox', { name: 'Watched from (UTC)' }).fill('2028-03-14T02:05:00Z');
-    await form.getByRole('textbox', { name: 'Watched to (UTC)' }).fill('2028-03-14T02:20:00Z');
+    await form.getByRole('textbox', { name: 'Watched from (UTC)' }).fill(watchFromUtc);
+    await form.getByRole('textbox', { name: 'Watched to (UTC)' }).fill(watchToUtc);
     await form.getByRole('button', { name: 'Submit report' }).click();
     await observer.page.getByRole('cell', { name: OBSERVER_STATION }).waitFor();
     await observer.screenshot('event-desk-observer-report');
@@ -184,8 +214,8 @@ describe('event desk in the browser', () => {
     await page.getByRole('button', { name: 'Import CSV…' }).click();
     const csv = [
       'station,type,disappearance_utc,disappearance_sigma_s,reappearance_utc,reappearance_sigma_s',
-      `${OBSERVER_STATION},positive,2028-03-14T02:11:04.25Z,0.05,2028-03-14T02:11:19.80Z,0.05`,
-      `${OBSERVER_STATION},positive,2028-03-14T02:11:04.25Z,0.05,2028-03-14T02:10:00Z,0.05`,
+      `${OBSERVER_STATION},positive,${disappearanceUtc},0.05,${reappearanceUtc},0.05`,
+      `${OBSERVER_STATION},positive,${disappearanceUtc},0.05,${tooEarlyUtc},0.05`,
     ].join('\n');
     await page
       .getByLabel('CSV file')

@@ -25,16 +25,22 @@ import { Loading, RequestFailed } from '@/components/request-state';
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
   actions: { display: 'flex', gap: tokens.spacingHorizontalS, flexWrap: 'wrap', alignItems: 'end' },
-  time: { fontFamily: tokens.fontFamilyMonospace, whiteSpace: 'nowrap' },
+  time: { fontFamily: tokens.fontFamilyMonospace, overflowWrap: 'anywhere' },
   scroll: { overflowX: 'auto' },
+  // Fluent tables share the width equally; the timings need more of it than the state does.
+  table: { tableLayout: 'auto' },
 });
 
-function timings(r: Report): string {
+/** One line per timing, so a long ISO time wraps between marks and never runs into the next column. */
+function timings(r: Report): string[] {
   if (r.result === 'positive' && r.disappearance && r.reappearance)
-    return `D ${r.disappearance.time} ± ${r.disappearance.sigmaSeconds} s, R ${r.reappearance.time} ± ${r.reappearance.sigmaSeconds} s`;
+    return [
+      `D ${r.disappearance.time} ± ${r.disappearance.sigmaSeconds} s`,
+      `R ${r.reappearance.time} ± ${r.reappearance.sigmaSeconds} s`,
+    ];
   if (r.result === 'negative' && r.observedFromUtc && r.observedToUtc)
-    return `watched ${r.observedFromUtc} – ${r.observedToUtc}`;
-  return '—';
+    return [`from ${r.observedFromUtc}`, `to ${r.observedToUtc}`];
+  return ['—'];
 }
 
 function Decide({ eventId, report }: { eventId: string; report: Report }) {
@@ -118,7 +124,7 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
         <Body1 as="p">No reports yet.</Body1>
       ) : (
         <div className={styles.scroll}>
-          <Table aria-label="Reports" size="small">
+          <Table className={styles.table} aria-label="Reports" size="small">
             <TableHeader>
               <TableRow>
                 <TableHeaderCell>Station</TableHeaderCell>
@@ -135,7 +141,13 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
                   <TableCell>{codeOf.get(r.stationId) ?? r.stationId}</TableCell>
                   <TableCell>{r.authorName ?? '—'}</TableCell>
                   <TableCell>{r.result.replace('_', ' ')}</TableCell>
-                  <TableCell className={styles.time}>{timings(r)}</TableCell>
+                  <TableCell>
+                    {timings(r).map((line) => (
+                      <div key={line} className={styles.time}>
+                        {line}
+                      </div>
+                    ))}
+                  </TableCell>
                   <TableCell>
                     <Badge
                       appearance={r.state === 'accepted' ? 'filled' : 'outline'}
