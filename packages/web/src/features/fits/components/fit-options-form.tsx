@@ -31,7 +31,7 @@ const useStyles = makeStyles({
   },
   fixedRow: {
     display: 'grid',
-    gridTemplateColumns: '14em 10em',
+    gridTemplateColumns: 'minmax(0, 14em) minmax(5em, 10em)',
     alignItems: 'center',
     gap: tokens.spacingHorizontalM,
   },

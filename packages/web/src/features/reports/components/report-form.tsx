@@ -20,7 +20,7 @@ const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '44em' },
   pair: {
     display: 'grid',
-    gridTemplateColumns: 'minmax(14em, 2fr) minmax(6em, 1fr)',
+    gridTemplateColumns: 'minmax(0, 2fr) minmax(5em, 1fr)',
     gap: tokens.spacingHorizontalM,
   },
 });
