@@ -17,6 +17,7 @@ const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
 const EVENT_FILES = ['docs/examples/event-example.json', 'tools/cli/test/fixtures/joint-2031.json'];
 
 let session: BrowserSession;
+let modellerToken = '';
 const fitIds: string[] = [];
 
 async function importEvent(token: string, teamId: string, file: string): Promise<string> {
@@ -53,6 +54,7 @@ async function solvedFit(token: string, eventId: string): Promise<string> {
 beforeAll(async () => {
   const coordinator = await apiToken('coordinator@example.org', 'limbus-demo');
   const modeller = await apiToken('modeller@example.org', 'limbus-demo');
+  modellerToken = modeller;
   const me = await apiJson<{ teams: Array<{ id: string }> }>(coordinator, '/api/me');
   const teamId = me.teams[0]?.id;
   if (teamId === undefined) throw new Error('the demo coordinator has no team');
@@ -93,6 +95,17 @@ describe('comparison in the browser', () => {
     await status.waitFor({ timeout: 30_000 });
     await expect(status.textContent()).resolves.toMatch(/Joint pole of ring R1: RA \d+\.\d\d° ± \d+\.\d\d°/);
     await chart.locator('[data-role="joint-pole"] ellipse').waitFor();
+    // The downloaded figure is the file the API serves for the same request, byte for byte.
+    const [download, served] = await Promise.all([
+      page.waitForEvent('download'),
+      page.waitForResponse((r) => r.url().includes('/comparison/figure?')),
+      page.getByRole('button', { name: 'Download comparison figure' }).click(),
+    ]);
+    expect(download.suggestedFilename()).toBe('limbus-comparison-180mm.pdf');
+    const downloaded = readFileSync(await download.path());
+    expect(downloaded.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const direct = await fetch(served.url(), { headers: { Authorization: `Bearer ${modellerToken}` } });
+    expect(Buffer.from(await direct.arrayBuffer()).equals(downloaded)).toBe(true);
     await session.screenshot('comparison');
     expect(session.consoleErrors).toEqual([]);
     expect(unexpectedFailures(session.failedResponses, [])).toEqual([]);

@@ -148,3 +148,12 @@ export async function apiRequest<T = void>(path: string, options: RequestOptions
   }
   return parsed.data;
 }
+
+/** A binary download (a figure, a table) with the same token and refresh as apiRequest. */
+export async function apiBlob(path: string, signal?: AbortSignal): Promise<Blob> {
+  let response = await send(path, 'GET', undefined, signal);
+  if (response.status === 401 && (await refreshAccessToken()))
+    response = await send(path, 'GET', undefined, signal);
+  if (!response.ok) throw await toApiError(response);
+  return response.blob();
+}

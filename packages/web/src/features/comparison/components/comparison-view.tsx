@@ -16,6 +16,7 @@ import { useState } from 'react';
 import { type FitSelection, useComparison } from '../api/get-comparison';
 import { type JointPoleDocument, useJointPole, useSubmitJointPole } from '../api/joint-pole';
 import { EllipseOverlay } from './ellipse-overlay';
+import { FigureDownload } from './figure-download';
 import { ParameterTable } from './parameter-table';
 import { PoleChart } from './pole-chart';
 import { Loading, RequestFailed } from '@/components/request-state';
@@ -176,6 +177,11 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
               <AmbiguityText doc={joint} />
             </div>
           ) : null}
+          <FigureDownload
+            teamId={teamId}
+            selection={selection}
+            jointId={joint === null ? null : (job?.id ?? null)}
+          />
         </>
       )}
     </section>

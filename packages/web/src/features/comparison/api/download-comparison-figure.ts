@@ -1,0 +1,42 @@
+import { useMutation } from '@tanstack/react-query';
+import { z } from 'zod';
+import { apiBlob } from '@/lib/api-client';
+
+export const comparisonFigureInputSchema = z.object({
+  format: z.enum(['svg', 'pdf', 'png']),
+  widthMm: z.number().min(40).max(300),
+  dpi: z.union([z.literal(300), z.literal(600)]),
+  selection: z.enum(['approved', 'all']),
+  jointId: z.string().nullable(),
+});
+export type ComparisonFigureInput = z.infer<typeof comparisonFigureInputSchema>;
+
+export function comparisonFigureUrl(teamId: string, input: ComparisonFigureInput): string {
+  const v = comparisonFigureInputSchema.parse(input);
+  const q = new URLSearchParams({ format: v.format, widthMm: String(v.widthMm), fits: v.selection });
+  if (v.format === 'png') q.set('dpi', String(v.dpi));
+  if (v.jointId !== null) q.set('jointId', v.jointId);
+  return `/api/teams/${encodeURIComponent(teamId)}/comparison/figure?${q.toString()}`;
+}
+
+export function comparisonFigureFileName(input: ComparisonFigureInput): string {
+  return `limbus-comparison-${input.widthMm}mm${input.format === 'png' ? `-${input.dpi}dpi` : ''}.${input.format}`;
+}
+
+/** Fetches the server-rendered figure (the very file the API serves) and hands it to the browser as a download. */
+export function useDownloadComparisonFigure(teamId: string) {
+  return useMutation({
+    mutationFn: async (input: ComparisonFigureInput) => {
+      const blob = await apiBlob(comparisonFigureUrl(teamId, input));
+      const url = URL.createObjectURL(blob);
+      const a = document.createElement('a');
+      a.href = url;
+      a.download = comparisonFigureFileName(input);
+      document.body.append(a);
+      a.click();
+      a.remove();
+      // Revoked on the next turn: the click has started the download by then.
+      setTimeout(() => URL.revokeObjectURL(url), 0);
+    },
+  });
+}
