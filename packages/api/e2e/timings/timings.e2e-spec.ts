@@ -201,6 +201,12 @@ describe('light-curve timing routes and job', () => {
       .expect(400);
     const paths = (response.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path).sort();
     expect(paths).toEqual(['bottom', 'speedKmPerS']);
+    const dip = await t
+      .post(`/api/events/${eventId}/timings/${timingId}/dips`)
+      .set(w.auth('modeller'))
+      .send({ startUtc: 'soon', endUtc: '2028-03-14T02:14:28Z' })
+      .expect(400);
+    expect((dip.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path)).toEqual(['startUtc']);
     expect(await t.orm.em.fork().count(LightCurveTiming, { report: reportId })).toBe(before);
   });
 

@@ -246,6 +246,13 @@ export class TimingsService {
     dip: MarkDipPayload,
   ): Promise<TimingSummary> {
     const timing = await this.timing(eventId, timingId);
+    const start = parseUtcInstant(dip.startUtc);
+    const end = parseUtcInstant(dip.endUtc);
+    const issues = [
+      ...(typeof start === 'string' ? [{ path: 'startUtc', message: start }] : []),
+      ...(typeof end === 'string' ? [{ path: 'endUtc', message: end }] : []),
+    ];
+    if (issues.length > 0) throw new ValidationError(issues);
     const options: TimingOptions = { ...timing.options, markedDips: [...timing.options.markedDips, dip] };
     return this.create(user, eventId, timing.report.id, options);
   }
