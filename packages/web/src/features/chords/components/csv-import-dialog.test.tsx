@@ -6,6 +6,9 @@ import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-uti
 
 afterEach(() => vi.unstubAllGlobals());
 
+// Fluent forms re-render on every keystroke; on a loaded machine a test takes seconds in jsdom.
+vi.setConfig({ testTimeout: 30_000 });
+
 const CSV = [
   'station,type,disappearance,disappearanceSigmaSeconds,reappearance,reappearanceSigmaSeconds',
   'kestrel-hill,positive,2029-05-17T03:12:31.25Z,0.04,2029-05-17T03:12:49.9Z,0.05',

@@ -7,6 +7,9 @@ import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-uti
 
 afterEach(() => vi.unstubAllGlobals());
 
+// Fluent forms re-render on every keystroke; on a loaded machine a test takes seconds in jsdom.
+vi.setConfig({ testTimeout: 30_000 });
+
 const STATIONS = [
   { id: 's1', code: 'kestrel-hill' },
   { id: 's2', code: 'brackenmoor' },

@@ -6,6 +6,9 @@ import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-uti
 
 afterEach(() => vi.unstubAllGlobals());
 
+// Fluent forms re-render on every keystroke; on a loaded machine a test takes seconds in jsdom.
+vi.setConfig({ testTimeout: 30_000 });
+
 const HISTORY = [
   {
     id: 'r1',

@@ -6,6 +6,9 @@ import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-uti
 
 afterEach(() => vi.unstubAllGlobals());
 
+// Fluent forms re-render on every keystroke; on a loaded machine a test takes seconds in jsdom.
+vi.setConfig({ testTimeout: 30_000 });
+
 describe('StationsPanel', () => {
   it('StationsPanel refuses a latitude beyond 90° and adds a valid station', async () => {
     const calls = stubFetch(() => jsonResponse(201, { id: 's9' }));
