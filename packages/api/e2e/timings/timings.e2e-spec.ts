@@ -35,7 +35,12 @@ const CSV = squareWellCsv({
   seed: 20280314,
 });
 
-const OPTIONS = { speedKmPerS: 20, distanceKm: 6.0e9, exposureSeconds: 0.1, bottom: 'zero' };
+// The synthetic wells are geometric, so the distance is set where the Fresnel scale √(λD/2) is 18 m,
+// about 1 ms of shadow motion: the diffraction model then agrees with the well. At a TNO's 6e9 km the
+// scale is 1.4 km (70 ms) and a geometric well no longer looks like a real edge: a straight edge lets
+// through a quarter of the light at the geometric shadow line (Born & Wolf, Principles of Optics, 7th ed.,
+// §8.7, from memory), and the fit moves each time up to ~0.01 s into the well.
+const OPTIONS = { speedKmPerS: 20, distanceKm: 1.0e6, exposureSeconds: 0.1, bottom: 'zero' };
 
 function secondsFromOrigin(iso: string): number {
   return Date.parse(iso) / 1000 - ORIGIN_UNIX_SECONDS;
@@ -108,17 +113,17 @@ describe('light-curve timing routes and job', () => {
     expect(detail.state).toBe('solved');
     const result = detail.result;
     if (!result?.disappearance || !result.reappearance) throw new Error('no D or R');
-    // Truth is the square well the curve was drawn from (square-well.ts); 0.02 s is 0.2 of a sample,
-    // several times the expected 1-sigma at this noise.
-    expect(Math.abs(secondsFromOrigin(result.disappearance.time) - TRUE_D_SECONDS)).toBeLessThan(0.02);
-    expect(Math.abs(secondsFromOrigin(result.reappearance.time) - TRUE_R_SECONDS)).toBeLessThan(0.02);
+    // Truth is the square well the curve was drawn from (square-well.ts); 0.01 s is a tenth of a sample,
+    // about four times the 1-sigma the fit reports at this noise (~0.002 s).
+    expect(Math.abs(secondsFromOrigin(result.disappearance.time) - TRUE_D_SECONDS)).toBeLessThan(0.01);
+    expect(Math.abs(secondsFromOrigin(result.reappearance.time) - TRUE_R_SECONDS)).toBeLessThan(0.01);
     expect(result.disappearance.sigmaSeconds).toBeGreaterThan(0);
     expect(result.disappearance.sigmaSeconds).toBeLessThan(0.05);
     expect(result.dips).toHaveLength(1);
     const dip = result.dips[0];
     if (!dip) throw new Error('no dip');
-    expect(Math.abs(secondsFromOrigin(dip.start.time) - RING_DIP.startSeconds)).toBeLessThan(0.05);
-    expect(Math.abs(secondsFromOrigin(dip.end.time) - RING_DIP.endSeconds)).toBeLessThan(0.05);
+    expect(Math.abs(secondsFromOrigin(dip.start.time) - RING_DIP.startSeconds)).toBeLessThan(0.03);
+    expect(Math.abs(secondsFromOrigin(dip.end.time) - RING_DIP.endSeconds)).toBeLessThan(0.03);
     expect(dip.marked).toBe(false);
     expect(result.series.flux).toHaveLength(600);
     expect(result.series.modelFlux).toHaveLength(600);
