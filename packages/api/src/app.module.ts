@@ -20,6 +20,7 @@ import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { QueueModule } from './queue/queue.module';
 import { RedisModule } from './redis/redis.module';
+import { ShapesModule } from './shapes/shapes.module';
 import { StorageModule } from './storage/storage.module';
 import { ReportsModule } from './reports/reports.module';
 import { StationsModule } from './stations/stations.module';
@@ -75,6 +76,7 @@ export class AppModule {
         ComparisonsModule,
         TimingsModule,
         DynamicsModule,
+        ShapesModule,
       ],
       providers: [
         // Order matters: authentication first, then roles read the authenticated user.
