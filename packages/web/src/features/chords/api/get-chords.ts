@@ -4,33 +4,18 @@ import { apiRequest } from '@/lib/api-client';
 
 const timedMarkSchema = z.object({ time: z.string(), sigmaSeconds: z.number() });
 
-// The server may name the station by its id in the event ("station", as in the event file) or by code.
-const chordResponseSchema = z
-  .object({
-    id: z.string(),
-    station: z.string().optional(),
-    stationCode: z.string().optional(),
-    type: z.enum(['positive', 'negative']),
-    disappearance: timedMarkSchema.nullable().optional(),
-    reappearance: timedMarkSchema.nullable().optional(),
-    start: z.string().nullable().optional(),
-    end: z.string().nullable().optional(),
-    startUtc: z.string().nullable().optional(),
-    endUtc: z.string().nullable().optional(),
-    timeOffsetSeconds: z.number().default(0),
-    source: z.string().optional(),
-  })
-  .transform((raw): ChordRow => ({
-    id: raw.id,
-    station: raw.station ?? raw.stationCode ?? '',
-    type: raw.type,
-    disappearance: raw.disappearance ?? null,
-    reappearance: raw.reappearance ?? null,
-    start: raw.start ?? raw.startUtc ?? null,
-    end: raw.end ?? raw.endUtc ?? null,
-    timeOffsetSeconds: raw.timeOffsetSeconds,
-    source: raw.source ?? null,
-  }));
+// As the server's chord view sends it: the station by its id in the event, times in UTC.
+const chordResponseSchema = z.object({
+  id: z.string(),
+  station: z.string(),
+  type: z.enum(['positive', 'negative']),
+  disappearance: timedMarkSchema.nullable(),
+  reappearance: timedMarkSchema.nullable(),
+  start: z.string().nullable(),
+  end: z.string().nullable(),
+  timeOffsetSeconds: z.number(),
+  source: z.string().nullable(),
+});
 
 export interface TimedMark {
   time: string;

@@ -9,7 +9,7 @@ afterEach(() => vi.unstubAllGlobals());
 // Fluent's grid re-renders every cell per keystroke; in jsdom on a shared machine that takes seconds.
 vi.setConfig({ testTimeout: 30_000 });
 
-// An invented event: two positive chords and one negative, as the server lists them.
+// An invented event: two positive chords and one negative, in the server's chord view.
 const CHORDS = [
   {
     id: 'c1',
@@ -17,6 +17,8 @@ const CHORDS = [
     type: 'positive',
     disappearance: { time: '2029-05-17T03:12:31.250Z', sigmaSeconds: 0.04 },
     reappearance: { time: '2029-05-17T03:12:49.900Z', sigmaSeconds: 0.05 },
+    start: null,
+    end: null,
     timeOffsetSeconds: 0,
     source: 'import',
   },
@@ -26,6 +28,8 @@ const CHORDS = [
     type: 'positive',
     disappearance: { time: '2029-05-17T03:12:30.100Z', sigmaSeconds: 0.08 },
     reappearance: { time: '2029-05-17T03:12:44.600Z', sigmaSeconds: 0.08 },
+    start: null,
+    end: null,
     timeOffsetSeconds: 0.12,
     source: 'report',
   },
@@ -33,6 +37,8 @@ const CHORDS = [
     id: 'c3',
     station: 'tarn-end',
     type: 'negative',
+    disappearance: null,
+    reappearance: null,
     start: '2029-05-17T03:10:00Z',
     end: '2029-05-17T03:15:00Z',
     timeOffsetSeconds: 0,

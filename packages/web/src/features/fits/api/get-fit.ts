@@ -8,14 +8,7 @@ export const REVIEW_STATES = ['none', 'in_review', 'approved', 'returned'] as co
 export type FitState = (typeof FIT_STATES)[number];
 export type ReviewState = (typeof REVIEW_STATES)[number];
 
-// The author arrives either as a bare user id or as a small object with the name to show.
-const authorSchema = z
-  .union([z.string(), z.object({ id: z.string(), name: z.string().optional() })])
-  .nullable()
-  .optional()
-  .transform((a) =>
-    a == null ? null : typeof a === 'string' ? { id: a, name: null } : { id: a.id, name: a.name ?? null },
-  );
+const authorSchema = z.object({ id: z.string(), name: z.string() });
 
 export const fitSummarySchema = z.object({
   id: z.string(),

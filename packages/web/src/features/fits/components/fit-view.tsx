@@ -52,7 +52,7 @@ export function FitView({ fitId }: { fitId: string }) {
   if (fit.isError)
     return <RequestFailed what="the fit" error={fit.error} onRetry={() => void fit.refetch()} />;
   const f = fit.data;
-  const author = f.createdBy?.name ?? f.createdBy?.id ?? 'unknown';
+  const author = f.createdBy.name;
   return (
     <section className={styles.view} aria-label="Selected fit">
       <div className={styles.heading}>

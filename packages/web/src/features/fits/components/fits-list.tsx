@@ -46,7 +46,7 @@ export function FitsList({
           return (
             <TableRow key={fit.id} aria-selected={fit.id === selectedFitId}>
               <TableCell>{started}</TableCell>
-              <TableCell>{fit.createdBy?.name ?? fit.createdBy?.id ?? '—'}</TableCell>
+              <TableCell>{fit.createdBy.name}</TableCell>
               <TableCell>{fit.state === 'running' ? `running (${fit.progress} %)` : fit.state}</TableCell>
               <TableCell>
                 <Badge

@@ -2,18 +2,11 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
 
-const reviewerSchema = z
-  .union([z.string(), z.object({ id: z.string(), name: z.string().optional() })])
-  .nullable()
-  .optional()
-  .transform((r) => (r == null ? null : typeof r === 'string' ? r : (r.name ?? r.id)));
-
 export const reviewSchema = z.object({
   id: z.string(),
-  decision: z.enum(['approve', 'return', 'request']),
-  comment: z.string().default(''),
-  reviewer: reviewerSchema,
-  reviewerName: z.string().nullable().optional(),
+  decision: z.enum(['approve', 'return']),
+  comment: z.string(),
+  reviewer: z.object({ id: z.string(), name: z.string() }),
   createdAt: z.string(),
 });
 

@@ -41,7 +41,7 @@ export interface ReviewPanelProps {
   canDecide: boolean;
 }
 
-const DECISION_WORDS = { approve: 'approved', return: 'returned', request: 'asked for review' } as const;
+const DECISION_WORDS = { approve: 'approved', return: 'returned' } as const;
 
 function History({ fitId }: { fitId: string }) {
   const styles = useStyles();
@@ -56,7 +56,7 @@ function History({ fitId }: { fitId: string }) {
     <ol className={styles.history} aria-label="Review history">
       {reviews.data.map((r) => (
         <li key={r.id}>
-          {utcText(r.createdAt)}: {r.reviewerName ?? r.reviewer ?? 'someone'} {DECISION_WORDS[r.decision]}
+          {utcText(r.createdAt)}: {r.reviewer.name} {DECISION_WORDS[r.decision]}
           {r.comment === '' ? '' : ` — “${r.comment}”`}
         </li>
       ))}
