@@ -189,8 +189,24 @@ describe('event desk in the browser', () => {
     await form.getByRole('radio', { name: /^Negative/ }).check();
     await form.getByRole('textbox', { name: 'Watched from (UTC)' }).fill(watchFromUtc);
     await form.getByRole('textbox', { name: 'Watched to (UTC)' }).fill(watchToUtc);
+    await form.getByLabel(/^Light curve file/).setInputFiles({
+      name: `${OBSERVER_STATION}.csv`,
+      mimeType: 'text/csv',
+      // UTC mid-exposure times, as the upload check and the timing job require (docs/file-formats.md).
+      buffer: Buffer.from(
+        [
+          'time,flux',
+          ...[1.0, 0.99, 1.01, 0.98, 1.0, 1.02, 0.99, 1.0].map(
+            (flux, k) =>
+              `${new Date(Date.UTC(2028, 2, 14, 2, 0, 0) + 40 * k).toISOString()},${flux.toFixed(2)}`,
+          ),
+        ].join('\n'),
+      ),
+    });
     await form.getByRole('button', { name: 'Submit report' }).click();
-    await observer.page.getByRole('cell', { name: OBSERVER_STATION }).waitFor();
+    // The form closes only once the light curve is stored too.
+    await form.waitFor({ state: 'detached' });
+    await observer.page.getByRole('cell', { name: OBSERVER_STATION }).first().waitFor();
     await observer.screenshot('event-desk-observer-report');
     expect(observer.consoleErrors).toEqual([]);
     await observer.close();

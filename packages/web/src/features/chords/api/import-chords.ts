@@ -6,7 +6,7 @@ import { ApiError, apiRequest } from '@/lib/api-client';
 export const csvFileSchema = z
   .instanceof(File, { message: 'choose a CSV file' })
   .refine((file) => file.size > 0, 'the file is empty')
-  .refine((file) => file.size <= 5 * 1024 * 1024, 'the file is larger than 5 MB');
+  .refine((file) => file.size <= 1024 * 1024, 'the file is larger than 1 MB (the server limit)');
 
 export interface CsvRowProblem {
   row: number;

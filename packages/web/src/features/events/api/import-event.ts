@@ -6,7 +6,7 @@ import { apiRequest } from '@/lib/api-client';
 export const eventFileInputSchema = z
   .instanceof(File, { message: 'choose an event file (limbus-event/1 JSON)' })
   .refine((file) => file.size > 0, 'the file is empty')
-  .refine((file) => file.size <= 10 * 1024 * 1024, 'the file is larger than 10 MB');
+  .refine((file) => file.size <= 5 * 1024 * 1024, 'the file is larger than 5 MB (the server limit)');
 
 const createdSchema = z.object({ id: z.string() });
 

@@ -3,14 +3,14 @@ import { z } from 'zod';
 import { reportsQueryKey } from './get-reports';
 import { apiRequest } from '@/lib/api-client';
 
-// Light curves are text tables or FITS; the server decides what it accepts, this only refuses the absurd.
-const MAX_BYTES = 50 * 1024 * 1024;
+// The server takes a light curve as a CSV table of at most 2 MB and checks its columns itself.
+const MAX_BYTES = 2 * 1024 * 1024;
 
 export const lightCurveInputSchema = z.object({
   file: z
     .instanceof(File, { message: 'choose a light-curve file' })
     .refine((file) => file.size > 0, 'the file is empty')
-    .refine((file) => file.size <= MAX_BYTES, 'the file is larger than 50 MB'),
+    .refine((file) => file.size <= MAX_BYTES, 'the file is larger than 2 MB (the server limit)'),
 });
 
 export function uploadLightCurve(reportId: string, file: File): Promise<void> {

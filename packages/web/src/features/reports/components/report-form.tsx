@@ -14,6 +14,7 @@ import type { Report, ReportResult } from '../api/get-reports';
 import { reportInputSchema, useSubmitReport, type ReportInput } from '../api/submit-report';
 import { lightCurveInputSchema, useUploadLightCurve } from '../api/upload-light-curve';
 import { FormError } from '@/components/form-error';
+import { ApiError } from '@/lib/api-client';
 import { errorMessage } from '@/components/form-errors';
 
 const useStyles = makeStyles({
@@ -231,7 +232,7 @@ export function ReportForm({
         hint={
           report?.lightCurve
             ? `Uploaded: ${report.lightCurve.name ?? 'a file'}; choose another to replace it.`
-            : 'Optional.'
+            : 'Optional. CSV with the header time,flux or time,flux,fluxErr; times in UTC or seconds.'
         }
         validationMessage={fileError}
       >
@@ -251,7 +252,14 @@ export function ReportForm({
         <FormError title="The report was not saved" message={errorMessage(submit.error)} />
       ) : null}
       {upload.isError ? (
-        <FormError title="The light curve was not uploaded" message={errorMessage(upload.error)} />
+        <FormError
+          title="The report was saved but the light curve was not uploaded"
+          message={
+            upload.error instanceof ApiError && upload.error.issues.length > 0
+              ? upload.error.issues.map((i) => `${i.path}: ${i.message}`).join('; ')
+              : errorMessage(upload.error)
+          }
+        />
       ) : null}
       {locked ? null : (
         <Button appearance="primary" type="submit" disabled={submit.isPending || upload.isPending}>
