@@ -15,3 +15,4 @@ export { formatPath, type Problem } from './problems.js';
 export { parseUtcTime, parseZonelessTime } from './iso-time.js';
 export * from './context-input.js';
 export * from './api.js';
+export * from './light-curve-csv.js';

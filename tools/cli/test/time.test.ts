@@ -10,7 +10,9 @@ import {
   syntheticFlux,
   type SyntheticSetup,
 } from '../../../packages/geometry/test/lightcurve/synthetic.js';
-import { formatUtc, parseUtc, run, type TimingOutput } from '../src/commands/time.js';
+import { formatUtc, parseUtc } from '@limbus/schema';
+
+import { run, type TimingOutput } from '../src/commands/time.js';
 import { buildCliIfStale, runCli } from './built-cli.js';
 
 // Light curves of an invented event: station "Kestrel Ridge" watching an invented body occult an invented

@@ -13,6 +13,7 @@ import {
 } from '../events/workspace';
 import { bootWorker } from '../fits/worker';
 import { MATRIX, type MatrixRow } from './matrix';
+import { lightCurveCsv } from '../uploads/light-curve-text';
 
 const ACTORS: Actor[] = ['admin', 'coordinator', 'observer', 'modeller', 'reviewer', 'outsider', 'anonymous'];
 
@@ -172,14 +173,14 @@ describe('authorization matrix of the event workspace', () => {
     'POST /api/reports/:reportId/light-curve': async () => ({
       method: 'post',
       url: `/api/reports/${await newReport()}/light-curve`,
-      file: { field: 'file', bytes: Buffer.from('time,flux\n0,1\n1,0.2\n'), name: 'lc.csv' },
+      file: { field: 'file', bytes: Buffer.from(lightCurveCsv()), name: 'lc.csv' },
     }),
     'GET /api/reports/:reportId/light-curve': async () => {
       const id = await newReport();
       await t
         .post(`/api/reports/${id}/light-curve`)
         .set(w.auth('observer'))
-        .attach('file', Buffer.from('time,flux\n0,1\n1,0.2\n'), 'lc.csv')
+        .attach('file', Buffer.from(lightCurveCsv()), 'lc.csv')
         .expect(201);
       return { method: 'get', url: `/api/reports/${id}/light-curve` };
     },

@@ -4,6 +4,7 @@ import { Report } from '../../src/reports/entities/report.entity';
 import { Upload } from '../../src/uploads/entities/upload.entity';
 import { bootTestApp, type TestApp } from '../setup';
 import { createWorkspace, importExample, type Workspace } from '../events/workspace';
+import { lightCurveCsv } from './light-curve-text';
 
 describe('light-curve uploads', () => {
   let t: TestApp;
@@ -42,7 +43,7 @@ describe('light-curve uploads', () => {
       .attach('file', bytes, { filename: 'curve.csv', contentType: 'text/csv' });
 
   it('POST /api/reports/:reportId/light-curve stores a checked CSV and its SHA-256, readable back', async () => {
-    const csv = Buffer.from('time,flux,fluxErr\n0.00,1.00,0.02\n0.04,0.98,0.02\n0.08,0.11,0.02\n');
+    const csv = Buffer.from(lightCurveCsv(12, true));
     const response = await send(csv).expect(201);
     const lightCurve = (response.body as { lightCurve: { id: string; sha256: string; sizeBytes: number } })
       .lightCurve;
@@ -58,7 +59,7 @@ describe('light-curve uploads', () => {
 
   it('POST /api/reports/:reportId/light-curve answers 413 over the size limit and stores nothing', async () => {
     const before = await uploads();
-    const big = Buffer.from(`time,flux\n${'0.00,1.00\n'.repeat(300_000)}`);
+    const big = Buffer.from(lightCurveCsv(80_000));
     const response = await send(big).expect(413);
     expect((response.body as { statusCode: number }).statusCode).toBe(413);
     expect(await uploads()).toBe(before);
@@ -66,11 +67,15 @@ describe('light-curve uploads', () => {
 
   it('POST /api/reports/:reportId/light-curve checks the content before storing it', async () => {
     const before = await uploads();
-    const response = await send(Buffer.from('time,flux\n0.00,1.0\n0.04,bright\n')).expect(400);
+    const bad = lightCurveCsv(12).split('\n');
+    bad[2] = bad[2]!.replace(/,1\.00$/, ',bright');
+    bad[5] = bad[5]!.replace(/^[^,]+/, '0.16');
+    const response = await send(Buffer.from(bad.join('\n'))).expect(400);
     expect((response.body as { issues: Array<{ row: number; column: string }> }).issues).toEqual([
       expect.objectContaining({ row: 3, column: 'flux' }),
+      expect.objectContaining({ row: 6, column: 'time' }),
     ]);
-    await send(Buffer.from('time,flux\n0,1\n1,1\n'), 'reviewer').expect(403);
+    await send(Buffer.from(lightCurveCsv()), 'reviewer').expect(403);
     expect(await uploads()).toBe(before);
   });
 });
