@@ -1,10 +1,14 @@
+import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { EventInput, Solution } from '@limbus/geometry';
 import { validateEventFile } from '@limbus/schema';
 import { ConflictError } from '../common/domain-errors';
 import type { FitRun } from '../fits/entities/fit-run.entity';
 import { FitsService } from '../fits/fits.service';
+import { type RingFitAgainstContext, ringFitsAgainst } from '../dynamics/dynamics-view';
+import { DynamicsContext } from '../dynamics/entities/dynamics-context.entity';
 import { captionDraft } from './caption';
+import { dynamicsCaption, dynamicsRows } from './dynamics-context';
 import type { FigureQuery, TableQuery } from './export-query';
 import { renderFitFigureSvg } from './figure-svg';
 import { type Provenance, provenanceOf } from './provenance';
@@ -27,12 +31,17 @@ interface SolvedFit {
   event: EventInput;
   solution: Solution;
   provenance: Provenance;
+  /** The fit's rings against the event's stored body context; empty when none is stored. */
+  dynamics: RingFitAgainstContext[];
 }
 
 /** Figures and tables of one stored fit: everything comes from the fit row, so repeats give equal bytes. */
 @Injectable()
 export class ExportsService {
-  constructor(private readonly fits: FitsService) {}
+  constructor(
+    private readonly fits: FitsService,
+    private readonly em: EntityManager,
+  ) {}
 
   private async solved(fitId: string): Promise<SolvedFit> {
     const fit: FitRun = await this.fits.find(fitId, true);
@@ -40,12 +49,17 @@ export class ExportsService {
       throw new ConflictError(`fit ${fitId} is ${fit.state}; only a solved fit has figures and tables`);
     const validation = validateEventFile(JSON.parse(fit.input));
     if (!validation.ok) throw new Error(`stored input of fit ${fitId} no longer validates`);
-    return { event: validation.event, solution: fit.solution, provenance: provenanceOf(fit) };
+    const context = await this.em.findOne(DynamicsContext, { event: fit.event.id });
+    const dynamics =
+      context === null ? [] : ringFitsAgainst(context.document, { id: fit.id, rings: fit.solution.rings });
+    return { event: validation.event, solution: fit.solution, provenance: provenanceOf(fit), dynamics };
   }
 
   async figure(fitId: string, query: FigureQuery): Promise<ExportFile> {
-    const { event, solution, provenance } = await this.solved(fitId);
-    const caption = captionDraft(event.title, solution, event.fit);
+    const { event, solution, provenance, dynamics } = await this.solved(fitId);
+    const caption = [captionDraft(event.title, solution, event.fit), dynamicsCaption(dynamics)]
+      .filter((text) => text !== '')
+      .join(' ');
     const base = `limbus-fit-${fitId}-${query.widthMm}mm`;
     const input = { solution, caption, provenance, widthMm: query.widthMm };
     if (query.format === 'svg') {
@@ -69,8 +83,8 @@ export class ExportsService {
   }
 
   async table(fitId: string, query: TableQuery): Promise<ExportFile> {
-    const { event, solution, provenance } = await this.solved(fitId);
-    const rows = parameterRows(solution, event.fit);
+    const { event, solution, provenance, dynamics } = await this.solved(fitId);
+    const rows = [...parameterRows(solution, event.fit), ...dynamicsRows(dynamics)];
     const text =
       query.format === 'csv'
         ? tableCsv(rows, provenance)
