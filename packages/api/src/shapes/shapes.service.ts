@@ -79,8 +79,15 @@ export class ShapesService {
         emittedUtc: made.input.timeUtc,
       });
     });
-    if (issues.length > 0) throw new ValidationError(issues);
-    const pole = await this.pole(teamId, body.pole);
+    // The pole is checked before refusing, so one answer names every problem of the request.
+    let pole: ShapeView['pole'] | null = null;
+    try {
+      pole = await this.pole(teamId, body.pole);
+    } catch (error) {
+      if (!(error instanceof ValidationError)) throw error;
+      issues.push(...error.issues);
+    }
+    if (issues.length > 0 || pole === null) throw new ValidationError(issues);
     let result: ShapeFitResult;
     try {
       result = fitShape({
