@@ -168,6 +168,16 @@ describe('ShapePanel', () => {
       expect(screen.getAllByText('enter a number').length).toBeGreaterThan(1);
       expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
       await userEvent.clear(screen.getByRole('textbox', { name: 'Pole RA (°)' }));
+      await userEvent.type(screen.getByRole('textbox', { name: 'Pole RA (°)' }), '52');
+      await userEvent.type(screen.getByRole('textbox', { name: 'Pole Dec (°)' }), '24');
+      await userEvent.type(screen.getByRole('textbox', { name: 'Rotation period (h)' }), '6.71');
+      await userEvent.type(screen.getByRole('textbox', { name: /Reference epoch/ }), '2028-01-01 00:00');
+      await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
+      expect(await screen.findByText('ISO 8601 UTC ending in Z')).toBeInTheDocument();
+      expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
+      for (const name of ['Pole RA (°)', 'Pole Dec (°)', 'Rotation period (h)'])
+        await userEvent.clear(screen.getByRole('textbox', { name }));
+      await userEvent.clear(screen.getByRole('textbox', { name: /Reference epoch/ }));
       await fillForm();
       await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
       expect(await screen.findByText('Event b: fit is queued, not solved')).toBeInTheDocument();

@@ -22,7 +22,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { useState, type FormEvent } from 'react';
-import { type FitShapeInput, type ShapeView, useFitShape } from '../api/fit-shape';
+import { type FitShapeInput, fitShapeInputSchema, type ShapeView, useFitShape } from '../api/fit-shape';
 import { type ShapeFitRow, useShapeFits } from '../api/get-shape-fits';
 import { Silhouettes } from './silhouettes';
 import { Loading, RequestFailed } from '@/components/request-state';
@@ -92,17 +92,18 @@ function inputOf(
   const phase = numberOf(draft.phaseDeg);
   if (draft.phaseDeg.trim() !== '' && phase === null) errors.phaseDeg = 'enter a number, or leave empty';
   if (Object.keys(errors).length > 0) return { ok: false, errors };
-  return {
-    ok: true,
-    input: {
-      fitIds,
-      pole,
-      periodHours,
-      epochUtc: draft.epochUtc.trim(),
-      ...(phase === null ? {} : { phaseDeg: phase }),
-      model: draft.model,
-    },
-  };
+  // The route's own schema catches the rest (ranges, the epoch's form) on the field it names.
+  const parsed = fitShapeInputSchema.safeParse({
+    fitIds,
+    pole,
+    periodHours,
+    epochUtc: draft.epochUtc.trim(),
+    ...(phase === null ? {} : { phaseDeg: phase }),
+    model: draft.model,
+  });
+  if (parsed.success) return { ok: true, input: parsed.data };
+  for (const issue of parsed.error.issues) errors[issue.path.map(String).join('.')] ??= issue.message;
+  return { ok: false, errors };
 }
 
 const pm = (value: number, sigma: number, digits: number) =>
