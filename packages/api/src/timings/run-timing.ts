@@ -1,26 +1,26 @@
 // Step in the data flow: uploaded CSV bytes + stored options -> geometry fitTiming -> stored view.
 // Pure, so the worker and the unit tests run the same code.
 import { buildEdgeProfile, fitTiming, GeometryInputError } from '@limbus/geometry';
-import { parseLightCurveCsv } from './light-curve-csv';
+import { parseLightCurveCsv, parseUtc, secondsBetweenUtc } from '@limbus/schema';
 import type { TimingOptions } from './timing-options';
 import { timingView, type TimingView } from './timing-result';
-import { parseUtcInstant, secondsBetween } from './utc-instant';
 
 /** Bad input a person can fix, in `path: message` lines; the job fails with these words. */
 export class TimingInputError extends Error {}
 
 export function runTiming(csvText: string, options: TimingOptions): TimingView {
   const parsed = parseLightCurveCsv(csvText);
-  if (!parsed.ok) throw new TimingInputError(parsed.issues.map((i) => `${i.path}: ${i.message}`).join('; '));
-  const series = parsed.series;
+  if (!parsed.ok)
+    throw new TimingInputError(parsed.problems.map((i) => `${i.path}: ${i.message}`).join('; '));
+  const series = parsed.curve;
   const last = series.timesSeconds[series.timesSeconds.length - 1] ?? 0;
   const markedDips = options.markedDips.map((d, k) => {
-    const start = parseUtcInstant(d.startUtc);
-    const end = parseUtcInstant(d.endUtc);
+    const start = parseUtc(d.startUtc);
+    const end = parseUtc(d.endUtc);
     if (typeof start === 'string') throw new TimingInputError(`markedDips[${k}].startUtc: ${start}`);
     if (typeof end === 'string') throw new TimingInputError(`markedDips[${k}].endUtc: ${end}`);
-    const startSeconds = secondsBetween(series.origin, start);
-    const endSeconds = secondsBetween(series.origin, end);
+    const startSeconds = secondsBetweenUtc(start, series.origin);
+    const endSeconds = secondsBetweenUtc(end, series.origin);
     if (!(endSeconds > startSeconds)) throw new TimingInputError(`markedDips[${k}]: ends before it starts`);
     if (endSeconds < 0 || startSeconds > last) {
       throw new TimingInputError(`markedDips[${k}]: lies outside the light curve`);

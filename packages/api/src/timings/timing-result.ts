@@ -1,8 +1,7 @@
 // Step in the data flow: geometry's TimingResult on the seconds axis -> the stored view on the UTC axis,
 // with the series the client draws (data, model) so that the plot shows exactly what was fitted.
 import type { TimedMark, TimingResult } from '@limbus/geometry';
-import type { LightCurveSeries } from './light-curve-csv';
-import { formatUtcInstant, type UtcInstant } from './utc-instant';
+import { formatUtc, type LightCurve, type UtcInstant } from '@limbus/schema';
 
 export interface TimingDipView {
   start: TimedMark;
@@ -37,10 +36,10 @@ export interface TimingView {
 }
 
 function mark(origin: UtcInstant, edge: { timeSeconds: number; sigmaSeconds: number }): TimedMark {
-  return { time: formatUtcInstant(origin, edge.timeSeconds), sigmaSeconds: edge.sigmaSeconds };
+  return { time: formatUtc(origin, edge.timeSeconds), sigmaSeconds: edge.sigmaSeconds };
 }
 
-export function timingView(series: LightCurveSeries, result: TimingResult): TimingView {
+export function timingView(series: LightCurve, result: TimingResult): TimingView {
   const o = series.origin;
   return {
     format: 'limbus-timing/1',
@@ -64,7 +63,7 @@ export function timingView(series: LightCurveSeries, result: TimingResult): Timi
       marked: d.marked,
     })),
     series: {
-      originUtc: formatUtcInstant(o, 0),
+      originUtc: formatUtc(o, 0),
       timesSeconds: series.timesSeconds,
       flux: series.flux,
       fluxErr: series.fluxErr ?? null,

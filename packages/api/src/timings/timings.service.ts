@@ -2,6 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { InjectQueue } from '@nestjs/bullmq';
 import { Injectable } from '@nestjs/common';
 import type { TimedMark } from '@limbus/geometry';
+import { parseUtc, secondsBetweenUtc } from '@limbus/schema';
 import type { Queue } from 'bullmq';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
@@ -14,7 +15,6 @@ import { LightCurveTiming, type TimingState } from './entities/light-curve-timin
 import type { DipsToRingEventsPayload, MarkDipPayload, TimingOptions } from './timing-options';
 import type { TimingView } from './timing-result';
 import { TIMINGS_QUEUE, type TimingJobData } from './timings-queue';
-import { parseUtcInstant, secondsBetween } from './utc-instant';
 
 export interface TimingSummary {
   id: string;
@@ -93,13 +93,13 @@ export class TimingsService {
       throw new ValidationError([{ path: 'reportId', message: 'this report has no uploaded light curve' }]);
     }
     options.markedDips.forEach((d, k) => {
-      const start = parseUtcInstant(d.startUtc);
-      const end = parseUtcInstant(d.endUtc);
+      const start = parseUtc(d.startUtc);
+      const end = parseUtc(d.endUtc);
       const issues = [];
       if (typeof start === 'string') issues.push({ path: `markedDips[${k}].startUtc`, message: start });
       if (typeof end === 'string') issues.push({ path: `markedDips[${k}].endUtc`, message: end });
       if (issues.length > 0) throw new ValidationError(issues);
-      if (typeof start !== 'string' && typeof end !== 'string' && !(secondsBetween(start, end) > 0)) {
+      if (typeof start !== 'string' && typeof end !== 'string' && !(secondsBetweenUtc(end, start) > 0)) {
         throw new ValidationError([{ path: `markedDips[${k}].endUtc`, message: 'ends before it starts' }]);
       }
     });
@@ -246,8 +246,8 @@ export class TimingsService {
     dip: MarkDipPayload,
   ): Promise<TimingSummary> {
     const timing = await this.timing(eventId, timingId);
-    const start = parseUtcInstant(dip.startUtc);
-    const end = parseUtcInstant(dip.endUtc);
+    const start = parseUtc(dip.startUtc);
+    const end = parseUtc(dip.endUtc);
     const issues = [
       ...(typeof start === 'string' ? [{ path: 'startUtc', message: start }] : []),
       ...(typeof end === 'string' ? [{ path: 'endUtc', message: end }] : []),
