@@ -15,7 +15,7 @@ import { formatUtc, parseUtc } from '@limbus/schema';
 import { run, type TimingOutput } from '../src/commands/time.js';
 import { buildCliIfStale, runCli } from './built-cli.js';
 
-// Light curves of an invented event: station "Kestrel Ridge" watching an invented body occult an invented
+// Light curves of an invented event: station "Harrow Moss" watching an invented body occult an invented
 // star, written by the geometry package's independent synthetic generator (direct integration of the
 // straight-edge diffraction integral), so the CLI is checked end to end against the same truth.
 

@@ -110,11 +110,13 @@ describe('resonances', () => {
     }
   });
 
-  it("meanMotionResonanceKm() puts Mimas' 2:1 at the outer edge of Saturn's B ring", () => {
-    // Mimas a = 185 539 km; B ring outer edge ≈ 117 580 km, held by the Mimas 2:1 inner Lindblad
-    // resonance (Murray & Dermott, Solar System Dynamics, 1999, §10.x, from memory). The Keplerian
-    // location (116 882 km) sits 0.6 % inside because Saturn's J2 is neglected here.
-    expectClose(meanMotionResonanceKm(185_539, 2, 1) / 117_580, 1, 0.01);
+  it("meanMotionResonanceKm() puts Jupiter's 3:1 and 2:1 at the Kirkwood gaps", () => {
+    // Jupiter a = 5.2026 AU; the 3:1 and 2:1 Kirkwood gaps of the asteroid belt lie at 2.50 AU and 3.28 AU
+    // (Murray & Dermott, Solar System Dynamics, 1999, ch. 9, from memory). Keplerian, as here: the Sun
+    // has no J2 worth the name, so the agreement is to a few parts in a thousand.
+    const jupiterKm = 5.2026 * 149_597_870.7;
+    expectClose(meanMotionResonanceKm(jupiterKm, 3, 1) / 149_597_870.7, 2.5, 0.01);
+    expectClose(meanMotionResonanceKm(jupiterKm, 2, 1) / 149_597_870.7, 3.28, 0.01);
   });
 });
 
