@@ -15,8 +15,8 @@ import { formatUtc, parseUtc } from '@limbus/schema';
 import { run, type TimingOutput } from '../src/commands/time.js';
 import { buildCliIfStale, runCli } from './built-cli.js';
 
-// Light curves of an invented event: station "Harrow Moss" watching an invented body occult an invented
-// star, written by the geometry package's independent synthetic generator (direct integration of the
+// Light curves of an invented event: station "Harrow Moss" watching an invented body pass in front of an
+// invented star, written by the geometry package's independent synthetic generator (direct integration of the
 // straight-edge diffraction integral), so the CLI is checked end to end against the same truth.
 
 const setup: SyntheticSetup = {
