@@ -21,6 +21,8 @@ export interface ContextDraft {
   satellites: SatelliteDraft[];
   /** Rings come from the file as stored; the fitted rings are added by the server. */
   rings: ContextInputFile['rings'];
+  /** Resonance settings the form does not show, kept so that saving does not drop them. */
+  kept: Pick<ContextInputFile, 'spinOrbitK' | 'resonanceMaxOrder' | 'resonanceMaxInteger'>;
 }
 
 export const MEASURED = [
@@ -74,6 +76,11 @@ export function draftOf(input: ContextInputFile | null): ContextDraft {
       periodDaysSigma: text(s.periodDaysSigma),
     })),
     rings: input?.rings ?? [],
+    kept: {
+      ...(input?.spinOrbitK === undefined ? {} : { spinOrbitK: input.spinOrbitK }),
+      ...(input?.resonanceMaxOrder === undefined ? {} : { resonanceMaxOrder: input.resonanceMaxOrder }),
+      ...(input?.resonanceMaxInteger === undefined ? {} : { resonanceMaxInteger: input.resonanceMaxInteger }),
+    },
   };
 }
 
@@ -142,6 +149,7 @@ export function fileOf(draft: ContextDraft): DraftResult {
     ...measured('heliocentricDistanceAu', 'heliocentricDistanceAu', true),
     satellites,
     rings: draft.rings,
+    ...draft.kept,
   };
   // Shape checked field by field above; the server validates the whole file again with its schema.
   return { ok: true, file: file as ContextInputFile };

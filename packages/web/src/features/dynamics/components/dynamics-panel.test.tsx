@@ -43,7 +43,9 @@ describe('DynamicsPanel', () => {
     const sent = calls.find((c) => c.method === 'PUT')?.body as {
       body: Record<string, unknown>;
       satellites: unknown[];
+      spinOrbitK: number[];
     };
+    expect(sent.spinOrbitK).toEqual([2, 3]);
     expect(sent.body).toEqual({
       radiusKm: 570,
       radiusKmSigma: 10,

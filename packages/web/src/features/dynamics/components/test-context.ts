@@ -75,6 +75,7 @@ export const TEST_VIEW: DynamicsView = {
     heliocentricDistanceAu: 43.1,
     satellites: [{ name: 'Oru', semiMajorAxisKm: 14500, semiMajorAxisKmSigma: 50 }],
     rings: [],
+    spinOrbitK: [2, 3],
   },
   result: TEST_CONTEXT,
   ringFits: [TEST_RING_FIT],
