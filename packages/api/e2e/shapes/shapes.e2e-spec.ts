@@ -258,4 +258,46 @@ describe('3D shape from several fits', () => {
     const rows = await t.orm.em.fork().find(FitRun, { id: { $in: fitIds } }, { fields: ['state'] });
     expect(rows.map((r) => r.state)).toEqual(['solved', 'solved', 'solved', 'solved']);
   });
+
+  it('POST /api/teams/:teamId/shape/table gives the same numbers as the fit, with each fit hash as provenance', async () => {
+    const view = (await shape({ ...triaxial(), model: 'spheroid', phaseDeg: undefined }).expect(200))
+      .body as ShapeView;
+    const table = (format: string, actor: Actor = 'observer') =>
+      t
+        .post(`/api/teams/${w.team.id}/shape/table?format=${format}`)
+        .set(w.auth(actor))
+        .send({ ...triaxial(), model: 'spheroid', phaseDeg: undefined });
+    const json = JSON.parse((await table('json').expect(200)).text) as {
+      provenance: Record<string, string>;
+      parameters: Array<{ group: string; parameter: string; value: number; sigma: number | null }>;
+    };
+    const cell = (group: string, parameter: string) =>
+      json.parameters.find((p) => p.group === group && p.parameter === parameter);
+    expect(cell('shape', 'aKm')).toMatchObject({
+      value: view.result.semiAxesKm.aKm,
+      sigma: view.result.uncertainty.aKm,
+    });
+    expect(cell('shape', 'cKm')?.value).toBe(view.result.semiAxesKm.cKm);
+    expect(cell('fit', 'chi2')?.value).toBe(view.result.chi2);
+    expect(cell('equilibrium (Maclaurin)', 'densityKgM3')?.value).toBe(view.result.equilibrium?.densityKgM3);
+    const runs = await t.orm.em.fork().find(FitRun, { id: { $in: fitIds } });
+    const sha = new Map(runs.map((r) => [r.id, r.inputSha256]));
+    expect(json.provenance.fitIds).toBe(fitIds.join(' '));
+    expect(json.provenance.inputSha256).toBe(fitIds.map((id) => sha.get(id)).join(' '));
+    expect(json.provenance.cautions).toMatch(/hydrostatic equilibrium/);
+    const csv = await table('csv').expect(200);
+    expect(csv.headers['content-type']).toMatch(/^text\/csv/);
+    expect(csv.text.split('\r\n')[0]).toBe('group,parameter,value,sigma,unit,status');
+    expect(csv.text).toContain(
+      `shape,aKm,${view.result.semiAxesKm.aKm},${view.result.uncertainty.aKm},km,fitted`,
+    );
+    const tex = (await table('tex').expect(200)).text;
+    expect(tex).toContain('\\begin{tabular}');
+    expect(tex).toContain('\\pm');
+    await table('xls').expect(400);
+    for (const actor of ['admin', 'coordinator', 'observer', 'modeller', 'reviewer'] as const)
+      await table('csv', actor).expect(200);
+    await table('csv', 'outsider').expect(404);
+    await table('csv', 'anonymous').expect(401);
+  });
 });

@@ -16,3 +16,10 @@ export type FigureQuery = z.infer<typeof figureQuerySchema>;
 
 export const tableQuerySchema = z.strictObject({ format: z.enum(TABLE_FORMATS) });
 export type TableQuery = z.infer<typeof tableQuerySchema>;
+
+/** Content types of the table formats, for every route that serves one. */
+export const TABLE_TYPES: Record<TableQuery['format'], string> = {
+  csv: 'text/csv; charset=utf-8',
+  json: 'application/json; charset=utf-8',
+  tex: 'application/x-tex; charset=utf-8',
+};

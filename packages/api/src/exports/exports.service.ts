@@ -9,7 +9,7 @@ import { type RingFitAgainstContext, ringFitsAgainst } from '../dynamics/dynamic
 import { DynamicsContext } from '../dynamics/entities/dynamics-context.entity';
 import { captionDraft } from './caption';
 import { dynamicsCaption, dynamicsRows } from './dynamics-context';
-import type { FigureQuery, TableQuery } from './export-query';
+import { type FigureQuery, TABLE_TYPES, type TableQuery } from './export-query';
 import { renderFitFigureSvg } from './figure-svg';
 import { type Provenance, provenanceOf } from './provenance';
 import { renderPdf, renderPng } from './raster';
@@ -20,12 +20,6 @@ export interface ExportFile {
   contentType: string;
   fileName: string;
 }
-
-const TABLE_TYPES = {
-  csv: 'text/csv; charset=utf-8',
-  json: 'application/json; charset=utf-8',
-  tex: 'application/x-tex; charset=utf-8',
-} as const;
 
 interface SolvedFit {
   event: EventInput;

@@ -160,6 +160,11 @@ function csvCell(cell: string): string {
 }
 
 export function tableCsv(rows: ParameterRow[], provenance: Provenance): string {
+  return tableCsvWith(rows, provenanceEntries(provenance));
+}
+
+/** The CSV table with any provenance given as ordered key/value pairs (e.g. a shape fit over several fits). */
+export function tableCsvWith(rows: ParameterRow[], provenance: Array<[string, string]>): string {
   const lines = [['group', 'parameter', 'value', 'sigma', 'unit', 'status']];
   for (const r of rows)
     lines.push([
@@ -170,11 +175,11 @@ export function tableCsv(rows: ParameterRow[], provenance: Provenance): string {
       r.unit,
       r.status,
     ]);
-  for (const [k, v] of provenanceEntries(provenance)) lines.push(['provenance', k, v, '', '', '']);
+  for (const [k, v] of provenance) lines.push(['provenance', k, v, '', '', '']);
   return lines.map((l) => l.map(csvCell).join(',')).join('\r\n') + '\r\n';
 }
 
-export function tableJson(rows: ParameterRow[], provenance: Provenance): string {
+export function tableJson(rows: ParameterRow[], provenance: Provenance | Record<string, string>): string {
   return JSON.stringify({ format: 'limbus-table/1', provenance, parameters: rows }, null, 2) + '\n';
 }
 
@@ -204,8 +209,12 @@ export function texValue(r: ParameterRow): string {
 }
 
 export function tableTex(rows: ParameterRow[], provenance: Provenance): string {
+  return tableTexWith(rows, provenanceEntries(provenance));
+}
+
+export function tableTexWith(rows: ParameterRow[], provenance: Array<[string, string]>): string {
   const out: string[] = [
-    ...provenanceEntries(provenance).map(([k, v]) => `% ${k}: ${v}`),
+    ...provenance.map(([k, v]) => `% ${k}: ${v}`),
     '\\begin{tabular}{lllll}',
     '\\hline',
     'Group & Parameter & Value & Unit & Status \\\\',

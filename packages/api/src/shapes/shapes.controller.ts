@@ -1,5 +1,7 @@
-import { Body, Controller, HttpCode, Param, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, HttpCode, Param, Post, Query, Res, StreamableFile } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiProduces, ApiQuery, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import { TABLE_FORMATS, TABLE_TYPES, type TableQuery, tableQuerySchema } from '../exports/export-query';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { TeamMember } from '../teams/roles.decorator';
 import { type ShapePayload, shapePayloadSchema } from './shape-schemas';
@@ -21,5 +23,22 @@ export class ShapesController {
     @Body(new ZodValidationPipe(shapePayloadSchema)) body: ShapePayload,
   ): Promise<ShapeView> {
     return this.shapes.fit(teamId, body);
+  }
+
+  @Post('teams/:teamId/shape/table')
+  @TeamMember()
+  @HttpCode(200)
+  @ApiBody({ schema: openApiSchema(shapePayloadSchema) })
+  @ApiProduces('text/csv', 'application/json', 'application/x-tex')
+  @ApiQuery({ name: 'format', enum: TABLE_FORMATS })
+  async table(
+    @Param('teamId') teamId: string,
+    @Query(new ZodValidationPipe(tableQuerySchema)) query: TableQuery,
+    @Body(new ZodValidationPipe(shapePayloadSchema)) body: ShapePayload,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<StreamableFile> {
+    const text = Buffer.from(await this.shapes.table(teamId, body, query.format), 'utf8');
+    res.setHeader('Content-Disposition', `attachment; filename="limbus-shape.${query.format}"`);
+    return new StreamableFile(text, { type: TABLE_TYPES[query.format], length: text.length });
   }
 }

@@ -10,6 +10,8 @@ import type { JointJobResult } from '../comparisons/joint-poles.processor';
 import { FitRun } from '../fits/entities/fit-run.entity';
 import type { ShapePayload } from './shape-schemas';
 import { shapeEventOf } from './shape-input';
+import { shapeTable } from './shape-table';
+import type { TableQuery } from '../exports/export-query';
 
 export interface ShapeView {
   /** The pole used, and where it came from. */
@@ -107,6 +109,13 @@ export class ShapesService {
       throw error;
     }
     return { pole, fits, result, cautions: pole.source === 'joint ring pole' ? [RING_POLE_CAUTION] : [] };
+  }
+
+  /** The same fit as a table for a paper, with the fits' hashes and approval states as provenance. */
+  async table(teamId: string, body: ShapePayload, format: TableQuery['format']): Promise<string> {
+    const view = await this.fit(teamId, body);
+    const runs = await this.em.fork().find(FitRun, { id: { $in: body.fitIds } });
+    return shapeTable(view, new Map(runs.map((run) => [run.id, run])), format);
   }
 }
 
