@@ -3,8 +3,12 @@
 
 import { createHash } from 'node:crypto';
 
-import { solveEvent, type Solution } from '@limbus/geometry';
-import { validateEventFile, validateSolutionFile } from '@limbus/schema';
+// Subpath imports, not the package indexes: the indexes also load the light-curve, shape and API modules,
+// which the solve never uses and which cost ~80 ms of the command's start-up (docs/performance.md).
+import type { Solution } from '@limbus/geometry';
+import { solveEvent } from '@limbus/geometry/solve';
+import { validateEventFile } from '@limbus/schema/event-file';
+import { validateSolutionFile } from '@limbus/schema/solution-file';
 
 import { InputProblems, readJsonFile, runCommand } from '../io.js';
 
