@@ -4,7 +4,7 @@
 export function validEventJson(): Record<string, unknown> {
   return {
     format: 'limbus-event/1',
-    title: '(90001) Varkas, 2028-03-14',
+    title: 'Varkas, 2028-03-14',
     star: { raDeg: 101.25, decDeg: 18.5 },
     ephemeris: {
       timeScale: 'TDB',
