@@ -50,6 +50,30 @@ interface Draft {
   notes: string;
 }
 
+/** The two timed marks of a positive report: one time and one sigma field each. */
+const MARKS = [
+  {
+    event: 'disappearance',
+    label: 'Disappearance',
+    time: 'dTime',
+    sigma: 'dSigma',
+    placeholder: '2029-05-17T03:12:31.25Z',
+  },
+  {
+    event: 'reappearance',
+    label: 'Reappearance',
+    time: 'rTime',
+    sigma: 'rSigma',
+    placeholder: '2029-05-17T03:12:49.90Z',
+  },
+] as const satisfies ReadonlyArray<{
+  event: string;
+  label: string;
+  time: keyof Draft;
+  sigma: keyof Draft;
+  placeholder: string;
+}>;
+
 function draftOf(report: Report | null, stationId: string): Draft {
   return {
     stationId: report?.stationId ?? stationId,
@@ -163,50 +187,26 @@ export function ReportForm({
       </Field>
       {positive ? (
         <>
-          <div className={styles.pair}>
-            <Field
-              label="Disappearance (UTC)"
-              required
-              validationMessage={err('disappearance.time', 'disappearance')}
-            >
-              <Input
-                value={draft.dTime}
-                disabled={locked}
-                placeholder="2029-05-17T03:12:31.25Z"
-                onChange={(_, d) => set('dTime', d.value)}
-              />
-            </Field>
-            <Field label="Disappearance σ (s)" required validationMessage={err('disappearance.sigmaSeconds')}>
-              <Input
-                value={draft.dSigma}
-                disabled={locked}
-                inputMode="decimal"
-                onChange={(_, d) => set('dSigma', d.value)}
-              />
-            </Field>
-          </div>
-          <div className={styles.pair}>
-            <Field
-              label="Reappearance (UTC)"
-              required
-              validationMessage={err('reappearance.time', 'reappearance')}
-            >
-              <Input
-                value={draft.rTime}
-                disabled={locked}
-                placeholder="2029-05-17T03:12:49.90Z"
-                onChange={(_, d) => set('rTime', d.value)}
-              />
-            </Field>
-            <Field label="Reappearance σ (s)" required validationMessage={err('reappearance.sigmaSeconds')}>
-              <Input
-                value={draft.rSigma}
-                disabled={locked}
-                inputMode="decimal"
-                onChange={(_, d) => set('rSigma', d.value)}
-              />
-            </Field>
-          </div>
+          {MARKS.map((m) => (
+            <div key={m.event} className={styles.pair}>
+              <Field label={`${m.label} (UTC)`} required validationMessage={err(`${m.event}.time`, m.event)}>
+                <Input
+                  value={draft[m.time]}
+                  disabled={locked}
+                  placeholder={m.placeholder}
+                  onChange={(_, d) => set(m.time, d.value)}
+                />
+              </Field>
+              <Field label={`${m.label} σ (s)`} required validationMessage={err(`${m.event}.sigmaSeconds`)}>
+                <Input
+                  value={draft[m.sigma]}
+                  disabled={locked}
+                  inputMode="decimal"
+                  onChange={(_, d) => set(m.sigma, d.value)}
+                />
+              </Field>
+            </div>
+          ))}
         </>
       ) : null}
       {negative ? (
