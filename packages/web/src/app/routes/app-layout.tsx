@@ -41,10 +41,12 @@ function readStoredTeamId(): string | null {
 /** Everything behind sign-in: loads the user once, picks the team, and frames the page. */
 export function AppLayout() {
   const styles = useStyles();
-  const me = useMe();
   const location = useLocation();
   const navigate = useNavigate();
   const signOut = useSignOut(() => navigate(paths.signIn, { replace: true }));
+  // Signing out clears the cache while this layout is still on screen; without the pause the account
+  // would be fetched once more, token-less, on the way to the sign-in page.
+  const me = useMe({ enabled: signOut.isIdle });
   const [chosenTeamId, setChosenTeamId] = useState<string | null>(readStoredTeamId);
 
   if (me.isPending) {

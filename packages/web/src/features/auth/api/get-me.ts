@@ -29,6 +29,6 @@ export function meQueryOptions() {
   return queryOptions({ queryKey: meQueryKey, queryFn: ({ signal }) => getMe(signal) });
 }
 
-export function useMe() {
-  return useQuery(meQueryOptions());
+export function useMe({ enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({ ...meQueryOptions(), enabled });
 }
