@@ -37,10 +37,9 @@ export class RolesGuard implements CanActivate {
       throw new Error(`@Roles on ${context.getClass().name} needs a route parameter with a team resolver`);
     const teamId = await scope.resolver(scope.value, this.em);
     if (teamId === null) throw new NotFoundError();
-    const membership = await this.memberships.findOne({ team: teamId, user: user.id });
     const decision = decideTeamAccess({
       isAdmin: user.isAdmin,
-      memberRoles: membership?.roles ?? null,
+      memberRoles: user.isAdmin ? null : await this.memberships.rolesOf(teamId, user.id),
       required,
     });
     if (decision === 'not-found') throw new NotFoundError();
