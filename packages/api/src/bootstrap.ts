@@ -2,7 +2,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
-import type { NextFunction, Request, Response } from 'express';
+import express, { type NextFunction, type Request, type Response } from 'express';
 import helmet from 'helmet';
 import { Logger } from 'nestjs-pino';
 import type { AppConfig } from './config/app-config';
@@ -57,10 +57,14 @@ function serveClient(app: NestExpressApplication, webDistDir: string): void {
     app.get(Logger).warn(`no client build at ${webDistDir}; serving the API only`);
     return;
   }
-  app.useStaticAssets(webDistDir, { index: false, fallthrough: true });
+  const isApi = (req: Request) => req.path === `/${API_PREFIX}` || req.path.startsWith(`/${API_PREFIX}/`);
+  // API requests skip the file lookup: a stat of the client folder on every read is pure cost.
+  const assets = express.static(webDistDir, { index: false, fallthrough: true });
+  app.use((req: Request, res: Response, next: NextFunction) =>
+    isApi(req) ? next() : assets(req, res, next),
+  );
   app.use((req: Request, res: Response, next: NextFunction) => {
-    const isApi = req.path === `/${API_PREFIX}` || req.path.startsWith(`/${API_PREFIX}/`);
-    if ((req.method === 'GET' || req.method === 'HEAD') && !isApi && req.accepts('html')) {
+    if ((req.method === 'GET' || req.method === 'HEAD') && !isApi(req) && req.accepts('html')) {
       res.sendFile(indexHtml);
       return;
     }
