@@ -9,6 +9,7 @@ import { NotFoundError, ValidationError } from '../common/domain-errors';
 import { FitRun } from '../fits/entities/fit-run.entity';
 import { Membership } from '../teams/entities/membership.entity';
 import { OccultationEvent, type EventState } from './entities/occultation-event.entity';
+import { EventDetailCache } from './event-detail.cache';
 import { eventFileOf, loadEventRows, persistEventFile, type EventRows } from './event-rows';
 import { chooseTeam } from './team-choice';
 import {
@@ -57,6 +58,7 @@ export class EventsService {
   constructor(
     private readonly em: EntityManager,
     private readonly audit: AuditService,
+    private readonly detailCache: EventDetailCache,
   ) {}
 
   /** Throws NotFound for a missing or (unless asked) soft-deleted event. */
@@ -126,9 +128,24 @@ export class EventsService {
     }));
   }
 
+  /**
+   * The event as the desk shows it. Reads the revision first (one indexed row, no entity) and builds
+   * the view only when the cache has none for that revision: the workspace reads far more than it writes.
+   */
   async detail(eventId: string): Promise<EventDetail> {
+    const [current] = await this.em
+      .getConnection()
+      .execute<Array<{ state: string; revision: number }>>(
+        'select `state`, `revision` from `events` where `id` = ? limit 1',
+        [eventId],
+      );
+    if (!current || current.state === 'deleted') throw new NotFoundError();
+    const cached = this.detailCache.get(eventId, current.revision);
+    if (cached) return cached;
     const event = await this.find(eventId);
-    return this.detailOf(await loadEventRows(this.em, event));
+    const detail = this.detailOf(await loadEventRows(this.em, event));
+    this.detailCache.set(eventId, current.revision, detail);
+    return detail;
   }
 
   detailOf(rows: EventRows): EventDetail {

@@ -3,6 +3,7 @@ import { Migration20261201235328 } from './Migration20261201235328_initial';
 import { Migration20261202000927 } from './Migration20261202000927_event_workspace';
 import { Migration20261202004801 } from './Migration20261202004801_times_in_ms';
 import { Migration20261202003844 } from './Migration20261202003844_timings_dynamics';
+import { Migration20261202033000 } from './Migration20261202033000_event_revision';
 
 /**
  * Static list so the migrator works under vitest and from dist alike. To add one: build, run
@@ -14,4 +15,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202000927_event_workspace', class: Migration20261202000927 },
   { name: 'Migration20261202003844_timings_dynamics', class: Migration20261202003844 },
   { name: 'Migration20261202004801_times_in_ms', class: Migration20261202004801 },
+  { name: 'Migration20261202033000_event_revision', class: Migration20261202033000 },
 ];

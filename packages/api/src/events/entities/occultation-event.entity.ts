@@ -47,6 +47,14 @@ export class OccultationEvent {
   @Property({ type: 'datetime', onUpdate: () => new Date() })
   updatedAt: Date & Opt = new Date();
 
+  /**
+   * Rises with every write to this event or its stations, chords and ring events. Database triggers
+   * keep it (migration Migration20261202033000_event_revision); nothing in the code sets it, and a
+   * loaded entity's value may be stale: read it fresh where it matters (EventDetailCache).
+   */
+  @Property({ type: 'integer', unsigned: true, default: 0 })
+  revision: number & Opt = 0;
+
   constructor(
     team: Team,
     fields: Pick<OccultationEvent, 'title' | 'star' | 'ephemeris' | 'earthRotation' | 'fitDefaults'>,
