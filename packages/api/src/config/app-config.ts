@@ -1,4 +1,5 @@
 import { randomBytes } from 'node:crypto';
+import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -42,6 +43,8 @@ const envSchema = z.object({
   // Loopback by default: the demo should not be reachable from the network unless asked.
   LIMBUS_HOST: z.string().min(1).default('127.0.0.1'),
   LIMBUS_PUBLIC_URL: url(['http:', 'https:']).optional(),
+  // HTTP processes sharing the port (node:cluster); default one per core.
+  LIMBUS_API_PROCESSES: z.coerce.number().int().min(1).max(64).optional(),
   WEB_DIST_DIR: z.string().min(1).optional(),
   // Express "trust proxy" value (e.g. "loopback" or a hop count) when a reverse proxy sets X-Forwarded-For;
   // unset, the socket address is the client address that sign-in limits count.
@@ -81,6 +84,7 @@ export class AppConfig {
   /** Base of links in e-mails, without a trailing slash. */
   readonly publicUrl!: string;
   readonly webDistDir!: string;
+  readonly apiProcesses!: number;
   readonly trustProxy!: string | number | null;
   readonly jwtSecret!: string;
   readonly initialAdmin!: { email: string; password: string } | null;
@@ -145,6 +149,7 @@ export function loadConfig(env: NodeJS.ProcessEnv): AppConfig {
     host: e.LIMBUS_HOST,
     publicUrl: (e.LIMBUS_PUBLIC_URL ?? `http://127.0.0.1:${e.LIMBUS_PORT}`).replace(/\/+$/, ''),
     webDistDir: e.WEB_DIST_DIR ? path.resolve(e.WEB_DIST_DIR) : DEFAULT_WEB_DIST_DIR,
+    apiProcesses: e.LIMBUS_API_PROCESSES ?? availableParallelism(),
     trustProxy:
       e.LIMBUS_TRUST_PROXY === undefined
         ? null
