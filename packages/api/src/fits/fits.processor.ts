@@ -9,7 +9,8 @@ import { FITS_QUEUE } from '../queue/queue.module';
 import { FitRun } from './entities/fit-run.entity';
 import { FitNotices } from './fit-notices';
 import { fitWorkerOptions } from './fit-worker-options';
-import { type FitJobData, sha256Hex } from './fits.service';
+import type { FitJobData } from './fit-queue';
+import { sha256Hex } from './fits.service';
 
 const options = fitWorkerOptions(process.env);
 

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { EntityManager, MikroORM, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
 import { InjectQueue } from '@nestjs/bullmq';
-import { Injectable, type MessageEvent } from '@nestjs/common';
+import { Injectable, Logger, type MessageEvent } from '@nestjs/common';
 import { DEFAULT_SEED, ENGINE_VERSION } from '@limbus/geometry';
 import { type SubmitFitPayload, validateEventFile } from '@limbus/schema';
 import type { Queue } from 'bullmq';
@@ -15,11 +15,11 @@ import { FITS_QUEUE } from '../queue/queue.module';
 import { User } from '../users/entities/user.entity';
 import { FitRun } from './entities/fit-run.entity';
 import { overlayFitOptions } from './fit-options';
+import { enqueueFit, type FitJobData } from './fit-queue';
 import { fitSummaryView, type FitSummaryView, type FitView, fitView } from './fit-view';
 
-export interface FitJobData {
-  fitId: string;
-}
+/** How long a submit waits for Redis to take the job before it leaves the job to the sweep. */
+const ENQUEUE_WAIT_MS = 2_000;
 
 /** How often the progress stream looks at the fit row; the row, not this process, is the truth. */
 const STREAM_POLL_MS = 150;
@@ -30,6 +30,8 @@ export function sha256Hex(text: string): string {
 
 @Injectable()
 export class FitsService {
+  private readonly logger = new Logger(FitsService.name);
+
   constructor(
     private readonly em: EntityManager,
     private readonly orm: MikroORM,
@@ -103,13 +105,32 @@ export class FitsService {
       }
       throw error;
     }
-    // jobId = fit id: adding the same fit twice (a retry after a lost reply) queues it once.
-    await this.queue.add(
-      'solve',
-      { fitId: fit.id },
-      { jobId: fit.id, removeOnComplete: 1000, removeOnFail: 5000 },
-    );
+    await this.enqueueOrLeaveToSweep(fit.id);
     return { id: fit.id };
+  }
+
+  /**
+   * The fit is stored; queueing its job is delivery. With Redis away the add would wait for it (the
+   * queue's connection retries forever), so after ENQUEUE_WAIT_MS the submit answers anyway: the row
+   * stays queued and a worker's sweep (FitRequeue) queues it once Redis is back.
+   */
+  private async enqueueOrLeaveToSweep(fitId: string): Promise<void> {
+    const added = enqueueFit(this.queue, fitId);
+    let timer: NodeJS.Timeout | undefined;
+    const gaveUp = new Promise<'timeout'>((resolve) => {
+      timer = setTimeout(() => resolve('timeout'), ENQUEUE_WAIT_MS);
+    });
+    try {
+      if ((await Promise.race([added, gaveUp])) === 'timeout')
+        this.logger.warn(`fit ${fitId} stored; the queue did not answer, a worker's sweep will queue it`);
+    } catch (error) {
+      this.logger.warn(
+        `fit ${fitId} stored; queueing failed (${error instanceof Error ? error.message : String(error)}), a worker's sweep will queue it`,
+      );
+    } finally {
+      clearTimeout(timer);
+      added.catch(() => undefined);
+    }
   }
 
   async find(fitId: string, withSolution = false): Promise<FitRun> {
