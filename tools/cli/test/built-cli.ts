@@ -1,5 +1,5 @@
-// Runs the built CLI as a user would (`node tools/cli/dist/main.js …`), rebuilding the packages it
-// depends on first when their sources are newer than their dist.
+// Runs the built CLI as a user would (`./tools/limbus …` runs the bundle `tools/cli/dist/bundle/main.js`),
+// rebuilding the packages it depends on first when their sources are newer than their dist.
 
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -8,7 +8,7 @@ import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 export const REPO_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
-const MAIN_JS = join(REPO_ROOT, 'tools/cli/dist/main.js');
+const MAIN_JS = join(REPO_ROOT, 'tools/cli/dist/bundle/main.js');
 const PACKAGES = ['packages/schema', 'packages/geometry', 'tools/cli'];
 
 function newestMtimeMs(dir: string): number {
