@@ -10,7 +10,13 @@ import { DEG, PI, RAD, wrap } from '../math.js';
 import { GeometryInputError } from '../types.js';
 import type { LimbEllipse, SkyPointKm } from '../types.js';
 import { algebraicEllipse } from './conic-start.js';
-import { type EllipseFrame, frameResidualGradient, frameResidualKm, pathClearance } from './ellipse.js';
+import {
+  ALONG_FLOOR,
+  type EllipseFrame,
+  frameResidualGradient,
+  frameResidualKm,
+  pathClearance,
+} from './ellipse.js';
 import { runEnsemble } from './ensemble-sampler.js';
 import { type LeastSquaresProblem, jacobian, levenbergMarquardt } from './levenberg-marquardt.js';
 import { gaussian, mulberry32 } from './prng.js';
@@ -142,7 +148,7 @@ export function chi2Of(problem: EllipseFitProblem, full: Float64Array, residuals
     }
     frameResidualGradient(f, g, fr, grad);
     const rho = grad[0];
-    const along = Math.max(Math.abs(vf * grad[1] + vg * grad[2]), 0.1 * Math.sqrt(vf * vf + vg * vg));
+    const along = Math.max(Math.abs(vf * grad[1] + vg * grad[2]), ALONG_FLOOR * Math.sqrt(vf * vf + vg * vg));
     const s = p.sigmaSeconds * along;
     const r = rho / Math.sqrt(s * s + m2);
     if (residuals) residuals[i] = r;

@@ -10,6 +10,12 @@
 import { DEG, PI, wrap } from '../math.js';
 import type { LimbEllipse, SkyPointKm } from '../types.js';
 
+/**
+ * Floor of a point's along-path weight, as a fraction of its speed: σρ = σt·max(|v·∇ρ|, ALONG_FLOOR·|v|)
+ * keeps a near-grazing crossing from taking an unbounded weight (common practice, no source).
+ */
+export const ALONG_FLOOR = 0.1;
+
 /** The ellipse in the working form used inside loops: radians, both semi-axes, and the rotation. */
 export interface EllipseFrame {
   centerFKm: number;
