@@ -6,7 +6,7 @@ import { FitRun } from '../../src/fits/entities/fit-run.entity';
 import { FITS_QUEUE } from '../../src/queue/queue.module';
 import { createWorkspace, importExample, type Workspace } from '../events/workspace';
 import { bootTestApp, type TestApp } from '../setup';
-import { bootWorker } from './worker';
+import { bootWorker, fitWhenFinished } from './worker';
 
 describe('a fit submitted while the queue is unreachable', () => {
   let t: TestApp;
@@ -48,12 +48,7 @@ describe('a fit submitted while the queue is unreachable', () => {
 
     process.env.FIT_REQUEUE_INTERVAL_MS = '300';
     worker = await bootWorker(t.config);
-    const deadline = Date.now() + 30_000;
-    let fit = await fitRow(fitId);
-    while (fit.state !== 'solved' && fit.state !== 'failed' && Date.now() < deadline) {
-      await new Promise((resolve) => setTimeout(resolve, 200));
-      fit = await fitRow(fitId);
-    }
+    const fit = await fitWhenFinished(t, fitId);
     expect(fit.state).toBe('solved');
     expect(fit.attempts).toBe(1);
   });

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FitRun } from '../../src/fits/entities/fit-run.entity';
 import { bootTestApp, type TestApp } from '../setup';
 import { createWorkspace, importExample, type Workspace } from '../events/workspace';
-import { spawnWorker, workerEnv } from './worker';
+import { fitWhenFinished, spawnWorker, workerEnv } from './worker';
 
 describe('fit worker killed mid-job', () => {
   let t: TestApp;
@@ -47,12 +47,7 @@ describe('fit worker killed mid-job', () => {
       workerEnv(t, { FIT_STALLED_INTERVAL_MS: '1000', FIT_LOCK_DURATION_MS: '1000' }),
     );
     children.push(healthy);
-    const solvedBy = Date.now() + 30_000;
-    let fit = await fitRow(fitId);
-    while (fit.state !== 'solved' && fit.state !== 'failed' && Date.now() < solvedBy) {
-      await new Promise((resolve) => setTimeout(resolve, 200));
-      fit = await fitRow(fitId);
-    }
+    const fit = await fitWhenFinished(t, fitId);
     expect(fit.state).toBe('solved');
     expect(fit.attempts).toBe(2);
     healthy.kill('SIGTERM');

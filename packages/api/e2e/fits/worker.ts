@@ -3,6 +3,7 @@ import path from 'node:path';
 import type { INestApplicationContext } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import type { AppConfig } from '../../src/config/app-config';
+import { FitRun } from '../../src/fits/entities/fit-run.entity';
 import { WorkerModule } from '../../src/worker.module';
 import type { TestApp } from '../setup';
 
@@ -63,4 +64,15 @@ export async function spawnWorker(env: NodeJS.ProcessEnv): Promise<ChildProcess>
   });
   child.removeAllListeners('exit');
   return child;
+}
+
+/** The fit's row once it is solved or failed, or as it stands after `ms`. */
+export async function fitWhenFinished(t: TestApp, fitId: string, ms = 30_000): Promise<FitRun> {
+  const deadline = Date.now() + ms;
+  let fit = await t.orm.em.fork().findOneOrFail(FitRun, { id: fitId });
+  while (fit.state !== 'solved' && fit.state !== 'failed' && Date.now() < deadline) {
+    await new Promise((resolve) => setTimeout(resolve, 200));
+    fit = await t.orm.em.fork().findOneOrFail(FitRun, { id: fitId });
+  }
+  return fit;
 }
