@@ -5,6 +5,8 @@ export * from './joint/index.js';
 export * from './shape/index.js';
 export * from './fit/index.js';
 export { projectEvent } from './project.js';
+export { shadowMotionAt } from './shadow-motion.js';
+export type { ShadowMotion } from './shadow-motion.js';
 export type { ProjectedEvent, ProjectOptions, RingDip, SkyPlaneBasis } from './project.js';
 export { solveEvent, DEFAULT_SEED } from './solve.js';
 export { ENGINE_VERSION } from './version.js';
