@@ -1,7 +1,8 @@
 import 'reflect-metadata';
-import { createHash } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import type { INestApplicationContext } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
+import { type EventInput, projectEvent } from '@limbus/geometry';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Chord } from '../../src/chords/entities/chord.entity';
 import { RingEvent } from '../../src/chords/entities/ring-event.entity';
@@ -197,6 +198,35 @@ describe('light-curve timing routes and job', () => {
     expect(rows).toBe(2);
   });
 
+  it("GET /api/events/:eventId/reports/:reportId/timing-defaults gives the station's speed and the distance from the event", async () => {
+    const response = await t
+      .get(`/api/events/${eventId}/reports/${reportId}/timing-defaults`)
+      .set(w.auth('modeller'))
+      .expect(200);
+    const defaults = response.body as {
+      speedKmPerS: number;
+      distanceKm: number;
+      exposureSeconds: number | null;
+      atFrom: string;
+      atUtc: string;
+    };
+    // The report has no times of its own, so the instant is the event's positive chords' mean mid-time;
+    // the fit's own projection of amberfield's chord moves at nearly the same speed.
+    expect(defaults.atFrom).toBe('chords');
+    const exported = (await t.get(`/api/events/${eventId}/export`).set(w.auth('modeller')).expect(200))
+      .body as EventInput;
+    const chord = projectEvent(exported).chords.find((c) => c.station === 'amberfield');
+    expect(chord).toBeDefined();
+    const speed = Math.hypot(chord?.velocityKmPerS.f ?? 0, chord?.velocityKmPerS.g ?? 0);
+    expect(Math.abs(defaults.speedKmPerS - speed) / speed).toBeLessThan(0.01);
+    expect(defaults.distanceKm).toBeGreaterThan(1e9);
+    expect(defaults.exposureSeconds).toBeNull();
+    await t
+      .get(`/api/events/${eventId}/reports/${randomUUID()}/timing-defaults`)
+      .set(w.auth('modeller'))
+      .expect(404);
+  });
+
   it('POST /api/events/:eventId/reports/:reportId/timings answers 400 naming each bad field and stores nothing', async () => {
     const before = await t.orm.em.fork().count(LightCurveTiming, { report: reportId });
     const response = await t
@@ -239,6 +269,7 @@ describe('light-curve timing routes and job', () => {
   it.each([
     { route: 'POST …/reports/:reportId/timings', codes: [202, 202, 403, 202, 403, 404, 401] },
     { route: 'GET …/reports/:reportId/timings', codes: [200, 200, 200, 200, 200, 404, 401] },
+    { route: 'GET …/reports/:reportId/timing-defaults', codes: [200, 200, 200, 200, 200, 404, 401] },
     { route: 'GET …/timings/:timingId', codes: [200, 200, 200, 200, 200, 404, 401] },
     { route: 'POST …/timings/:timingId/accept', codes: [200, 200, 403, 200, 403, 404, 401] },
     { route: 'POST …/timings/:timingId/ring-events', codes: [201, 201, 403, 201, 403, 404, 401] },

@@ -11,6 +11,7 @@ import {
   type TimingOptions,
   timingOptionsSchema,
 } from './timing-options';
+import type { TimingDefaults } from './timing-defaults';
 import { type TimingDetail, type TimingSummary, TimingsService } from './timings.service';
 
 @ApiTags('timings')
@@ -30,6 +31,12 @@ export class TimingsController {
     @Body(new ZodValidationPipe(timingOptionsSchema)) body: TimingOptions,
   ): Promise<TimingSummary> {
     return this.timings.create(user, eventId, reportId, body);
+  }
+
+  @Get('reports/:reportId/timing-defaults')
+  @TeamMember()
+  defaults(@Param('eventId') eventId: string, @Param('reportId') reportId: string): Promise<TimingDefaults> {
+    return this.timings.defaults(eventId, reportId);
   }
 
   @Get('reports/:reportId/timings')

@@ -10,8 +10,10 @@ import { Chord } from '../chords/entities/chord.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
 import { Report } from '../reports/entities/report.entity';
+import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { User } from '../users/entities/user.entity';
 import { LightCurveTiming, type TimingState } from './entities/light-curve-timing.entity';
+import { type TimingDefaults, timingDefaultsOf } from './timing-defaults';
 import type { DipsToRingEventsPayload, MarkDipPayload, TimingOptions } from './timing-options';
 import type { TimingView } from './timing-result';
 import { TIMINGS_QUEUE, type TimingJobData } from './timings-queue';
@@ -79,6 +81,13 @@ export class TimingsService {
     );
     if (!timing) throw new NotFoundError('No such timing in this event');
     return timing;
+  }
+
+  /** Speed, distance and exposure to start a timing of this report's light curve from. */
+  async defaults(eventId: string, reportId: string): Promise<TimingDefaults> {
+    const report = await this.report(eventId, reportId);
+    const file = eventFileOf(await loadEventRows(this.em, report.event));
+    return timingDefaultsOf(file, report.station.code, report, report.station.exposureSeconds);
   }
 
   async create(
