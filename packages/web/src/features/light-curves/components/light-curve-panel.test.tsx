@@ -73,6 +73,42 @@ describe('LightCurvePanel', () => {
     expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
   });
 
+  it("LightCurvePanel starts a new timing from the event's speed, distance and the station's exposure", async () => {
+    const calls = stubFetch((call) => {
+      if (call.url === '/api/events/e1/reports/r1/timing-defaults')
+        return jsonResponse(200, {
+          speedKmPerS: 21.98765,
+          distanceKm: 6162349871.4,
+          exposureSeconds: 0.2,
+          atUtc: '2028-03-14T02:13:55.500Z',
+          atFrom: 'report',
+        });
+      if (call.url === '/api/events/e1/reports/r1/timings' && call.method === 'GET')
+        return jsonResponse(200, []);
+      if (call.url === '/api/events/e1/reports/r1/timings')
+        return jsonResponse(202, { ...SUMMARY, id: 'tm2', state: 'queued' });
+      return jsonResponse(404, { message: 'unexpected' });
+    });
+    const user = userEvent.setup();
+    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    const speed = screen.getByRole('textbox', { name: 'Shadow speed (km/s)' });
+    expect(
+      await screen.findByText(/at 02:13:55 UTC \(the report's own times\), exposure from the station/),
+    ).toBeInTheDocument();
+    expect(speed).toHaveValue('21.988');
+    expect(screen.getByRole('textbox', { name: 'Distance (km)' })).toHaveValue('6162349871');
+    expect(screen.getByRole('textbox', { name: 'Exposure (s)' })).toHaveValue('0.2');
+    await user.clear(speed);
+    await user.type(speed, '22.5');
+    await user.click(screen.getByRole('button', { name: 'Time light curve' }));
+    await vi.waitFor(() => expect(calls.some((c) => c.method === 'POST')).toBe(true));
+    expect(calls.find((c) => c.method === 'POST')?.body).toMatchObject({
+      speedKmPerS: 22.5,
+      distanceKm: 6162349871,
+      exposureSeconds: 0.2,
+    });
+  });
+
   it('LightCurvePanel for a reader shows the plot without the actions', async () => {
     api();
     renderWithProviders(

@@ -20,6 +20,7 @@ import { useAcceptTiming } from '../api/accept-timing';
 import { createTimingInputSchema, useCreateTiming } from '../api/create-timing';
 import { ringNameSchema, useDipsToRingEvents } from '../api/dips-to-ring-events';
 import { useTiming } from '../api/get-timing';
+import { type TimingDefaults, useTimingDefaults } from '../api/get-timing-defaults';
 import { useTimings } from '../api/get-timings';
 import { useMarkDip } from '../api/mark-dip';
 import type { TimingDetail, TimingResult } from '../api/timing-schema';
@@ -64,6 +65,16 @@ function TimingForm({
   const [bottom, setBottom] = useState<'free' | 'zero'>('free');
   const [errors, setErrors] = useState<FieldErrors>({});
   const create = useCreateTiming(eventId, reportId, onQueued);
+  const defaults = useTimingDefaults(eventId, reportId);
+  // The event's values fill only the fields nobody has typed in yet.
+  useEffect(() => {
+    const d = defaults.data;
+    if (d === undefined) return;
+    const fill = (text: string) => (current: string) => (current === '' ? text : current);
+    setSpeed(fill(d.speedKmPerS.toFixed(3)));
+    setDistance(fill(d.distanceKm.toFixed(0)));
+    if (d.exposureSeconds !== null) setExposure(fill(String(d.exposureSeconds)));
+  }, [defaults.data]);
   const onSubmit = (event: FormEvent) => {
     event.preventDefault();
     const parsed = createTimingInputSchema.safeParse({
@@ -105,11 +116,36 @@ function TimingForm({
           Time light curve
         </Button>
       </div>
+      <DefaultsNote defaults={defaults.data} error={defaults.error} />
       {create.isError && Object.keys(fieldErrorsFromApi(create.error)).length === 0 && (
         <FormError title="Could not queue the timing" message={errorMessage(create.error)} />
       )}
     </form>
   );
+}
+
+const AT_FROM: Record<TimingDefaults['atFrom'], string> = {
+  report: "the report's own times",
+  chords: "the mean mid-time of the event's positive chords",
+  ephemeris: 'the middle of the ephemeris span',
+};
+
+/** Says where the prefilled speed and distance come from, so nobody takes them for measured values. */
+function DefaultsNote({ defaults, error }: { defaults: TimingDefaults | undefined; error: Error | null }) {
+  if (defaults !== undefined)
+    return (
+      <p>
+        Speed and distance from the event&apos;s geometry at {defaults.atUtc.slice(11, 19)} UTC (
+        {AT_FROM[defaults.atFrom]})
+        {defaults.exposureSeconds === null
+          ? '; the station has no recorded exposure'
+          : ', exposure from the station'}
+        . Check them before timing.
+      </p>
+    );
+  if (error !== null)
+    return <p>Speed and distance could not be taken from the event: {errorMessage(error)}</p>;
+  return null;
 }
 
 function TimesTable({ result }: { result: TimingResult }) {
