@@ -21,7 +21,7 @@ describe('a fit submitted while the queue is unreachable', () => {
   });
   afterAll(async () => {
     await worker?.close();
-    delete process.env.FIT_REQUEUE_INTERVAL_MS;
+    delete process.env.REQUEUE_INTERVAL_MS;
     await t.close();
   });
 
@@ -46,7 +46,7 @@ describe('a fit submitted while the queue is unreachable', () => {
     expect((await fitRow(fitId)).state).toBe('queued');
     expect(await queue.getJob(fitId)).toBeUndefined();
 
-    process.env.FIT_REQUEUE_INTERVAL_MS = '300';
+    process.env.REQUEUE_INTERVAL_MS = '300';
     worker = await bootWorker(t.config);
     const fit = await fitWhenFinished(t, fitId);
     expect(fit.state).toBe('solved');

@@ -1,71 +1,36 @@
-import { CreateRequestContext, EntityManager, MikroORM } from '@mikro-orm/mariadb';
+import { MikroORM } from '@mikro-orm/mariadb';
 import { InjectQueue } from '@nestjs/bullmq';
-import { Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
+import { Injectable, Logger } from '@nestjs/common';
 import type { Queue } from 'bullmq';
+import { OrphanSweep } from '../queue/orphan-sweep';
 import { FITS_QUEUE } from '../queue/queue.module';
 import { FitRun } from './entities/fit-run.entity';
 import { enqueueFit, type FitJobData } from './fit-queue';
-import { fitWorkerOptions } from './fit-worker-options';
 
-/** A submit is given this long to queue its own job before a sweep steps in. */
-const SUBMIT_GRACE_MS = 5_000;
-const BATCH = 200;
-
-/**
- * The row is the truth, the queue only a delivery: a fit stored as queued whose job never reached
- * Redis (Redis was down at submit, or the API died between the two) is queued again by the worker.
- * Any number of workers may sweep at once; the fit id as job id keeps it one job.
- */
+/** Queues again the fits stored as queued that have no job in Redis (see OrphanSweep). */
 @Injectable()
-export class FitRequeue implements OnApplicationBootstrap, OnApplicationShutdown {
-  private readonly logger = new Logger(FitRequeue.name);
-  private readonly intervalMs = fitWorkerOptions(process.env).requeueIntervalMs;
-  private timer: NodeJS.Timeout | undefined;
-  private running = false;
+export class FitRequeue extends OrphanSweep {
+  protected readonly logger = new Logger(FitRequeue.name);
 
   constructor(
-    // CreateRequestContext looks for a property named `orm`.
     private readonly orm: MikroORM,
-    private readonly em: EntityManager,
-    @InjectQueue(FITS_QUEUE) private readonly queue: Queue<FitJobData>,
-  ) {}
-
-  onApplicationBootstrap(): void {
-    const tick = () => {
-      if (this.running) return;
-      this.running = true;
-      this.sweep()
-        .catch((error: unknown) =>
-          this.logger.warn(
-            `re-queue sweep failed: ${error instanceof Error ? error.message : String(error)}`,
-          ),
-        )
-        .finally(() => (this.running = false));
-    };
-    tick();
-    this.timer = setInterval(tick, this.intervalMs);
+    @InjectQueue(FITS_QUEUE) protected readonly queue: Queue<FitJobData>,
+  ) {
+    super();
   }
 
-  onApplicationShutdown(): void {
-    if (this.timer) clearInterval(this.timer);
+  protected async queuedIds(before: Date, limit: number): Promise<string[]> {
+    const rows = await this.orm.em
+      .fork()
+      .find(
+        FitRun,
+        { state: 'queued', createdAt: { $lt: before } },
+        { fields: ['id'], orderBy: { createdAt: 'asc' }, limit },
+      );
+    return rows.map((r) => r.id);
   }
 
-  /** Returns the ids it queued again. */
-  @CreateRequestContext()
-  async sweep(): Promise<string[]> {
-    const stale = await this.em.find(
-      FitRun,
-      { state: 'queued', createdAt: { $lt: new Date(Date.now() - SUBMIT_GRACE_MS) } },
-      { fields: ['id'], orderBy: { createdAt: 'asc' }, limit: BATCH },
-    );
-    const requeued: string[] = [];
-    for (const fit of stale) {
-      if (await this.queue.getJob(fit.id)) continue;
-      await enqueueFit(this.queue, fit.id);
-      requeued.push(fit.id);
-    }
-    if (requeued.length > 0)
-      this.logger.warn(`queued again ${requeued.length} fit(s) that had no job: ${requeued.join(', ')}`);
-    return requeued;
+  protected enqueue(id: string): Promise<unknown> {
+    return enqueueFit(this.queue, id);
   }
 }

@@ -10,7 +10,6 @@ const schema = z.object({
   FIT_STALLED_INTERVAL_MS: z.coerce.number().int().min(100).default(30_000),
   FIT_LOCK_DURATION_MS: z.coerce.number().int().min(100).optional(),
   FIT_TEST_DELAY_MS: z.coerce.number().int().min(0).default(0),
-  FIT_REQUEUE_INTERVAL_MS: z.coerce.number().int().min(100).default(30_000),
 });
 
 export interface FitWorkerOptions {
@@ -18,8 +17,6 @@ export interface FitWorkerOptions {
   stalledIntervalMs: number;
   lockDurationMs: number;
   testDelayMs: number;
-  /** How often the worker looks for queued fits without a job (a submit made while Redis was away). */
-  requeueIntervalMs: number;
 }
 
 export function fitWorkerOptions(env: NodeJS.ProcessEnv): FitWorkerOptions {
@@ -36,6 +33,5 @@ export function fitWorkerOptions(env: NodeJS.ProcessEnv): FitWorkerOptions {
     // A lock shorter than the stalled check would let a healthy worker's job be taken from it.
     lockDurationMs: e.FIT_LOCK_DURATION_MS ?? e.FIT_STALLED_INTERVAL_MS,
     testDelayMs: e.FIT_TEST_DELAY_MS,
-    requeueIntervalMs: e.FIT_REQUEUE_INTERVAL_MS,
   };
 }

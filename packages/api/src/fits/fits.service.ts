@@ -11,15 +11,13 @@ import type { AuthUser } from '../auth/auth-user';
 import { ValidationError, NotFoundError } from '../common/domain-errors';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { EventsService } from '../events/events.service';
+import { enqueueOrLeaveToSweep } from '../queue/orphan-sweep';
 import { FITS_QUEUE } from '../queue/queue.module';
 import { User } from '../users/entities/user.entity';
 import { FitRun } from './entities/fit-run.entity';
 import { overlayFitOptions } from './fit-options';
 import { enqueueFit, type FitJobData } from './fit-queue';
 import { fitSummaryView, type FitSummaryView, type FitView, fitView } from './fit-view';
-
-/** How long a submit waits for Redis to take the job before it leaves the job to the sweep. */
-const ENQUEUE_WAIT_MS = 2_000;
 
 /** How often the progress stream looks at the fit row; the row, not this process, is the truth. */
 const STREAM_POLL_MS = 150;
@@ -105,32 +103,8 @@ export class FitsService {
       }
       throw error;
     }
-    await this.enqueueOrLeaveToSweep(fit.id);
+    await enqueueOrLeaveToSweep(enqueueFit(this.queue, fit.id), `fit ${fit.id}`, this.logger);
     return { id: fit.id };
-  }
-
-  /**
-   * The fit is stored; queueing its job is delivery. With Redis away the add would wait for it (the
-   * queue's connection retries forever), so after ENQUEUE_WAIT_MS the submit answers anyway: the row
-   * stays queued and a worker's sweep (FitRequeue) queues it once Redis is back.
-   */
-  private async enqueueOrLeaveToSweep(fitId: string): Promise<void> {
-    const added = enqueueFit(this.queue, fitId);
-    let timer: NodeJS.Timeout | undefined;
-    const gaveUp = new Promise<'timeout'>((resolve) => {
-      timer = setTimeout(() => resolve('timeout'), ENQUEUE_WAIT_MS);
-    });
-    try {
-      if ((await Promise.race([added, gaveUp])) === 'timeout')
-        this.logger.warn(`fit ${fitId} stored; the queue did not answer, a worker's sweep will queue it`);
-    } catch (error) {
-      this.logger.warn(
-        `fit ${fitId} stored; queueing failed (${error instanceof Error ? error.message : String(error)}), a worker's sweep will queue it`,
-      );
-    } finally {
-      clearTimeout(timer);
-      added.catch(() => undefined);
-    }
   }
 
   async find(fitId: string, withSolution = false): Promise<FitRun> {

@@ -1,6 +1,6 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { InjectQueue } from '@nestjs/bullmq';
-import { Injectable } from '@nestjs/common';
+import { Injectable, Logger } from '@nestjs/common';
 import type { TimedMark } from '@limbus/geometry';
 import { parseUtc, secondsBetweenUtc } from '@limbus/schema';
 import type { Queue } from 'bullmq';
@@ -9,6 +9,7 @@ import type { AuthUser } from '../auth/auth-user';
 import { Chord } from '../chords/entities/chord.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
+import { enqueueOrLeaveToSweep } from '../queue/orphan-sweep';
 import { Report } from '../reports/entities/report.entity';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { User } from '../users/entities/user.entity';
@@ -16,7 +17,7 @@ import { LightCurveTiming, type TimingState } from './entities/light-curve-timin
 import { type TimingDefaults, timingDefaultsOf } from './timing-defaults';
 import type { DipsToRingEventsPayload, MarkDipPayload, TimingOptions } from './timing-options';
 import type { TimingView } from './timing-result';
-import { TIMINGS_QUEUE, type TimingJobData } from './timings-queue';
+import { enqueueTiming, TIMINGS_QUEUE, type TimingJobData } from './timings-queue';
 
 export interface TimingSummary {
   id: string;
@@ -57,6 +58,8 @@ function chordMark(m: TimedMark): TimedMark {
 
 @Injectable()
 export class TimingsService {
+  private readonly logger = new Logger(TimingsService.name);
+
   constructor(
     private readonly em: EntityManager,
     private readonly audit: AuditService,
@@ -127,7 +130,7 @@ export class TimingsService {
     });
     await this.em.persist(timing).flush();
     // Enqueued after the row is committed, so the worker always finds it.
-    await this.queue.add('time', { timingId: timing.id }, { jobId: timing.id, removeOnComplete: 1000 });
+    await enqueueOrLeaveToSweep(enqueueTiming(this.queue, timing.id), `timing ${timing.id}`, this.logger);
     return summary(timing);
   }
 

@@ -1,0 +1,35 @@
+import { MikroORM } from '@mikro-orm/mariadb';
+import { InjectQueue } from '@nestjs/bullmq';
+import { Injectable, Logger } from '@nestjs/common';
+import type { Queue } from 'bullmq';
+import { OrphanSweep } from '../queue/orphan-sweep';
+import { LightCurveTiming } from './entities/light-curve-timing.entity';
+import { enqueueTiming, TIMINGS_QUEUE, type TimingJobData } from './timings-queue';
+
+/** Queues again the timings stored as queued that have no job in Redis (see OrphanSweep). */
+@Injectable()
+export class TimingRequeue extends OrphanSweep {
+  protected readonly logger = new Logger(TimingRequeue.name);
+
+  constructor(
+    private readonly orm: MikroORM,
+    @InjectQueue(TIMINGS_QUEUE) protected readonly queue: Queue<TimingJobData>,
+  ) {
+    super();
+  }
+
+  protected async queuedIds(before: Date, limit: number): Promise<string[]> {
+    const rows = await this.orm.em
+      .fork()
+      .find(
+        LightCurveTiming,
+        { state: 'queued', createdAt: { $lt: before } },
+        { fields: ['id'], orderBy: { createdAt: 'asc' }, limit },
+      );
+    return rows.map((r) => r.id);
+  }
+
+  protected enqueue(id: string): Promise<unknown> {
+    return enqueueTiming(this.queue, id);
+  }
+}
