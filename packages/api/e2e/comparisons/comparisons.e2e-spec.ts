@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { INestApplicationContext } from '@nestjs/common';
+import { Queue } from 'bullmq';
 import type { Solution } from '@limbus/geometry';
 import { PDFDocument } from 'pdf-lib';
 import type request from 'supertest';
@@ -9,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ComparisonView } from '../../src/comparisons/comparison-view';
 import type { JointPoleView } from '../../src/comparisons/comparisons.service';
 import { jointPole } from '../../src/comparisons/joint-pole';
+import { JOINT_QUEUE } from '../../src/comparisons/joint-queue';
 import { FitRun } from '../../src/fits/entities/fit-run.entity';
 import {
   type Actor,
@@ -197,6 +199,26 @@ describe('comparison across events and the joint ring pole job', () => {
     await t.get(`/api/joint-poles/${id}`).set(w.auth('outsider')).expect(404);
     await t.get(`/api/joint-poles/00000000-0000-0000-0000-000000000000`).set(w.auth('observer')).expect(404);
   });
+  it('POST /api/teams/:teamId/joint-poles answers 503 at once, queueing nothing, when Redis does not answer', async () => {
+    // Every joint queue instance, whichever module holds it, stops answering (as with Redis away).
+    const add = Queue.prototype.add;
+    Queue.prototype.add = function (this: Queue, ...args: Parameters<Queue['add']>) {
+      return this.name === JOINT_QUEUE ? new Promise(() => undefined) : add.apply(this, args);
+    } as Queue['add'];
+    try {
+      const started = Date.now();
+      const response = await t
+        .post(`/api/teams/${w.team.id}/joint-poles`)
+        .set(w.auth('modeller'))
+        .send({ fitIds })
+        .expect(503);
+      expect(Date.now() - started).toBeLessThan(10_000);
+      expect((response.body as { message: string }).message).toContain('nothing was queued');
+    } finally {
+      Queue.prototype.add = add;
+    }
+  });
+
   it('GET /api/teams/:teamId/comparison/figure draws the chosen fits and a solved joint pole as SVG, PNG and PDF', async () => {
     const view = await joint({ fitIds });
     const base = `/api/teams/${w.team.id}/comparison/figure?fits=all&jointId=${view.id}`;

@@ -5,7 +5,7 @@ import { Injectable } from '@nestjs/common';
 import { validateEventFile } from '@limbus/schema';
 import type { Queue } from 'bullmq';
 import type { AuthUser } from '../auth/auth-user';
-import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
+import { ConflictError, NotFoundError, UnavailableError, ValidationError } from '../common/domain-errors';
 import { comparisonCaptionDraft, renderComparisonFigureSvg } from '../exports/comparison-figure-svg';
 import type { ExportFile } from '../exports/exports.service';
 import { type Provenance, provenanceOf } from '../exports/provenance';
@@ -15,6 +15,7 @@ import { Team } from '../teams/entities/team.entity';
 import type { ComparisonFigureQuery, ComparisonQuery, JointPolePayload } from './comparison-schemas';
 import { comparisonFit, type ComparisonView } from './comparison-view';
 import type { JointPoleDocument } from './joint-pole';
+import { ENQUEUE_WAIT_MS, settlesWithin } from '../queue/bounded-enqueue';
 import { JOINT_QUEUE, JOINT_RESULT_KEEP_SECONDS, type JointJobData } from './joint-queue';
 import type { JointJobResult } from './joint-poles.processor';
 
@@ -128,7 +129,7 @@ export class ComparisonsService {
       issues.push({ path: 'fitIds', message: 'a fit is listed twice' });
     if (issues.length > 0) throw new ValidationError(issues);
     const id = randomUUID();
-    await this.queue.add(
+    const added = this.queue.add(
       'joint',
       { teamId, fitIds: body.fitIds, ring: body.ring ?? null, requestedBy: user.id },
       {
@@ -139,6 +140,22 @@ export class ComparisonsService {
         removeOnFail: { age: JOINT_RESULT_KEEP_SECONDS },
       },
     );
+    // Nothing but the job records a joint fit, so without Redis there is nothing to keep: say so at once.
+    // Should Redis take the job later after all, it is removed, as the caller was told.
+    let outcome;
+    try {
+      outcome = await settlesWithin(added, ENQUEUE_WAIT_MS);
+    } catch (error) {
+      throw new UnavailableError(
+        `The job queue refused the joint fit (${error instanceof Error ? error.message : String(error)}); nothing was queued, try again shortly`,
+      );
+    }
+    if (outcome === 'timeout') {
+      added.then((job) => job.remove()).catch(() => undefined);
+      throw new UnavailableError(
+        'The job queue (Redis) does not answer; nothing was queued, try again shortly',
+      );
+    }
     return { id };
   }
 

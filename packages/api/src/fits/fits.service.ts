@@ -11,7 +11,7 @@ import type { AuthUser } from '../auth/auth-user';
 import { ValidationError, NotFoundError } from '../common/domain-errors';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { EventsService } from '../events/events.service';
-import { enqueueOrLeaveToSweep } from '../queue/orphan-sweep';
+import { enqueueOrLeaveToSweep } from '../queue/bounded-enqueue';
 import { FITS_QUEUE } from '../queue/queue.module';
 import { User } from '../users/entities/user.entity';
 import { FitRun } from './entities/fit-run.entity';

@@ -66,33 +66,3 @@ export abstract class OrphanSweep implements OnApplicationBootstrap, OnApplicati
     return requeued;
   }
 }
-
-/** How long a submit waits for Redis to take a job before it leaves the job to the worker's sweep. */
-const ENQUEUE_WAIT_MS = 2_000;
-
-/**
- * For a submit whose row is already stored: waits up to ENQUEUE_WAIT_MS for the queue to take the job
- * (with Redis away the add would wait for it, the connection retrying forever), then answers anyway and
- * says so in the log; the row stays queued and OrphanSweep queues it once Redis is back.
- */
-export async function enqueueOrLeaveToSweep(
-  added: Promise<unknown>,
-  what: string,
-  logger: Logger,
-): Promise<void> {
-  let timer: NodeJS.Timeout | undefined;
-  const gaveUp = new Promise<'timeout'>((resolve) => {
-    timer = setTimeout(() => resolve('timeout'), ENQUEUE_WAIT_MS);
-  });
-  try {
-    if ((await Promise.race([added, gaveUp])) === 'timeout')
-      logger.warn(`${what} stored; the queue did not answer, a worker's sweep will queue it`);
-  } catch (error) {
-    logger.warn(
-      `${what} stored; queueing failed (${error instanceof Error ? error.message : String(error)}), a worker's sweep will queue it`,
-    );
-  } finally {
-    clearTimeout(timer);
-    added.catch(() => undefined);
-  }
-}

@@ -9,7 +9,7 @@ import type { AuthUser } from '../auth/auth-user';
 import { Chord } from '../chords/entities/chord.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
-import { enqueueOrLeaveToSweep } from '../queue/orphan-sweep';
+import { enqueueOrLeaveToSweep } from '../queue/bounded-enqueue';
 import { Report } from '../reports/entities/report.entity';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { User } from '../users/entities/user.entity';
