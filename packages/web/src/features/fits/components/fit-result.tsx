@@ -93,9 +93,12 @@ export function FitResult({
               ))}
             </TableBody>
           </Table>
-          <Body1 as="p">
-            χ² = {limb.chi2.toFixed(2)} for {limb.dof} degrees of freedom
-            {limb.dof > 0 ? ` (χ²/dof = ${(limb.chi2 / limb.dof).toFixed(2)})` : ''}.{' '}
+          {/* A div, not a p: the badge is a div, which a paragraph may not hold. */}
+          <div>
+            <Body1>
+              χ² = {limb.chi2.toFixed(2)} for {limb.dof} degrees of freedom
+              {limb.dof > 0 ? ` (χ²/dof = ${(limb.chi2 / limb.dof).toFixed(2)})` : ''}.
+            </Body1>{' '}
             <Badge
               appearance={limb.negativeChordsClear ? 'outline' : 'filled'}
               color={limb.negativeChordsClear ? 'success' : 'danger'}
@@ -104,7 +107,7 @@ export function FitResult({
                 ? 'every negative chord is clear of the limb'
                 : 'a negative chord crosses the limb'}
             </Badge>
-          </Body1>
+          </div>
         </>
       )}
       {solution.rings.map((ring) => (
