@@ -149,11 +149,18 @@ export async function apiRequest<T = void>(path: string, options: RequestOptions
   return parsed.data;
 }
 
-/** A binary download (a figure, a table) with the same token and refresh as apiRequest. */
-export async function apiBlob(path: string, signal?: AbortSignal): Promise<Blob> {
-  let response = await send(path, 'GET', undefined, signal);
+/**
+ * A binary download (a figure, a table) with the same token and refresh as apiRequest; a POST when the
+ * file is made from a body (the shape table).
+ */
+export async function apiBlob(
+  path: string,
+  options: { method?: 'GET' | 'POST'; body?: unknown; signal?: AbortSignal } = {},
+): Promise<Blob> {
+  const method = options.method ?? 'GET';
+  let response = await send(path, method, options.body, options.signal);
   if (response.status === 401 && (await refreshAccessToken()))
-    response = await send(path, 'GET', undefined, signal);
+    response = await send(path, method, options.body, options.signal);
   if (!response.ok) throw await toApiError(response);
   return response.blob();
 }

@@ -1,6 +1,4 @@
-import { useMutation } from '@tanstack/react-query';
 import { z } from 'zod';
-import { apiBlob } from '@/lib/api-client';
 
 export const comparisonFigureInputSchema = z.object({
   format: z.enum(['svg', 'pdf', 'png']),
@@ -21,22 +19,4 @@ export function comparisonFigureUrl(teamId: string, input: ComparisonFigureInput
 
 export function comparisonFigureFileName(input: ComparisonFigureInput): string {
   return `limbus-comparison-${input.widthMm}mm${input.format === 'png' ? `-${input.dpi}dpi` : ''}.${input.format}`;
-}
-
-/** Fetches the server-rendered figure (the very file the API serves) and hands it to the browser as a download. */
-export function useDownloadComparisonFigure(teamId: string) {
-  return useMutation({
-    mutationFn: async (input: ComparisonFigureInput) => {
-      const blob = await apiBlob(comparisonFigureUrl(teamId, input));
-      const url = URL.createObjectURL(blob);
-      const a = document.createElement('a');
-      a.href = url;
-      a.download = comparisonFigureFileName(input);
-      document.body.append(a);
-      a.click();
-      a.remove();
-      // Revoked on the next turn: the click has started the download by then.
-      setTimeout(() => URL.revokeObjectURL(url), 0);
-    },
-  });
 }

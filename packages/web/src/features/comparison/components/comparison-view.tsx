@@ -13,12 +13,13 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { useState } from 'react';
+import { comparisonFigureFileName, comparisonFigureUrl } from '../api/download-comparison-figure';
 import { type FitSelection, useComparison } from '../api/get-comparison';
 import { type JointPoleDocument, useJointPole, useSubmitJointPole } from '../api/joint-pole';
 import { EllipseOverlay } from './ellipse-overlay';
-import { FigureDownload } from './figure-download';
 import { ParameterTable } from './parameter-table';
 import { PoleChart } from './pole-chart';
+import { FigureDownload } from '@/components/figure-download';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { errorMessage } from '@/components/form-errors';
 
@@ -178,9 +179,11 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
             </div>
           ) : null}
           <FigureDownload
-            teamId={teamId}
-            selection={selection}
-            jointId={joint === null ? null : (job?.id ?? null)}
+            buttonLabel="Download comparison figure"
+            figure={(spec) => {
+              const input = { ...spec, selection, jointId: joint === null ? null : (job?.id ?? null) };
+              return { url: comparisonFigureUrl(teamId, input), fileName: comparisonFigureFileName(input) };
+            }}
           />
         </>
       )}

@@ -7,14 +7,22 @@ import {
   Select,
   tokens,
 } from '@fluentui/react-components';
+import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
-import { type ComparisonFigureInput, useDownloadComparisonFigure } from '../api/download-comparison-figure';
-import type { FitSelection } from '../api/get-comparison';
-import { errorMessage } from '@/components/form-errors';
+import { errorMessage } from './form-errors';
+import { apiBlob } from '@/lib/api-client';
+import { saveFile } from '@/lib/save-file';
 
 const useStyles = makeStyles({
   row: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'flex-end' },
 });
+
+/** What the server's figure routes take: format, width and (PNG only) resolution. */
+export interface FigureSpec {
+  format: 'svg' | 'pdf' | 'png';
+  widthMm: number;
+  dpi: 300 | 600;
+}
 
 const FORMATS = {
   svg: { label: 'SVG', format: 'svg', dpi: 300 },
@@ -25,25 +33,27 @@ const FORMATS = {
 type FormatKey = keyof typeof FORMATS;
 
 export interface FigureDownloadProps {
-  teamId: string;
-  selection: FitSelection;
-  jointId: string | null;
+  /** The button's text, which also names what is drawn ("Download comparison figure"). */
+  buttonLabel: string;
+  /** Where the server renders the figure for these options, and the name to save it under. */
+  figure: (spec: FigureSpec) => { url: string; fileName: string };
 }
 
-/** Paper figure of the comparison, rendered by the server: single column 88 mm or double 180 mm. */
-export function FigureDownload({ teamId, selection, jointId }: FigureDownloadProps) {
+/**
+ * A paper figure rendered by the server, single column 88 mm or double 180 mm: the downloaded file is the
+ * very file the API serves for the same options.
+ */
+export function FigureDownload({ buttonLabel, figure }: FigureDownloadProps) {
   const styles = useStyles();
   const [formatKey, setFormatKey] = useState<FormatKey>('pdf');
   const [widthMm, setWidthMm] = useState(180);
-  const download = useDownloadComparisonFigure(teamId);
+  const download = useMutation({
+    mutationFn: async (spec: FigureSpec) => {
+      const { url, fileName } = figure(spec);
+      saveFile(fileName, await apiBlob(url));
+    },
+  });
   const chosen = FORMATS[formatKey];
-  const input: ComparisonFigureInput = {
-    format: chosen.format,
-    dpi: chosen.dpi,
-    widthMm,
-    selection,
-    jointId,
-  };
   return (
     <div>
       <div className={styles.row}>
@@ -62,8 +72,11 @@ export function FigureDownload({ teamId, selection, jointId }: FigureDownloadPro
             <option value="180">Double column, 180 mm</option>
           </Select>
         </Field>
-        <Button onClick={() => download.mutate(input)} disabled={download.isPending}>
-          Download comparison figure
+        <Button
+          onClick={() => download.mutate({ format: chosen.format, dpi: chosen.dpi, widthMm })}
+          disabled={download.isPending}
+        >
+          {buttonLabel}
         </Button>
       </div>
       {download.isError ? (
