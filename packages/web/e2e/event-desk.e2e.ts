@@ -181,6 +181,32 @@ describe('event desk in the browser', () => {
     expect(unexpectedFailures(s.failedResponses, RELOAD)).toEqual([]);
   }, 90_000);
 
+  it("an author downloads the approved fit's figure and table, the very files the API serves", async () => {
+    expect(fitId).not.toBe('');
+    const s = await openDesk('modeller@example.org', `?section=figures&fit=${fitId}`);
+    const { page } = s;
+    const api = await apiSignIn('modeller@example.org');
+    const [figure, served] = await Promise.all([
+      page.waitForEvent('download'),
+      page.waitForResponse((r) => r.url().includes(`/api/fits/${fitId}/figure?`)),
+      page.getByRole('button', { name: 'Download fit figure' }).click(),
+    ]);
+    expect(figure.suggestedFilename()).toMatch(/-sky-plane-180mm\.pdf$/);
+    const downloaded = readFileSync(await figure.path());
+    expect(downloaded.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const direct = await fetch(served.url(), { headers: { Authorization: `Bearer ${api.token}` } });
+    expect(Buffer.from(await direct.arrayBuffer()).equals(downloaded)).toBe(true);
+    const [table] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Download fit table as LaTeX' }).click(),
+    ]);
+    expect(table.suggestedFilename()).toMatch(/-parameters\.tex$/);
+    expect(readFileSync(await table.path(), 'utf8')).toContain(fitId);
+    await s.screenshot('event-desk-figures');
+    expect(s.consoleErrors).toEqual([]);
+    expect(unexpectedFailures(s.failedResponses, RELOAD)).toEqual([]);
+  }, 90_000);
+
   it('an observer submits a report for their own station and a coordinator accepts it', async () => {
     const observer = await openDesk('observer@example.org', '?section=stations');
     await observer.page.getByRole('button', { name: 'New report' }).click();

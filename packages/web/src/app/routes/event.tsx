@@ -248,7 +248,11 @@ export function EventRoute() {
           )
         ) : null}
         {section === 'figures' ? (
-          <FiguresPanel solution={solution} fileStem={e.title.replace(/[^\w-]+/g, '-')} />
+          <FiguresPanel
+            fitId={solution === null ? null : (fit.data?.id ?? null)}
+            solution={solution}
+            fileStem={e.title.replace(/[^\w-]+/g, '-')}
+          />
         ) : null}
       </div>
     </div>

@@ -1,46 +1,57 @@
-import { Body1, Button, makeStyles, tokens } from '@fluentui/react-components';
+import { Body1, Button, makeStyles, Subtitle2, tokens } from '@fluentui/react-components';
 import type { Solution } from '@limbus/geometry';
+import { fetchFitTable, fitFigureFileName, fitFigureUrl } from '../api/fit-exports';
+import { FigureDownload } from '@/components/figure-download';
+import { TableDownload } from '@/components/table-download';
+import { saveFile } from '@/lib/save-file';
 
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, alignItems: 'start' },
 });
 
-function download(name: string, text: string, type: string) {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const link = document.createElement('a');
-  link.href = url;
-  link.download = name;
-  link.click();
-  URL.revokeObjectURL(url);
+export interface FiguresPanelProps {
+  /** The fit shown in the desk, when it is solved; null otherwise. */
+  fitId: string | null;
+  solution: Solution | null;
+  fileStem: string;
 }
 
 /**
- * What can leave the desk today: the shown fit's solution file, byte for byte as stored. Publication
- * figures (vector plots, tables) belong to the export work and are not offered here yet.
+ * What leaves the desk for a paper: the shown fit's sky-plane figure and parameter table as the server
+ * renders them (each with its provenance: fit id, input SHA-256, engine version, seed, approval state), and
+ * the solution file byte for byte as stored.
  */
-export function FiguresPanel({ solution, fileStem }: { solution: Solution | null; fileStem: string }) {
+export function FiguresPanel({ fitId, solution, fileStem }: FiguresPanelProps) {
   const styles = useStyles();
+  if (fitId === null || solution === null)
+    return (
+      <section className={styles.panel} aria-label="Figures">
+        <Body1 as="p">Open a solved fit to download its figure, its table and its solution.</Body1>
+      </section>
+    );
   return (
     <section className={styles.panel} aria-label="Figures">
-      <Body1 as="p">
-        Publication figures are not available in the desk yet; the sky-plane and residual plots can be viewed
-        in their own sections.
-      </Body1>
-      {solution === null ? (
-        <Body1 as="p">Open a solved fit to download its solution.</Body1>
-      ) : (
-        <Button
-          onClick={() =>
-            download(
-              `${fileStem}.solution.json`,
-              `${JSON.stringify(solution, null, 2)}\n`,
-              'application/json',
-            )
-          }
-        >
-          Download solution (limbus-solution/1 JSON)
-        </Button>
-      )}
+      <Subtitle2 as="h3">Sky-plane figure</Subtitle2>
+      <FigureDownload
+        buttonLabel="Download fit figure"
+        figure={(spec) => ({ url: fitFigureUrl(fitId, spec), fileName: fitFigureFileName(fileStem, spec) })}
+      />
+      <Subtitle2 as="h3">Parameters</Subtitle2>
+      <TableDownload
+        what="fit table"
+        fetchTable={(format) => fetchFitTable(fitId, format)}
+        fileStem={`${fileStem}-parameters`}
+      />
+      <Button
+        onClick={() =>
+          saveFile(
+            `${fileStem}.solution.json`,
+            new Blob([`${JSON.stringify(solution, null, 2)}\n`], { type: 'application/json' }),
+          )
+        }
+      >
+        Download solution (limbus-solution/1 JSON)
+      </Button>
     </section>
   );
 }

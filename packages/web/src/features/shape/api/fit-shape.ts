@@ -1,6 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { z } from 'zod';
-import { apiRequest } from '@/lib/api-client';
+import type { TableFormat } from '@/components/table-download';
+import { apiBlob, apiRequest } from '@/lib/api-client';
 
 const semiAxesSchema = z.object({ aKm: z.number(), bKm: z.number(), cKm: z.number() });
 const apparentSchema = z.object({
@@ -84,4 +85,12 @@ export function fitShape(teamId: string, input: FitShapeInput): Promise<ShapeVie
 /** Nothing is stored on the server, so there is no query to invalidate: the answer is the mutation's data. */
 export function useFitShape(teamId: string) {
   return useMutation({ mutationFn: (input: FitShapeInput) => fitShape(teamId, input) });
+}
+
+/** The shape result as a table (POST /api/teams/:teamId/shape/table): the fit is re-run from the same input. */
+export function fetchShapeTable(teamId: string, input: FitShapeInput, format: TableFormat): Promise<Blob> {
+  return apiBlob(`/api/teams/${encodeURIComponent(teamId)}/shape/table?format=${format}`, {
+    method: 'POST',
+    body: fitShapeInputSchema.parse(input),
+  });
 }

@@ -133,6 +133,44 @@ describe('ShapePanel', () => {
   );
 
   it(
+    'ShapePanel writes the table of the result on screen, from the input that gave it, not from later edits',
+    { timeout: 20_000 },
+    async () => {
+      const saved: string[] = [];
+      vi.stubGlobal(
+        'URL',
+        Object.assign(URL, { createObjectURL: () => 'blob:test/1', revokeObjectURL: () => undefined }),
+      );
+      const click = vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(function (
+        this: HTMLAnchorElement,
+      ) {
+        saved.push(this.download);
+      });
+      const calls = stubFetch((call) => {
+        if (call.url === '/api/teams/t1/comparison?fits=all') return jsonResponse(200, COMPARISON);
+        if (call.url === '/api/teams/t1/shape' && call.method === 'POST') return jsonResponse(200, VIEW);
+        if (call.url === '/api/teams/t1/shape/table?format=csv' && call.method === 'POST')
+          return new Response('parameter,value,sigma,unit', { status: 200 });
+        return jsonResponse(404, { message: 'no route' });
+      });
+      renderWithProviders(<ShapePanel teamId="t1" />);
+      await fillForm();
+      await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
+      await screen.findByRole('table', { name: 'Semi-axes' });
+      const period = screen.getByRole('textbox', { name: 'Rotation period (h)' });
+      await userEvent.clear(period);
+      await userEvent.type(period, '9');
+      await userEvent.click(screen.getByRole('button', { name: 'Download shape table as CSV' }));
+      await vi.waitFor(() => expect(saved).toEqual(['limbus-shape.csv']));
+      expect(calls.find((c) => c.url.startsWith('/api/teams/t1/shape/table'))?.body).toMatchObject({
+        fitIds: ['a', 'b', 'd'],
+        periodHours: 6.71,
+      });
+      click.mockRestore();
+    },
+  );
+
+  it(
     'ShapePanel shows the equilibrium density only beside its caution, and draws each event against the model',
     { timeout: 20_000 },
     async () => {

@@ -22,12 +22,19 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { useState, type FormEvent } from 'react';
-import { type FitShapeInput, fitShapeInputSchema, type ShapeView, useFitShape } from '../api/fit-shape';
+import {
+  fetchShapeTable,
+  type FitShapeInput,
+  fitShapeInputSchema,
+  type ShapeView,
+  useFitShape,
+} from '../api/fit-shape';
 import { type ShapeFitRow, useShapeFits } from '../api/get-shape-fits';
 import { Silhouettes } from './silhouettes';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
+import { TableDownload, type TableFormat } from '@/components/table-download';
 import { ApiError } from '@/lib/api-client';
 
 const useStyles = makeStyles({
@@ -110,7 +117,15 @@ const pm = (value: number, sigma: number, digits: number) =>
   `${value.toFixed(digits)} ± ${sigma.toFixed(digits)}`;
 const residual = (r: number | null) => (r === null ? '—' : r.toFixed(2));
 
-function Results({ view, fits }: { view: ShapeView; fits: ShapeFitRow[] }) {
+function Results({
+  view,
+  fits,
+  fetchTable,
+}: {
+  view: ShapeView;
+  fits: ShapeFitRow[];
+  fetchTable: (format: TableFormat) => Promise<Blob>;
+}) {
   const styles = useStyles();
   const { result } = view;
   const u = result.uncertainty;
@@ -208,6 +223,7 @@ function Results({ view, fits }: { view: ShapeView; fits: ShapeFitRow[] }) {
         <Caption1 key={w}>{w}</Caption1>
       ))}
       <Silhouettes pairs={pairs} />
+      <TableDownload what="shape table" fetchTable={fetchTable} fileStem="limbus-shape" />
     </section>
   );
 }
@@ -341,7 +357,14 @@ export function ShapePanel({ teamId }: { teamId: string }) {
           <FormError title="The shape fit failed" message={errorMessage(fit.error)} />
         )}
       </form>
-      {fit.data !== undefined && <Results view={fit.data} fits={rows} />}
+      {fit.data !== undefined && (
+        <Results
+          view={fit.data}
+          fits={rows}
+          // The table is written from the input that gave the result on screen, not from the form's edits since.
+          fetchTable={(format) => fetchShapeTable(teamId, fit.variables, format)}
+        />
+      )}
     </section>
   );
 }
