@@ -1,14 +1,7 @@
-import {
-  Button,
-  Field,
-  makeStyles,
-  MessageBar,
-  MessageBarBody,
-  Select,
-  tokens,
-} from '@fluentui/react-components';
+import { Button, Field, makeStyles, Select, tokens } from '@fluentui/react-components';
 import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
+import { FormError } from './form-error';
 import { errorMessage } from './form-errors';
 import { apiBlob } from '@/lib/api-client';
 import { saveFile } from '@/lib/save-file';
@@ -80,9 +73,7 @@ export function FigureDownload({ buttonLabel, figure }: FigureDownloadProps) {
         </Button>
       </div>
       {download.isError ? (
-        <MessageBar intent="error" role="alert">
-          <MessageBarBody>{errorMessage(download.error)}</MessageBarBody>
-        </MessageBar>
+        <FormError title="The figure could not be downloaded" message={errorMessage(download.error)} />
       ) : null}
     </div>
   );

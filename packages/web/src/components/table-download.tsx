@@ -1,5 +1,6 @@
-import { Button, makeStyles, MessageBar, MessageBarBody, tokens } from '@fluentui/react-components';
+import { Button, makeStyles, tokens } from '@fluentui/react-components';
 import { useMutation } from '@tanstack/react-query';
+import { FormError } from './form-error';
 import { errorMessage } from './form-errors';
 import { saveFile } from '@/lib/save-file';
 
@@ -45,9 +46,7 @@ export function TableDownload({ what, fetchTable, fileStem }: TableDownloadProps
         ))}
       </div>
       {download.isError ? (
-        <MessageBar intent="error" role="alert">
-          <MessageBarBody>{errorMessage(download.error)}</MessageBarBody>
-        </MessageBar>
+        <FormError title="The table could not be downloaded" message={errorMessage(download.error)} />
       ) : null}
     </div>
   );
