@@ -117,6 +117,33 @@ export async function apiToken(email: string, password: string): Promise<string>
   return body.accessToken;
 }
 
+export interface ApiSession {
+  token: string;
+  /** One API call with this session's token: JSON in and out, or a FormData upload; throws on non-2xx. */
+  call<T>(method: string, path: string, body?: unknown): Promise<T>;
+}
+
+/** Signs in over HTTP and returns a session for setting up a test through the API. */
+export async function apiSession(email: string, password: string): Promise<ApiSession> {
+  const token = await apiToken(email, password);
+  return {
+    token,
+    async call<T>(method: string, path: string, body?: unknown): Promise<T> {
+      const isForm = body instanceof FormData;
+      const res = await fetch(`${baseUrl()}${path}`, {
+        method,
+        headers: {
+          Authorization: `Bearer ${token}`,
+          ...(body === undefined || isForm ? {} : { 'Content-Type': 'application/json' }),
+        },
+        body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
+      });
+      if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`);
+      return (res.status === 204 ? undefined : await res.json()) as T;
+    },
+  };
+}
+
 export async function apiJson<T>(
   token: string,
   path: string,

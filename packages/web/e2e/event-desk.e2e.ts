@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, openBrowser, signIn, unexpectedFailures, type BrowserSession } from './browser';
+import { apiSession, baseUrl, openBrowser, signIn, unexpectedFailures, type BrowserSession } from './browser';
 
 // The event desk against the real API and worker. The flows share one event: the demo event when the
 // seed has one, else the invented example event file imported by the coordinator.
@@ -12,37 +12,6 @@ const EXAMPLE_EVENT = resolve(
   '../../../docs/examples/event-example.json',
 );
 const OBSERVER_STATION = `e2e-observer-${Date.now().toString(36)}`;
-
-interface ApiSession {
-  token: string;
-  call<T>(method: string, path: string, body?: unknown): Promise<T>;
-}
-
-async function apiSignIn(email: string): Promise<ApiSession> {
-  const response = await fetch(`${baseUrl()}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email, password: PASSWORD }),
-  });
-  if (!response.ok) throw new Error(`sign-in of ${email} failed: ${response.status}`);
-  const { accessToken } = (await response.json()) as { accessToken: string };
-  return {
-    token: accessToken,
-    async call<T>(method: string, path: string, body?: unknown): Promise<T> {
-      const isForm = body instanceof FormData;
-      const res = await fetch(`${baseUrl()}${path}`, {
-        method,
-        headers: {
-          Authorization: `Bearer ${accessToken}`,
-          ...(body === undefined || isForm ? {} : { 'Content-Type': 'application/json' }),
-        },
-        body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
-      });
-      if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`);
-      return (res.status === 204 ? undefined : await res.json()) as T;
-    },
-  };
-}
 
 // Opening a desk URL directly reloads the app, which keeps its access token only in memory: the first
 // /api/me answers 401 and the refresh cookie restores the session. That 401 is the design, not a fault.
@@ -59,7 +28,7 @@ let fitId = '';
 let session: BrowserSession | null = null;
 
 beforeAll(async () => {
-  const coordinator = await apiSignIn('coordinator@example.org');
+  const coordinator = await apiSession('coordinator@example.org', PASSWORD);
   const me = await coordinator.call<{ teams: Array<{ id: string }> }>('GET', '/api/me');
   const teamId = me.teams[0]?.id ?? '';
   const events = await coordinator.call<Array<{ id: string; teamId: string }>>('GET', '/api/events');
@@ -185,7 +154,7 @@ describe('event desk in the browser', () => {
     expect(fitId).not.toBe('');
     const s = await openDesk('modeller@example.org', `?section=figures&fit=${fitId}`);
     const { page } = s;
-    const api = await apiSignIn('modeller@example.org');
+    const api = await apiSession('modeller@example.org', PASSWORD);
     const [figure, served] = await Promise.all([
       page.waitForEvent('download'),
       page.waitForResponse((r) => r.url().includes(`/api/fits/${fitId}/figure?`)),

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, openBrowser, signIn, unexpectedFailures, type BrowserSession } from './browser';
+import { apiSession, baseUrl, openBrowser, signIn, unexpectedFailures, type BrowserSession } from './browser';
 
 // The light-curve view against the real API and worker, on an event of its own (the invented example
 // event, imported here and deleted at the end) so that the chord it accepts touches no other test's event.
@@ -30,26 +30,7 @@ function squareWellCsv(): string {
 }
 
 async function api(email: string) {
-  const login = await fetch(`${baseUrl()}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email, password: PASSWORD }),
-  });
-  if (!login.ok) throw new Error(`sign-in of ${email} failed: ${login.status}`);
-  const { accessToken } = (await login.json()) as { accessToken: string };
-  return async function call<T>(method: string, path: string, body?: unknown): Promise<T> {
-    const isForm = body instanceof FormData;
-    const res = await fetch(`${baseUrl()}${path}`, {
-      method,
-      headers: {
-        Authorization: `Bearer ${accessToken}`,
-        ...(body === undefined || isForm ? {} : { 'Content-Type': 'application/json' }),
-      },
-      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
-    });
-    if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`);
-    return (res.status === 204 ? undefined : await res.json()) as T;
-  };
+  return (await apiSession(email, PASSWORD)).call;
 }
 
 let eventId = '';
