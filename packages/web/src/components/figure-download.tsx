@@ -17,6 +17,16 @@ export interface FigureSpec {
   dpi: 300 | 600;
 }
 
+/**
+ * The query string of a figure route for these options: format, width, the route's own parameters, and
+ * the dpi for PNG only.
+ */
+export function figureQuery(spec: FigureSpec, own: Record<string, string> = {}): URLSearchParams {
+  const q = new URLSearchParams({ format: spec.format, widthMm: String(spec.widthMm), ...own });
+  if (spec.format === 'png') q.set('dpi', String(spec.dpi));
+  return q;
+}
+
 const FORMATS = {
   svg: { label: 'SVG', format: 'svg', dpi: 300 },
   pdf: { label: 'PDF', format: 'pdf', dpi: 300 },

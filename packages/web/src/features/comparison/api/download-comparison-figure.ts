@@ -1,3 +1,4 @@
+import { figureQuery } from '@/components/figure-download';
 import { z } from 'zod';
 
 export const comparisonFigureInputSchema = z.object({
@@ -11,8 +12,7 @@ export type ComparisonFigureInput = z.infer<typeof comparisonFigureInputSchema>;
 
 export function comparisonFigureUrl(teamId: string, input: ComparisonFigureInput): string {
   const v = comparisonFigureInputSchema.parse(input);
-  const q = new URLSearchParams({ format: v.format, widthMm: String(v.widthMm), fits: v.selection });
-  if (v.format === 'png') q.set('dpi', String(v.dpi));
+  const q = figureQuery(v, { fits: v.selection });
   if (v.jointId !== null) q.set('jointId', v.jointId);
   return `/api/teams/${encodeURIComponent(teamId)}/comparison/figure?${q.toString()}`;
 }

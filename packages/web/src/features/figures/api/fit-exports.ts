@@ -1,12 +1,10 @@
-import type { FigureSpec } from '@/components/figure-download';
+import { type FigureSpec, figureQuery } from '@/components/figure-download';
 import type { TableFormat } from '@/components/table-download';
 import { apiBlob } from '@/lib/api-client';
 
 /** The server's sky-plane figure of one fit (GET /api/fits/:fitId/figure); dpi only for PNG. */
 export function fitFigureUrl(fitId: string, spec: FigureSpec): string {
-  const q = new URLSearchParams({ format: spec.format, widthMm: String(spec.widthMm) });
-  if (spec.format === 'png') q.set('dpi', String(spec.dpi));
-  return `/api/fits/${encodeURIComponent(fitId)}/figure?${q.toString()}`;
+  return `/api/fits/${encodeURIComponent(fitId)}/figure?${figureQuery(spec).toString()}`;
 }
 
 export function fitFigureFileName(fileStem: string, spec: FigureSpec): string {
