@@ -3,7 +3,16 @@ import globals from 'globals';
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['**/dist/**', '**/node_modules/**', '.data/**', '.test-data/**', 'artifacts/**'] },
+  {
+    ignores: [
+      '**/dist/**',
+      '**/node_modules/**',
+      '.data/**',
+      '.test-data/**',
+      'artifacts/**',
+      '.dev-data/**',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
