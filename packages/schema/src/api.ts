@@ -4,8 +4,12 @@
 
 import { z } from 'zod';
 
+import { bodyNameSchema, createBodyPayloadSchema } from './bodies.js';
 import { eventFileSchema } from './event-file.js';
 import { parseUtcTime } from './iso-time.js';
+import { messageText } from './team.js';
+import { lineText, noteText, TEXT_LIMITS } from './text.js';
+import { REPORT_RESULT_VALUES } from './views.js';
 
 const shape = eventFileSchema.shape;
 
@@ -21,21 +25,36 @@ const timedMark = z.strictObject({
 const orderOf = (time: string | undefined | null): number | undefined =>
   time ? parseUtcTime(time)?.orderSeconds : undefined;
 
-const text = (max: number) => z.string().trim().max(max, `at most ${max} characters`);
+const id = z.string().min(1).max(36);
 
-export const createEventPayloadSchema = z.strictObject({
-  teamId: z.string().min(1).optional(),
-  title: shape.title,
-  star: shape.star,
-  ephemeris: shape.ephemeris,
-  earthRotation: shape.earthRotation,
-  fitDefaults: shape.fit,
-});
+/**
+ * The body comes as `bodyId` (one of the team's) or `newBody` (made with the event); when both are left
+ * out the team's only body is taken, and a team with several bodies is asked to choose (400 `bodyId`).
+ * The event time defaults to the middle of the ephemeris, in UTC.
+ */
+export const createEventPayloadSchema = z
+  .strictObject({
+    teamId: id.optional(),
+    bodyId: id.optional(),
+    newBody: createBodyPayloadSchema.optional(),
+    title: shape.title,
+    eventTimeUtc: utcTime.optional(),
+    star: shape.star,
+    ephemeris: shape.ephemeris,
+    earthRotation: shape.earthRotation,
+    fitDefaults: shape.fit,
+  })
+  .superRefine((body, ctx) => {
+    if (body.bodyId !== undefined && body.newBody !== undefined)
+      ctx.addIssue({ code: 'custom', path: ['newBody'], message: 'give bodyId or newBody, not both' });
+  });
 export type CreateEventPayload = z.output<typeof createEventPayloadSchema>;
 
 /** Unwrapped so that a field left out stays out instead of taking its default. */
 export const patchEventPayloadSchema = z.strictObject({
   title: shape.title.optional(),
+  bodyId: id.optional(),
+  eventTimeUtc: utcTime.optional(),
   star: shape.star.optional(),
   ephemeris: shape.ephemeris.optional(),
   earthRotation: shape.earthRotation.unwrap().optional(),
@@ -43,31 +62,59 @@ export const patchEventPayloadSchema = z.strictObject({
 });
 export type PatchEventPayload = z.output<typeof patchEventPayloadSchema>;
 
+/** What the latest fit of an event is doing, as the events list filters it. */
+export const EVENT_FIT_FILTERS = [
+  'none',
+  'running',
+  'solved',
+  'in_review',
+  'approved',
+  'returned',
+  'failed',
+] as const;
+export type EventFitFilter = (typeof EVENT_FIT_FILTERS)[number];
+export const EVENT_SORTS = ['date-desc', 'date-asc', 'title', 'created-desc'] as const;
+
+const flag = z.enum(['true', 'false']).transform((v) => v === 'true');
+
+/** `GET /api/events`: one page of the caller's events, newest event date first unless asked. */
+export const eventsQuerySchema = z.strictObject({
+  teamId: id.optional(),
+  bodyId: id.optional(),
+  q: z.string().trim().max(200, 'at most 200 characters').optional(),
+  fit: z.enum(EVENT_FIT_FILTERS).optional(),
+  awaitingMyReview: flag.optional(),
+  /** Deleted (archived) events instead of active ones; coordinators' teams only. */
+  archived: flag.optional(),
+  sort: z.enum(EVENT_SORTS).default('date-desc'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100, 'at most 100 a page').default(25),
+});
+export type EventsQuery = z.output<typeof eventsQuerySchema>;
+
 const stationFields = {
-  code: z.string().trim().min(1, 'station id must not be empty').max(100, 'at most 100 characters'),
+  code: lineText(TEXT_LIMITS.stationCode, 'station id'),
   latDeg: z.number().min(-90, 'latitude must be within ±90°').max(90, 'latitude must be within ±90°'),
   lonDeg: z
     .number()
     .min(-180, 'longitude must be within ±180° (east positive)')
     .max(180, 'longitude must be within ±180° (east positive)'),
   heightM: z.number(),
-  observerId: z.string().min(1).nullable().optional(),
-  observerName: text(200).nullable().optional(),
+  observerId: id.nullable().optional(),
+  observerName: lineText(TEXT_LIMITS.stationDetail, 'observer name').nullable().optional(),
   apertureMm: z.number().positive('apertureMm must be greater than zero').nullable().optional(),
-  camera: text(200).nullable().optional(),
+  camera: lineText(TEXT_LIMITS.stationDetail, 'camera').nullable().optional(),
   exposureSeconds: z.number().positive('exposureSeconds must be greater than zero').nullable().optional(),
-  timeSource: text(200).nullable().optional(),
+  timeSource: lineText(TEXT_LIMITS.stationDetail, 'time source').nullable().optional(),
 };
 export const createStationPayloadSchema = z.strictObject(stationFields);
 export type CreateStationPayload = z.output<typeof createStationPayloadSchema>;
 export const patchStationPayloadSchema = createStationPayloadSchema.partial();
 export type PatchStationPayload = z.output<typeof patchStationPayloadSchema>;
 
-export const REPORT_RESULT_VALUES = ['positive', 'negative', 'clouded_out', 'technical_failure'] as const;
-
 const ringDip = z
   .strictObject({
-    ring: z.string().trim().min(1, 'ring label must not be empty'),
+    ring: lineText(TEXT_LIMITS.ringLabel, 'ring label'),
     start: timedMark,
     end: timedMark,
   })
@@ -84,25 +131,32 @@ const reportFields = {
   reappearance: timedMark.nullable().optional(),
   observedFromUtc: utcTime.nullable().optional(),
   observedToUtc: utcTime.nullable().optional(),
-  ringDips: z.array(ringDip).optional(),
-  notes: text(10_000).nullable().optional(),
+  ringDips: z.array(ringDip).max(50, 'at most 50 dips in one report').optional(),
+  /** A positive report whose times are to come from timing its light curve: typed times are optional. */
+  timesFromLightCurve: z.boolean().optional(),
+  notes: noteText(TEXT_LIMITS.note).nullable().optional(),
 };
 
 export interface ReportTimings {
   result: (typeof REPORT_RESULT_VALUES)[number];
+  timesFromLightCurve?: boolean | undefined;
   disappearance?: { time: string } | null;
   reappearance?: { time: string } | null;
   observedFromUtc?: string | null;
   observedToUtc?: string | null;
 }
 
-/** What a result needs: a positive its two timings in order, a negative the span watched. */
+/**
+ * What a result needs: a positive its two timings in order (or, when its times are to come from its
+ * light curve, none or both in order), a negative the span watched.
+ */
 export function reportTimingProblems(report: ReportTimings): Array<{ path: string; message: string }> {
   const problems: Array<{ path: string; message: string }> = [];
   if (report.result === 'positive') {
-    if (!report.disappearance)
+    const fromCurve = report.timesFromLightCurve === true;
+    if (!report.disappearance && (!fromCurve || report.reappearance))
       problems.push({ path: 'disappearance', message: 'a positive report needs the disappearance' });
-    if (!report.reappearance)
+    if (!report.reappearance && (!fromCurve || report.disappearance))
       problems.push({ path: 'reappearance', message: 'a positive report needs the reappearance' });
     const d = orderOf(report.disappearance?.time);
     const r = orderOf(report.reappearance?.time);
@@ -141,8 +195,35 @@ export const patchReportPayloadSchema = z.strictObject(reportFields).partial();
 export type PatchReportPayload = z.output<typeof patchReportPayloadSchema>;
 
 export const rejectReportPayloadSchema = z.strictObject({
-  reason: z.string().trim().min(1, 'a reason is required so the observer knows what to fix').max(2000),
+  reason: noteText(TEXT_LIMITS.reason).refine(
+    (s) => s.length > 0,
+    'a reason is required so the observer knows what to fix',
+  ),
 });
+export type RejectReportPayload = z.output<typeof rejectReportPayloadSchema>;
+
+/**
+ * Accepting a report or a timing writes a chord. When that would replace better-timed values (smaller
+ * σ, or times from a light-curve timing) the API answers 409 `replaces-better-timing` saying what, and
+ * the caller repeats the request with `replaceTimedChord: true` once the person has agreed.
+ */
+export const acceptIntoChordPayloadSchema = z
+  .strictObject({ replaceTimedChord: z.boolean().default(false) })
+  .prefault({});
+export type AcceptIntoChordPayload = z.output<typeof acceptIntoChordPayloadSchema>;
+
+/** The 409 code (and `detail`) of an accept that would replace better-timed chord values. */
+export const REPLACES_BETTER_TIMING = 'replaces-better-timing';
+
+/** An observer asks to correct their accepted report; a coordinator sees the change and decides. */
+export const reportCorrectionPayloadSchema = z.strictObject({
+  changes: z
+    .strictObject(reportFields)
+    .partial()
+    .refine((c) => Object.values(c).some((v) => v !== undefined), 'change at least one field'),
+  message: messageText.refine((s) => s.length > 0, 'say what is wrong with the accepted report'),
+});
+export type ReportCorrectionPayload = z.output<typeof reportCorrectionPayloadSchema>;
 
 /** A chord exactly as the event file states one (station by its id in the event). */
 export const chordPayloadSchema = shape.chords.element;
@@ -153,10 +234,14 @@ export const submitFitPayloadSchema = z.strictObject({
 });
 export type SubmitFitPayload = z.output<typeof submitFitPayloadSchema>;
 
+/** A review request may carry a message to the reviewers (what changed, what to look at). */
+export const reviewRequestPayloadSchema = z.strictObject({ message: messageText.default('') }).prefault({});
+export type ReviewRequestPayload = z.output<typeof reviewRequestPayloadSchema>;
+
 export const reviewDecisionPayloadSchema = z
   .strictObject({
     decision: z.enum(['approve', 'return']),
-    comment: z.string().trim().max(10_000).default(''),
+    comment: noteText(TEXT_LIMITS.note).default(''),
   })
   .superRefine((review, ctx) => {
     if (review.decision === 'return' && review.comment === '')
@@ -167,3 +252,10 @@ export const reviewDecisionPayloadSchema = z
       });
   });
 export type ReviewDecisionPayload = z.output<typeof reviewDecisionPayloadSchema>;
+
+/** The text fields of `POST /api/events/import` beside the file (multipart). */
+export const importFieldsSchema = z.strictObject({
+  teamId: id.optional(),
+  bodyId: id.optional(),
+  bodyName: bodyNameSchema.optional(),
+});

@@ -6,8 +6,10 @@ import { z } from 'zod';
 
 import { LIMB_PARAMETERS, type EventInput } from '@limbus/geometry';
 
+import { bodyDesignationSchema, bodyNameSchema } from './bodies.js';
 import { parseUtcTime, parseZonelessTime } from './iso-time.js';
 import { formatPath, plainErrorMap, problemsFromIssues, type PathSegment, type Problem } from './problems.js';
+import { lineText, TEXT_LIMITS } from './text.js';
 
 export const EVENT_FORMAT = 'limbus-event/1';
 
@@ -37,7 +39,9 @@ const raDeg = finite()
   .min(0, 'right ascension must be within 0–360°')
   .max(360, 'right ascension must be within 0–360°');
 
-const label = (what: string) => z.string().trim().min(1, `${what} must not be empty`);
+/** A station id or ring label: one line, at most as long as its database column. */
+const label = (what: string) =>
+  lineText(what === 'ring label' ? TEXT_LIMITS.ringLabel : TEXT_LIMITS.stationCode, what);
 
 /**
  * Whether time b is not after time a. Zod runs these object-level checks even when a time inside failed
@@ -150,7 +154,9 @@ const fitOptions = z.strictObject({
 
 export const eventFileSchema = z.strictObject({
   format: z.literal(EVENT_FORMAT),
-  title: label('title'),
+  title: lineText(TEXT_LIMITS.eventTitle, 'title'),
+  /** The body the event observes; optional, read when the file is imported into a team. */
+  body: z.strictObject({ name: bodyNameSchema, designation: bodyDesignationSchema.optional() }).optional(),
   star: z.strictObject({
     raDeg,
     decDeg,
@@ -232,7 +238,8 @@ function crossReferenceProblems(json: unknown): Problem[] {
   return problems;
 }
 
-export type EventValidation = { ok: true; event: EventInput } | { ok: false; problems: Problem[] };
+export type EventValidation =
+  { ok: true; event: EventInput; body: EventFile['body'] } | { ok: false; problems: Problem[] };
 
 /** Validates an event file and applies its defaults; on failure lists every problem found, by JSON path. */
 export function validateEventFile(json: unknown): EventValidation {
@@ -243,6 +250,7 @@ export function validateEventFile(json: unknown): EventValidation {
   ];
   if (problems.length > 0 || !parsed.success) return { ok: false, problems };
   // This assignment is the compile-time proof that the schema's output fits geometry's EventInput.
-  const event: EventInput = parsed.data;
-  return { ok: true, event };
+  const { body, ...rest } = parsed.data;
+  const event: EventInput = rest;
+  return { ok: true, event, body };
 }

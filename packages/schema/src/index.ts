@@ -16,3 +16,8 @@ export { parseUtcTime, parseZonelessTime } from './iso-time.js';
 export * from './context-input.js';
 export * from './api.js';
 export * from './light-curve-csv.js';
+export * from './text.js';
+export * from './team.js';
+export * from './bodies.js';
+export * from './angles.js';
+export * from './views.js';
