@@ -5,6 +5,7 @@ import pino from 'pino';
 import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { BodiesModule } from './bodies/bodies.module';
 import { ComparisonsModule } from './comparisons/comparisons.module';
 import { ChordsModule } from './chords/chords.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
@@ -80,6 +81,7 @@ export class AppModule {
         HealthModule,
         AdminModule,
         EventsModule,
+        BodiesModule,
         AuditModule,
         FitsModule,
         StationsModule,

@@ -41,6 +41,9 @@ describe('dynamics context routes', () => {
       .set(w.auth(actor))
       .send(body as object);
 
+  const bodyOf = async (id: string) =>
+    (await t.orm.em.fork().findOneOrFail(OccultationEvent, { id })).body.id;
+
   beforeAll(async () => {
     t = await bootTestApp();
     w = await createWorkspace(t);
@@ -52,7 +55,13 @@ describe('dynamics context routes', () => {
 
   it('GET /api/events/:eventId/dynamics answers an empty view before any context is stored', async () => {
     const response = await t.get(`/api/events/${eventId}/dynamics`).set(w.auth('observer')).expect(200);
-    expect(response.body).toEqual({ input: null, result: null, ringFits: [], updatedAt: null });
+    expect(response.body).toEqual({
+      bodyId: await bodyOf(eventId),
+      input: null,
+      result: null,
+      ringFits: [],
+      updatedAt: null,
+    });
   });
 
   it('PUT /api/events/:eventId/dynamics stores the input with its sources and returns the geometry result', async () => {
@@ -71,7 +80,7 @@ describe('dynamics context routes', () => {
     // Classical fluid Roche limit d = 2.44 R (ρ_body/ρ_particle)^(1/3) (from memory; Roche's coefficient
     // as quoted in planetary-ring texts): 2.44 × 560 × (1700/900)^(1/3) = 1688.9 km.
     expect(Math.abs(view.result.rocheFluidKm - 2.44 * 560 * Math.cbrt(1700 / 900))).toBeLessThan(1e-6);
-    const stored = await t.orm.em.fork().findOneOrFail(DynamicsContext, { event: eventId });
+    const stored = await t.orm.em.fork().findOneOrFail(DynamicsContext, { body: await bodyOf(eventId) });
     expect(stored.document).toEqual({ ...CONTEXT, body: { ...CONTEXT.body } });
   });
 
@@ -82,7 +91,7 @@ describe('dynamics context routes', () => {
     }).expect(400);
     const paths = (response.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path);
     expect(paths).toEqual(['body.radiusKm']);
-    const stored = await t.orm.em.fork().findOneOrFail(DynamicsContext, { event: eventId });
+    const stored = await t.orm.em.fork().findOneOrFail(DynamicsContext, { body: await bodyOf(eventId) });
     expect(stored.document.body.radiusKm).toBe(560);
   });
 
@@ -138,6 +147,7 @@ describe('dynamics context routes', () => {
     const fit = new FitRun(event, em.getReference(User, w.userIds.modeller), {
       input: '{}',
       inputSha256: '0'.repeat(64),
+      dataSha256: '0'.repeat(64),
       options: {},
       engineVersion: 'e2e',
       seed: 1,

@@ -152,6 +152,7 @@ describe('figure and table exports of a fit', () => {
       createdBy: stored.createdBy,
       input: stored.input,
       inputSha256: stored.inputSha256,
+      dataSha256: stored.dataSha256,
       options: {},
       engineVersion: stored.engineVersion,
       seed: stored.seed,

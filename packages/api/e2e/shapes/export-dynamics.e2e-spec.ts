@@ -90,6 +90,7 @@ describe('fit exports with the event body context', () => {
       {
         input: JSON.stringify(exampleEvent()),
         inputSha256: '0'.repeat(64),
+        dataSha256: '0'.repeat(64),
         options: {},
         engineVersion: 'e2e',
         seed: 1,

@@ -101,6 +101,7 @@ describe('3D shape from several fits', () => {
       {
         input: JSON.stringify(file),
         inputSha256: '0'.repeat(64),
+        dataSha256: '0'.repeat(64),
         options: {},
         engineVersion: 'e2e',
         seed: 1,

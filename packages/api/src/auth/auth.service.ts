@@ -115,6 +115,7 @@ export class AuthService {
     await this.mail.send({
       to: user.email,
       subject: 'Reset your Limbus password',
+      kind: 'password-reset',
       text: `Someone asked to reset the password of your Limbus account.\n\nChoose a new password here (valid for one hour):\n${link}\n\nIf it was not you, ignore this message.`,
       html: `<p>Someone asked to reset the password of your Limbus account.</p><p><a href="${escapeHtml(link)}">Choose a new password</a> (valid for one hour).</p><p>If it was not you, ignore this message.</p>`,
     });

@@ -1,12 +1,14 @@
 import { PasswordResetToken } from '../auth/entities/password-reset-token.entity';
 import { RefreshToken } from '../auth/entities/refresh-token.entity';
 import { AuditEntry } from '../audit/entities/audit-entry.entity';
+import { Body } from '../bodies/entities/body.entity';
 import { Chord } from '../chords/entities/chord.entity';
 import { DynamicsContext } from '../dynamics/entities/dynamics-context.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { OccultationEvent } from '../events/entities/occultation-event.entity';
 import { FitRun } from '../fits/entities/fit-run.entity';
 import { Invitation } from '../invitations/entities/invitation.entity';
+import { ReportCorrection } from '../reports/entities/report-correction.entity';
 import { Report } from '../reports/entities/report.entity';
 import { Review } from '../reviews/entities/review.entity';
 import { Station } from '../stations/entities/station.entity';
@@ -24,6 +26,7 @@ export const ENTITIES = [
   User,
   Team,
   Membership,
+  Body,
   Invitation,
   RefreshToken,
   PasswordResetToken,
@@ -31,6 +34,7 @@ export const ENTITIES = [
   Station,
   Upload,
   Report,
+  ReportCorrection,
   Chord,
   RingEvent,
   FitRun,

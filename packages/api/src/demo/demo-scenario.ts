@@ -8,8 +8,10 @@ import type { EntityManager } from '@mikro-orm/mariadb';
 import { solveEvent, ENGINE_VERSION } from '@limbus/geometry';
 import { validateEventFile } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
+import { Body } from '../bodies/entities/body.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { OccultationEvent } from '../events/entities/occultation-event.entity';
+import { eventDataSha256 } from '../events/event-data';
 import { chordRow, eventFileOf, loadEventRows, persistEventFile } from '../events/event-rows';
 import { FitRun } from '../fits/entities/fit-run.entity';
 import { sha256Hex } from '../fits/fits.service';
@@ -22,6 +24,9 @@ import { User } from '../users/entities/user.entity';
 
 /** Beside the compiled file in dist/demo and the source in src/demo alike. */
 export const DEMO_EVENT_PATH = path.resolve(__dirname, '../../src/demo/quillon-event.json');
+
+/** The invented body of the demo event. */
+export const DEMO_BODY = { name: 'Quillon', designation: '2027 QL88' } as const;
 
 /** Invented observers; observer@example.org (a demo user) holds the first two sites. */
 export const DEMO_OBSERVERS: ReadonlyArray<{
@@ -121,7 +126,11 @@ export async function seedDemoScenario(em: EntityManager, teamName: string): Pro
   const file = validation.event;
 
   await em.transactional(async (tx) => {
-    const rows = persistEventFile(tx, team, { ...file, chords: [], ringEvents: [] }, coordinator.id);
+    const body = new Body(team, DEMO_BODY.name);
+    body.designation = DEMO_BODY.designation;
+    body.createdById = coordinator.id;
+    tx.persist(body);
+    const rows = persistEventFile(tx, team, body, { ...file, chords: [], ringEvents: [] }, coordinator.id);
     const event = rows.event;
     const observers = new Map<string, User>();
     for (const o of DEMO_OBSERVERS) {
@@ -192,6 +201,7 @@ export async function seedDemoScenario(em: EntityManager, teamName: string): Pro
     const fit = new FitRun(event, modeller, {
       input,
       inputSha256,
+      dataSha256: eventDataSha256(snapshot),
       options: {},
       engineVersion: ENGINE_VERSION,
       seed: solution.engine.seed,

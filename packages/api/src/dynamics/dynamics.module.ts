@@ -4,7 +4,7 @@ import { TeamsModule } from '../teams/teams.module';
 import { DynamicsController } from './dynamics.controller';
 import { DynamicsService } from './dynamics.service';
 
-/** Per-event body context beside the ring fits. Team scope comes from :eventId. */
+/** A body's context beside the ring fits. Team scope comes from :bodyId or :eventId. */
 @Module({
   imports: [TeamsModule, AuditModule],
   controllers: [DynamicsController],

@@ -6,9 +6,11 @@ import type { ChordInput, EventInput, RingEventInput, StationInput } from '@limb
 import { EVENT_FORMAT } from '@limbus/schema';
 import { Chord, type ChordSource } from '../chords/entities/chord.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
+import type { Body } from '../bodies/entities/body.entity';
 import { Station } from '../stations/entities/station.entity';
 import type { Team } from '../teams/entities/team.entity';
 import { OccultationEvent } from './entities/occultation-event.entity';
+import { defaultEventTimeUtc } from './event-data';
 
 export interface EventRows {
   event: OccultationEvent;
@@ -51,11 +53,13 @@ export function applyChordInput(chord: Chord, station: Station, input: ChordInpu
 export function persistEventFile(
   em: EntityManager,
   team: Team,
+  body: Body,
   file: EventInput,
   createdById: string | null,
 ): EventRows {
-  const event = new OccultationEvent(team, {
+  const event = new OccultationEvent(team, body, {
     title: file.title,
+    eventTimeUtc: defaultEventTimeUtc(file.ephemeris),
     star: file.star,
     ephemeris: file.ephemeris,
     earthRotation: file.earthRotation,

@@ -7,16 +7,22 @@ import {
   Param,
   Patch,
   Post,
+  Query,
   Res,
   UploadedFile,
   UseInterceptors,
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
-import { ApiBearerAuth, ApiBody, ApiConsumes, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { EventInput } from '@limbus/geometry';
 import {
   type CreateEventPayload,
   createEventPayloadSchema,
+  type EventsPage,
+  eventsPageSchema,
+  type EventsQuery,
+  eventsQuerySchema,
+  importFieldsSchema,
   type PatchEventPayload,
   patchEventPayloadSchema,
 } from '@limbus/schema';
@@ -25,7 +31,26 @@ import { type AuthUser, CurrentUser } from '../auth/auth-user';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { Roles, TeamMember } from '../teams/roles.decorator';
 import type { UploadedPart } from '../uploads/uploaded-part';
-import { type EventDetail, type EventSummary, EventsService } from './events.service';
+import { ValidationError } from '../common/domain-errors';
+import { type EventDetail, EventsService, type ImportFields } from './events.service';
+
+/** The text fields of an import's multipart body, each checked like its JSON twin. */
+function importFields(body: Record<string, unknown> | undefined): ImportFields {
+  const text = (key: string) => {
+    const value = body?.[key];
+    return typeof value === 'string' && value.trim() !== '' ? value : undefined;
+  };
+  const fields = { teamId: text('teamId'), bodyId: text('bodyId'), bodyName: text('bodyName') };
+  const checked = importFieldsSchema.safeParse(fields);
+  if (!checked.success)
+    throw new ValidationError(
+      checked.error.issues.map((issue) => ({
+        path: issue.path.map(String).join('.'),
+        message: issue.message,
+      })),
+    );
+  return checked.data;
+}
 
 /** An event file is a few hundred kB at most; anything larger is not one. */
 export const EVENT_FILE_LIMIT_BYTES = 5 * 1024 * 1024;
@@ -36,9 +61,14 @@ export const EVENT_FILE_LIMIT_BYTES = 5 * 1024 * 1024;
 export class EventsController {
   constructor(private readonly events: EventsService) {}
 
+  /** One page of the events of the caller's teams; see eventsQuerySchema for the filters. */
   @Get()
-  list(@CurrentUser() user: AuthUser): Promise<EventSummary[]> {
-    return this.events.list(user);
+  @ApiOkResponse({ schema: openApiSchema(eventsPageSchema) })
+  list(
+    @CurrentUser() user: AuthUser,
+    @Query(new ZodValidationPipe(eventsQuerySchema)) query: EventsQuery,
+  ): Promise<EventsPage> {
+    return this.events.list(user, query);
   }
 
   /** Team comes in the body, so the role check happens in the service (coordinator of that team). */
@@ -57,7 +87,12 @@ export class EventsController {
     schema: {
       type: 'object',
       required: ['file'],
-      properties: { file: { type: 'string', format: 'binary' }, teamId: { type: 'string' } },
+      properties: {
+        file: { type: 'string', format: 'binary' },
+        teamId: { type: 'string' },
+        bodyId: { type: 'string', description: 'a body of the team' },
+        bodyName: { type: 'string', description: 'a body found or made by name; else the file may name one' },
+      },
     },
   })
   @UseInterceptors(FileInterceptor('file', { limits: { fileSize: EVENT_FILE_LIMIT_BYTES, files: 1 } }))
@@ -66,8 +101,7 @@ export class EventsController {
     @UploadedFile() file: UploadedPart | undefined,
     @Body() body: Record<string, unknown> | undefined,
   ): Promise<{ id: string }> {
-    const teamId = typeof body?.teamId === 'string' && body.teamId !== '' ? body.teamId : undefined;
-    return this.events.importFile(user, teamId, file?.buffer);
+    return this.events.importFile(user, importFields(body), file?.buffer);
   }
 
   @Get(':eventId')
@@ -106,7 +140,7 @@ export class EventsController {
   async export(
     @Param('eventId') eventId: string,
     @Res({ passthrough: true }) res: Response,
-  ): Promise<EventInput> {
+  ): Promise<EventInput & { body: { name: string } }> {
     const file = await this.events.exportFile(eventId);
     res.setHeader('Content-Disposition', `attachment; filename="event-${eventId}.json"`);
     return file;

@@ -1,16 +1,25 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { EventInput, FitOptions, StarInput, TimeScale, EphemerisRow } from '@limbus/geometry';
-import { type CreateEventPayload, type PatchEventPayload, validateEventFile } from '@limbus/schema';
+import {
+  type CreateEventPayload,
+  type EventsPage,
+  type EventsQuery,
+  type EventSummary,
+  type PatchEventPayload,
+  validateEventFile,
+} from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
-import { Chord } from '../chords/entities/chord.entity';
-import { NotFoundError, ValidationError } from '../common/domain-errors';
-import { FitRun } from '../fits/entities/fit-run.entity';
+import { chooseBody, type BodyChoice } from '../bodies/body-choice';
+import { Body } from '../bodies/entities/body.entity';
+import { ForbiddenError, NotFoundError, ValidationError } from '../common/domain-errors';
 import { Membership } from '../teams/entities/membership.entity';
 import { OccultationEvent, type EventState } from './entities/occultation-event.entity';
+import { defaultEventTimeUtc, eventDataSha256, wholeSecondUtc } from './event-data';
 import { EventDetailCache } from './event-detail.cache';
 import { eventFileOf, loadEventRows, persistEventFile, type EventRows } from './event-rows';
+import { listEventIds, summariesOf } from './event-list';
 import { chooseTeam } from './team-choice';
 import {
   type ChordView,
@@ -21,20 +30,17 @@ import {
   stationView,
 } from './views';
 
-export interface EventSummary {
-  id: string;
-  title: string;
-  teamId: string;
-  eventDate: string | null;
-  star: { raDeg: number; decDeg: number };
-  counts: { stations: number; chords: number; reports: number; fits: number };
-  latestFit: { id: string; state: string } | null;
-}
-
 export interface EventDetail {
   id: string;
   teamId: string;
+  bodyId: string;
+  bodyName: string;
+  bodyDesignation: string | null;
   title: string;
+  /** "YYYY-MM-DDThh:mm:ssZ" */
+  eventTimeUtc: string;
+  /** SHA-256 of the event's data now (eventDataSha256); a fit whose own differs ran on older data. */
+  dataSha256: string;
   state: EventState;
   star: StarInput;
   ephemeris: { timeScale: TimeScale; rows: EphemerisRow[] };
@@ -48,9 +54,11 @@ export interface EventDetail {
   ringEvents: RingEventView[];
 }
 
-/** Earliest chord time of an event: a positive's disappearance or a negative's start. */
-function chordTime(c: Pick<Chord, 'disappearance' | 'startUtc'>): string | null {
-  return c.disappearance?.time ?? c.startUtc ?? null;
+/** The multipart fields of an import beside the file. */
+export interface ImportFields {
+  teamId?: string | undefined;
+  bodyId?: string | undefined;
+  bodyName?: string | undefined;
 }
 
 @Injectable()
@@ -63,69 +71,43 @@ export class EventsService {
 
   /** Throws NotFound for a missing or (unless asked) soft-deleted event. */
   async find(eventId: string, options: { includeDeleted?: boolean } = {}): Promise<OccultationEvent> {
-    const event = await this.em.findOne(OccultationEvent, { id: eventId }, { populate: ['team'] });
+    const event = await this.em.findOne(OccultationEvent, { id: eventId }, { populate: ['team', 'body'] });
     if (!event || (event.state === 'deleted' && !options.includeDeleted)) throw new NotFoundError();
     return event;
   }
 
-  async list(user: AuthUser): Promise<EventSummary[]> {
+  /**
+   * One page of the events of the caller's teams, filtered and sorted in SQL; summaries are built for
+   * that page only, so the list costs the same however large the team's events are.
+   */
+  async list(user: AuthUser, query: EventsQuery): Promise<EventsPage> {
     const memberships = await this.em.find(Membership, { user: user.id });
-    const teamIds = memberships.map((m) => m.team.id);
-    if (teamIds.length === 0) return [];
-    const events = await this.em.find(
-      OccultationEvent,
-      { team: { $in: teamIds }, state: 'active' },
-      { orderBy: { createdAt: 'desc', id: 'asc' } },
-    );
-    const ids = events.map((e) => e.id);
-    if (ids.length === 0) return [];
-    const placeholders = ids.map(() => '?').join(', ');
-    const countBy = async (table: 'stations' | 'chords' | 'reports' | 'fit_runs') => {
-      const rows: Array<{ event_id: string; n: number | string | bigint }> = await this.em.execute(
-        `select event_id, count(*) as n from \`${table}\` where event_id in (${placeholders}) group by event_id`,
-        ids,
-      );
-      return new Map(rows.map((r) => [r.event_id, Number(r.n)]));
-    };
-    const [stations, chords, reports, fits] = await Promise.all([
-      countBy('stations'),
-      countBy('chords'),
-      countBy('reports'),
-      countBy('fit_runs'),
-    ]);
-    const chordRows = await this.em.find(
-      Chord,
-      { event: { $in: ids } },
-      { fields: ['event', 'disappearance', 'startUtc'] },
-    );
-    const firstTime = new Map<string, string>();
-    for (const c of chordRows) {
-      const time = chordTime(c);
-      const seen = firstTime.get(c.event.id);
-      if (time && (!seen || time < seen)) firstTime.set(c.event.id, time);
+    let teams = memberships.map((m) => ({ id: m.team.id, roles: m.roles }));
+    if (query.teamId !== undefined) teams = teams.filter((t) => t.id === query.teamId);
+    if (query.archived) {
+      // Deleted events are the coordinators' to restore; others do not see them.
+      teams = teams.filter((t) => user.isAdmin || t.roles.includes('coordinator'));
+      if (query.teamId !== undefined && teams.length === 0) throw new ForbiddenError();
     }
-    const fitRows = await this.em.find(
-      FitRun,
-      { event: { $in: ids } },
-      { fields: ['event', 'state', 'createdAt'], orderBy: { createdAt: 'desc', id: 'desc' } },
+    const empty: EventsPage = { items: [], total: 0, page: query.page, pageSize: query.pageSize };
+    if (teams.length === 0) return empty;
+    const reviewerTeams = teams.filter((t) => user.isAdmin || t.roles.includes('reviewer')).map((t) => t.id);
+    const { ids, total } = await listEventIds(this.em, {
+      userId: user.id,
+      teamIds: teams.map((t) => t.id),
+      reviewerTeamIds: reviewerTeams,
+      query,
+    });
+    if (ids.length === 0) return { ...empty, total };
+    const items: EventSummary[] = await summariesOf(this.em, ids, user.id, (id, revision) =>
+      this.dataSha256At(id, revision),
     );
-    const latest = new Map<string, { id: string; state: string }>();
-    for (const f of fitRows)
-      if (!latest.has(f.event.id)) latest.set(f.event.id, { id: f.id, state: f.state });
-    return events.map((e) => ({
-      id: e.id,
-      title: e.title,
-      teamId: e.team.id,
-      eventDate: firstTime.get(e.id) ?? null,
-      star: { raDeg: e.star.raDeg, decDeg: e.star.decDeg },
-      counts: {
-        stations: stations.get(e.id) ?? 0,
-        chords: chords.get(e.id) ?? 0,
-        reports: reports.get(e.id) ?? 0,
-        fits: fits.get(e.id) ?? 0,
-      },
-      latestFit: latest.get(e.id) ?? null,
-    }));
+    return { items, total, page: query.page, pageSize: query.pageSize };
+  }
+
+  /** The event's current data hash, from the detail view cached under that revision. */
+  async dataSha256At(eventId: string, revision: number): Promise<string> {
+    return (await this.detailAt(eventId, revision, { includeDeleted: true })).dataSha256;
   }
 
   /**
@@ -140,11 +122,19 @@ export class EventsService {
         [eventId],
       );
     if (!current || current.state === 'deleted') throw new NotFoundError();
-    const cached = this.detailCache.get(eventId, current.revision);
+    return this.detailAt(eventId, current.revision);
+  }
+
+  private async detailAt(
+    eventId: string,
+    revision: number,
+    options: { includeDeleted?: boolean } = {},
+  ): Promise<EventDetail> {
+    const cached = this.detailCache.get(eventId, revision);
     if (cached) return cached;
-    const event = await this.find(eventId);
+    const event = await this.find(eventId, options);
     const detail = this.detailOf(await loadEventRows(this.em, event));
-    this.detailCache.set(eventId, current.revision, detail);
+    this.detailCache.set(eventId, revision, detail);
     return detail;
   }
 
@@ -153,7 +143,12 @@ export class EventsService {
     return {
       id: e.id,
       teamId: e.team.id,
+      bodyId: e.body.id,
+      bodyName: e.body.name,
+      bodyDesignation: e.body.designation,
       title: e.title,
+      eventTimeUtc: e.eventTimeUtc,
+      dataSha256: eventDataSha256(eventFileOf(rows)),
       state: e.state,
       star: e.star,
       ephemeris: e.ephemeris,
@@ -169,11 +164,7 @@ export class EventsService {
   }
 
   /** One transaction: either the whole file is stored, or (on any problem) nothing is. */
-  async importFile(
-    user: AuthUser,
-    teamId: string | undefined,
-    raw: Buffer | undefined,
-  ): Promise<{ id: string }> {
+  async importFile(user: AuthUser, fields: ImportFields, raw: Buffer | undefined): Promise<{ id: string }> {
     if (!raw)
       throw new ValidationError([{ path: 'file', message: 'missing; send the event file as field "file"' }]);
     let json: unknown;
@@ -189,9 +180,22 @@ export class EventsService {
     }
     const validation = validateEventFile(json);
     if (!validation.ok) throw new ValidationError(validation.problems);
-    const team = await chooseTeam(this.em, user, teamId, ['coordinator']);
+    const team = await chooseTeam(this.em, user, fields.teamId, ['coordinator']);
+    const named = fields.bodyName ?? validation.body?.name;
+    const choice: BodyChoice = {
+      bodyId: fields.bodyId,
+      name:
+        named === undefined
+          ? undefined
+          : {
+              name: named,
+              designation: fields.bodyName === undefined ? validation.body?.designation : undefined,
+            },
+      path: { bodyId: 'bodyId', name: fields.bodyName === undefined ? 'file.body.name' : 'bodyName' },
+    };
     return this.em.transactional(async (em) => {
-      const rows = persistEventFile(em, team, validation.event, user.id);
+      const body = await chooseBody(em, team, choice, user.id);
+      const rows = persistEventFile(em, team, body, validation.event, user.id);
       this.audit.record(em, {
         teamId: team.id,
         eventId: rows.event.id,
@@ -200,6 +204,7 @@ export class EventsService {
         objectType: 'event',
         objectId: rows.event.id,
         detail: {
+          body: body.name,
           stations: rows.stations.length,
           chords: rows.chords.length,
           ringEvents: rows.ringEvents.length,
@@ -213,8 +218,18 @@ export class EventsService {
   async create(user: AuthUser, body: CreateEventPayload): Promise<{ id: string }> {
     const team = await chooseTeam(this.em, user, body.teamId, ['coordinator']);
     return this.em.transactional(async (em) => {
-      const event = new OccultationEvent(team, {
+      const observed = await chooseBody(
+        em,
+        team,
+        { bodyId: body.bodyId, name: body.newBody, path: { bodyId: 'bodyId', name: 'newBody.name' } },
+        user.id,
+      );
+      const event = new OccultationEvent(team, observed, {
         title: body.title,
+        eventTimeUtc:
+          body.eventTimeUtc === undefined
+            ? defaultEventTimeUtc(body.ephemeris)
+            : wholeSecondUtc(body.eventTimeUtc),
         star: body.star,
         ephemeris: body.ephemeris,
         earthRotation: body.earthRotation,
@@ -229,6 +244,7 @@ export class EventsService {
         action: 'event.create',
         objectType: 'event',
         objectId: event.id,
+        detail: { body: observed.name },
       });
       await em.flush();
       return { id: event.id };
@@ -239,6 +255,12 @@ export class EventsService {
     const event = await this.find(eventId);
     const changed = Object.keys(body).filter((k) => body[k as keyof PatchEventPayload] !== undefined);
     if (body.title !== undefined) event.title = body.title;
+    if (body.eventTimeUtc !== undefined) event.eventTimeUtc = wholeSecondUtc(body.eventTimeUtc);
+    if (body.bodyId !== undefined) {
+      const moved = await this.em.findOne(Body, { id: body.bodyId, team: event.team });
+      if (!moved) throw new ValidationError([{ path: 'bodyId', message: 'no such body in this team' }]);
+      event.body = moved;
+    }
     if (body.star !== undefined) event.star = body.star;
     if (body.ephemeris !== undefined) event.ephemeris = body.ephemeris;
     if (body.earthRotation !== undefined) event.earthRotation = body.earthRotation;
@@ -287,8 +309,14 @@ export class EventsService {
     return this.detail(eventId);
   }
 
-  async exportFile(eventId: string): Promise<EventInput> {
+  /** The event file, naming its body so that an import into another team finds or makes the same one. */
+  async exportFile(eventId: string): Promise<EventInput & { body: { name: string; designation?: string } }> {
     const event = await this.find(eventId);
-    return eventFileOf(await loadEventRows(this.em, event));
+    const { format, title, ...rest } = eventFileOf(await loadEventRows(this.em, event));
+    const body = {
+      name: event.body.name,
+      ...(event.body.designation === null ? {} : { designation: event.body.designation }),
+    };
+    return { format, title, body, ...rest };
   }
 }

@@ -43,7 +43,7 @@ export class ExportsService {
       throw new ConflictError(`fit ${fitId} is ${fit.state}; only a solved fit has figures and tables`);
     const validation = validateEventFile(JSON.parse(fit.input));
     if (!validation.ok) throw new Error(`stored input of fit ${fitId} no longer validates`);
-    const context = await this.em.findOne(DynamicsContext, { event: fit.event.id });
+    const context = await this.em.findOne(DynamicsContext, { body: fit.event.body.id });
     const dynamics =
       context === null ? [] : ringFitsAgainst(context.document, { id: fit.id, rings: fit.solution.rings });
     return { event: validation.event, solution: fit.solution, provenance: provenanceOf(fit), dynamics };

@@ -13,7 +13,6 @@ import { TeamScopeRegistry } from '../teams/team-scope.registry';
 import { TeamsModule } from '../teams/teams.module';
 import { accessTokenFromQuery } from './access-token-query.middleware';
 import { FitRun } from './entities/fit-run.entity';
-import { FitNotices } from './fit-notices';
 import { FitsController } from './fits.controller';
 import { FitsService } from './fits.service';
 
@@ -21,8 +20,8 @@ import { FitsService } from './fits.service';
 @Module({
   imports: [TeamsModule, EventsModule, AuditModule, MailModule, QueueModule],
   controllers: [FitsController],
-  providers: [FitsService, FitNotices],
-  exports: [FitsService, FitNotices],
+  providers: [FitsService],
+  exports: [FitsService],
 })
 export class FitsModule implements NestModule, OnModuleInit {
   constructor(private readonly registry: TeamScopeRegistry) {}

@@ -7,7 +7,8 @@ import type { Job } from 'bullmq';
 import { AuditService } from '../audit/audit.service';
 import { FITS_QUEUE } from '../queue/queue.module';
 import { FitRun } from './entities/fit-run.entity';
-import { FitNotices } from './fit-notices';
+import { NoticesService } from '../mail/notices.service';
+import { fitLinkPath } from './fit-link';
 import { fitWorkerOptions } from './fit-worker-options';
 import type { FitJobData } from './fit-queue';
 import { sha256Hex } from './fits.service';
@@ -40,7 +41,7 @@ export class FitsProcessor extends WorkerHost {
     private readonly orm: MikroORM,
     private readonly em: EntityManager,
     private readonly audit: AuditService,
-    private readonly notices: FitNotices,
+    private readonly notices: NoticesService,
   ) {
     super();
   }
@@ -97,15 +98,15 @@ export class FitsProcessor extends WorkerHost {
     });
     await this.em.flush();
     this.logger.log(`fit ${fit.id} ${state}`);
-    const ctx = { fitId: fit.id, eventId: fit.event.id, eventTitle: fit.event.title };
-    await this.notices.send(
-      fit.createdBy.email,
-      solution ? `Fit solved: ${fit.event.title}` : `Fit failed: ${fit.event.title}`,
-      solution
+    await this.notices.deliver({
+      kind: 'fit-finished',
+      to: [fit.createdBy.id],
+      subject: solution ? `Fit solved: ${fit.event.title}` : `Fit failed: ${fit.event.title}`,
+      lines: solution
         ? [`Your fit of "${fit.event.title}" is solved.`]
         : [`Your fit of "${fit.event.title}" failed.`, `Reason: ${error ?? 'unknown'}`],
-      ctx,
-    );
+      link: { path: fitLinkPath(fit.event.id, fit.id), label: 'Open the fit' },
+    });
     return state;
   }
 }

@@ -9,6 +9,7 @@ import { Observable } from 'rxjs';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
 import { ValidationError, NotFoundError } from '../common/domain-errors';
+import { eventDataSha256 } from '../events/event-data';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { EventsService } from '../events/events.service';
 import { enqueueOrLeaveToSweep } from '../queue/bounded-enqueue';
@@ -74,6 +75,7 @@ export class FitsService {
     const fit = new FitRun(event, this.em.getReference(User, user.id), {
       input,
       inputSha256: sha256Hex(input),
+      dataSha256: eventDataSha256(validation.event),
       options: body.options,
       engineVersion: ENGINE_VERSION,
       seed: validation.event.fit.seed ?? DEFAULT_SEED,

@@ -33,7 +33,7 @@ export class InvitationsController {
     @Body(new ZodValidationPipe(CreateInvitationSchema)) body: CreateInvitationDto,
     @CurrentUser() user: AuthUser,
   ): Promise<{ id: string }> {
-    return this.invitations.invite(teamId, body.email, body.role, user.id);
+    return this.invitations.invite(teamId, body.email, body.roles, user.id);
   }
 
   @Get('invitations/:token')

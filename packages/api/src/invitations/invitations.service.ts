@@ -31,18 +31,20 @@ export class InvitationsService {
     private readonly auth: AuthService,
   ) {}
 
-  async invite(teamId: string, email: string, role: TeamRole, inviterId: string): Promise<{ id: string }> {
+  async invite(teamId: string, email: string, roles: TeamRole[], inviterId: string): Promise<{ id: string }> {
     const team = await this.em.findOneOrFail(Team, { id: teamId });
     const inviter = await this.em.findOneOrFail(User, { id: inviterId });
     const token = newOpaqueToken();
     const expiresAt = new Date(Date.now() + INVITATION_TTL_SECONDS * 1000);
-    const invitation = new Invitation(team, email, role, sha256Hex(token), inviter, expiresAt);
+    const invitation = new Invitation(team, email, roles, sha256Hex(token), inviter, expiresAt);
+    const role = invitation.roles.join(', ');
     await this.em.persist(invitation).flush();
 
     const link = this.mail.link(`/invitations/${token}`);
     await this.mail.send({
       to: invitation.email,
       subject: `You are invited to ${team.name} on Limbus`,
+      kind: 'invitation',
       text: `${inviter.name} invites you to join ${team.name} on Limbus as ${role}.\n\nAccept here (valid for 7 days):\n${link}\n`,
       html: `<p>${escapeHtml(inviter.name)} invites you to join <strong>${escapeHtml(team.name)}</strong> on Limbus as ${role}.</p><p><a href="${escapeHtml(link)}">Accept the invitation</a> (valid for 7 days).</p>`,
     });
@@ -54,7 +56,7 @@ export class InvitationsService {
     return {
       email: invitation.email,
       teamName: invitation.team.name,
-      role: invitation.role,
+      role: invitation.roles[0] ?? 'observer',
       expiresAt: invitation.expiresAt.toISOString(),
     };
   }
@@ -75,9 +77,10 @@ export class InvitationsService {
       this.em.persist(user);
     }
     const membership = await this.em.findOne(Membership, { team: invitation.team, user });
-    if (membership) membership.addRole(invitation.role);
-    else this.em.persist(new Membership(invitation.team, user, [invitation.role]));
+    if (membership) for (const role of invitation.roles) membership.addRole(role);
+    else this.em.persist(new Membership(invitation.team, user, invitation.roles));
     invitation.acceptedAt = new Date();
+    invitation.openEmail = null;
     await this.em.flush();
     return this.auth.startSession(user);
   }

@@ -1,4 +1,5 @@
 import { Injectable, OnApplicationShutdown } from '@nestjs/common';
+import { MAIL_KIND_HEADER, type MailKind } from '@limbus/schema';
 import { createTransport, type Transporter } from 'nodemailer';
 import { AppConfig } from '../config/app-config';
 
@@ -7,6 +8,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** Sent as the X-Limbus-Kind header, which the outbox and mail filters read. */
+  kind: MailKind;
 }
 
 @Injectable()
@@ -17,8 +20,12 @@ export class MailService implements OnApplicationShutdown {
     this.transport = createTransport(config.smtpUrl);
   }
 
-  async send(mail: OutgoingMail): Promise<void> {
-    await this.transport.sendMail({ from: this.config.mailFrom, ...mail });
+  async send({ kind, ...mail }: OutgoingMail): Promise<void> {
+    await this.transport.sendMail({
+      from: this.config.mailFrom,
+      ...mail,
+      headers: { [MAIL_KIND_HEADER]: kind },
+    });
   }
 
   /** Absolute link for e-mails; the client routes it (e.g. /invitations/:token). */

@@ -5,16 +5,17 @@ import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
 import { ConflictError, ForbiddenError } from '../common/domain-errors';
 import { FitRun, type ReviewState } from '../fits/entities/fit-run.entity';
-import { FitNotices } from '../fits/fit-notices';
+import { fitLinkPath } from '../fits/fit-link';
+import { NoticesService } from '../mail/notices.service';
 import { FitsService } from '../fits/fits.service';
 import { Membership } from '../teams/entities/membership.entity';
 import { User } from '../users/entities/user.entity';
-import { Review } from './entities/review.entity';
+import { Review, type ReviewDecision } from './entities/review.entity';
 
 export interface ReviewView {
   id: string;
   fitId: string;
-  decision: 'approve' | 'return';
+  decision: ReviewDecision;
   comment: string;
   reviewer: { id: string; name: string };
   createdAt: string;
@@ -38,7 +39,7 @@ export class ReviewsService {
     private readonly em: EntityManager,
     private readonly fits: FitsService,
     private readonly audit: AuditService,
-    private readonly notices: FitNotices,
+    private readonly notices: NoticesService,
   ) {}
 
   async requestReview(user: AuthUser, fitId: string): Promise<{ id: string; reviewState: ReviewState }> {
@@ -65,16 +66,14 @@ export class ReviewsService {
       objectId: fit.id,
     });
     await this.em.flush();
-    const reviewers = await this.em.find(Membership, { team: fit.event.team.id }, { populate: ['user'] });
-    const ctx = { fitId: fit.id, eventId: fit.event.id, eventTitle: fit.event.title };
-    for (const m of reviewers)
-      if (m.roles.includes('reviewer') && m.user.id !== user.id)
-        await this.notices.send(
-          m.user.email,
-          `Review requested: ${fit.event.title}`,
-          [`${fit.createdBy.name} asks you to review a fit of "${fit.event.title}".`],
-          ctx,
-        );
+    const members = await this.em.find(Membership, { team: fit.event.team.id });
+    this.notices.notify({
+      kind: 'review-requested',
+      to: members.filter((m) => m.roles.includes('reviewer') && m.user.id !== user.id).map((m) => m.user.id),
+      subject: `Review requested: ${fit.event.title}`,
+      lines: [`${fit.createdBy.name} asks you to review a fit of "${fit.event.title}".`],
+      link: { path: fitLinkPath(fit.event.id, fit.id), label: 'Open the fit' },
+    });
     return { id: fit.id, reviewState: 'in_review' };
   }
 
@@ -104,15 +103,17 @@ export class ReviewsService {
       await em.flush();
     });
     const reviewer = await this.em.findOneOrFail(User, { id: user.id });
-    await this.notices.send(
-      fit.createdBy.email,
-      body.decision === 'approve' ? `Fit approved: ${fit.event.title}` : `Fit returned: ${fit.event.title}`,
-      [
+    this.notices.notify({
+      kind: 'review-decided',
+      to: [fit.createdBy.id],
+      subject:
+        body.decision === 'approve' ? `Fit approved: ${fit.event.title}` : `Fit returned: ${fit.event.title}`,
+      lines: [
         `${reviewer.name} ${body.decision === 'approve' ? 'approved' : 'returned'} your fit of "${fit.event.title}".`,
         ...(body.comment ? [`Comment: ${body.comment}`] : []),
       ],
-      { fitId: fit.id, eventId: fit.event.id, eventTitle: fit.event.title },
-    );
+      link: { path: fitLinkPath(fit.event.id, fit.id), label: 'Open the fit' },
+    });
     return reviewView(
       await this.em.findOneOrFail(Review, { id: review.id }, { populate: ['reviewer', 'fit'] }),
     );

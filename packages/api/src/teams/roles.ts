@@ -1,3 +1,2 @@
-/** Roles a member holds inside one team; site administration is a separate flag on the user. */
-export const TEAM_ROLES = ['coordinator', 'observer', 'modeller', 'reviewer'] as const;
-export type TeamRole = (typeof TEAM_ROLES)[number];
+/** Roles a member holds inside one team; defined once in @limbus/schema, which the client reads too. */
+export { TEAM_ROLES, type TeamRole } from '@limbus/schema';

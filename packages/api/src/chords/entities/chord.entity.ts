@@ -1,12 +1,15 @@
 import { randomUUID } from 'node:crypto';
 import { Entity, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
 import type { TimedMark } from '@limbus/geometry';
+import { CHORD_SOURCE_VALUES, type ChordSourceValue } from '@limbus/schema';
 import { OccultationEvent } from '../../events/entities/occultation-event.entity';
 import { Report } from '../../reports/entities/report.entity';
 import { Station } from '../../stations/entities/station.entity';
+import { LightCurveTiming } from '../../timings/entities/light-curve-timing.entity';
 
-export const CHORD_SOURCES = ['import', 'report', 'manual', 'csv'] as const;
-export type ChordSource = (typeof CHORD_SOURCES)[number];
+/** Where a chord's times came from: an event file, a typed report, a light-curve timing, a form, a CSV. */
+export const CHORD_SOURCES = CHORD_SOURCE_VALUES;
+export type ChordSource = ChordSourceValue;
 
 /** What the fit uses: positive chords carry D and R, negative ones the span watched. */
 @Entity({ tableName: 'chords' })
@@ -40,6 +43,10 @@ export class Chord {
 
   @Property({ type: 'string', length: 16 })
   source: ChordSource;
+
+  /** With source "timing": the light-curve timing whose D and R the chord holds. */
+  @ManyToOne({ entity: () => LightCurveTiming, nullable: true, deleteRule: 'set null' })
+  timing: (LightCurveTiming & Opt) | null = null;
 
   /** The accepted report this chord came from; accepting it again updates this chord. */
   @ManyToOne({ entity: () => Report, nullable: true, deleteRule: 'set null', unique: true })

@@ -1,6 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { Entity, Index, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
 import type { EphemerisRow, FitOptions, StarInput, TimeScale } from '@limbus/geometry';
+import { TEXT_LIMITS } from '@limbus/schema';
+import { Body } from '../../bodies/entities/body.entity';
 import { Team } from '../../teams/entities/team.entity';
 
 export const EVENT_STATES = ['active', 'deleted'] as const;
@@ -9,6 +11,7 @@ export type EventState = (typeof EVENT_STATES)[number];
 /** Named apart from the DOM/Node global `Event`; the table is still `events`. */
 @Entity({ tableName: 'events' })
 @Index({ properties: ['team', 'state'] })
+@Index({ properties: ['team', 'state', 'eventTimeUtc'] })
 export class OccultationEvent {
   @PrimaryKey({ type: 'string', length: 36 })
   id: string = randomUUID();
@@ -16,8 +19,19 @@ export class OccultationEvent {
   @ManyToOne({ entity: () => Team, deleteRule: 'cascade' })
   team: Team;
 
-  @Property({ type: 'string', length: 300 })
+  /** The body observed; a body with events cannot be deleted. */
+  @ManyToOne({ entity: () => Body, deleteRule: 'no action' })
+  body: Body;
+
+  @Property({ type: 'string', length: TEXT_LIMITS.eventTitle })
   title: string;
+
+  /**
+   * When the event happens, "YYYY-MM-DDThh:mm:ssZ" (UTC, whole seconds, so the text sorts in time order).
+   * Given by the coordinator, else the middle of the ephemeris (defaultEventTimeUtc).
+   */
+  @Property({ type: 'string', length: 20 })
+  eventTimeUtc: string;
 
   @Property({ type: 'json' })
   star: StarInput;
@@ -57,10 +71,16 @@ export class OccultationEvent {
 
   constructor(
     team: Team,
-    fields: Pick<OccultationEvent, 'title' | 'star' | 'ephemeris' | 'earthRotation' | 'fitDefaults'>,
+    body: Body,
+    fields: Pick<
+      OccultationEvent,
+      'title' | 'eventTimeUtc' | 'star' | 'ephemeris' | 'earthRotation' | 'fitDefaults'
+    >,
   ) {
     this.team = team;
+    this.body = body;
     this.title = fields.title;
+    this.eventTimeUtc = fields.eventTimeUtc;
     this.star = fields.star;
     this.ephemeris = fields.ephemeris;
     this.earthRotation = fields.earthRotation;

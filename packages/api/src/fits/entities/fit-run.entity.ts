@@ -30,6 +30,14 @@ export class FitRun {
   @Property({ type: 'string', length: 64 })
   inputSha256: string;
 
+  /**
+   * SHA-256 of the event's data in the input (star, ephemeris, Earth rotation, stations, chords, ring
+   * events; not the title or the fit options), compared with the event's current one to tell a fit run
+   * on data that has changed since (eventDataSha256).
+   */
+  @Property({ type: 'string', length: 64 })
+  dataSha256: string;
+
   /** The request's own options, before they were overlaid on the event's defaults. */
   @Property({ type: 'json' })
   options: Record<string, unknown>;
@@ -75,12 +83,16 @@ export class FitRun {
   constructor(
     event: OccultationEvent,
     createdBy: User,
-    fields: Pick<FitRun, 'input' | 'inputSha256' | 'options' | 'engineVersion' | 'seed' | 'idempotencyKey'>,
+    fields: Pick<
+      FitRun,
+      'input' | 'inputSha256' | 'dataSha256' | 'options' | 'engineVersion' | 'seed' | 'idempotencyKey'
+    >,
   ) {
     this.event = event;
     this.createdBy = createdBy;
     this.input = fields.input;
     this.inputSha256 = fields.inputSha256;
+    this.dataSha256 = fields.dataSha256;
     this.options = fields.options;
     this.engineVersion = fields.engineVersion;
     this.seed = fields.seed;

@@ -1,13 +1,7 @@
-import { z } from 'zod';
-import { PasswordSchema } from '../../auth/dto/auth.dto';
-import { TEAM_ROLES } from '../../teams/roles';
-
-export const CreateInvitationSchema = z
-  .object({ email: z.email().max(254), role: z.enum(TEAM_ROLES) })
-  .strict();
-export type CreateInvitationDto = z.infer<typeof CreateInvitationSchema>;
-
-export const AcceptInvitationSchema = z
-  .object({ name: z.string().trim().min(1).max(200), password: PasswordSchema })
-  .strict();
-export type AcceptInvitationDto = z.infer<typeof AcceptInvitationSchema>;
+// The invitation payloads are defined once in @limbus/schema, which the client's forms use too.
+export {
+  type AcceptInvitationPayload as AcceptInvitationDto,
+  acceptInvitationPayloadSchema as AcceptInvitationSchema,
+  type CreateInvitationPayload as CreateInvitationDto,
+  createInvitationPayloadSchema as CreateInvitationSchema,
+} from '@limbus/schema';

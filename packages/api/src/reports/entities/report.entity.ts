@@ -36,6 +36,10 @@ export class Report {
   @Property({ type: 'string', length: 32 })
   result: ReportResult;
 
+  /** A positive whose times are to come from timing its light curve; typed times are then optional. */
+  @Property({ type: 'boolean' })
+  timesFromLightCurve: boolean & Opt = false;
+
   @Property({ type: 'json', nullable: true })
   disappearance: (TimedMark & Opt) | null = null;
 

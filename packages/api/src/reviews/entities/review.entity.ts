@@ -3,7 +3,10 @@ import { Entity, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
 import { FitRun } from '../../fits/entities/fit-run.entity';
 import { User } from '../../users/entities/user.entity';
 
-export const REVIEW_DECISIONS = ['approve', 'return'] as const;
+import { REVIEW_ENTRY_KINDS } from '@limbus/schema';
+
+/** A review request (with the modeller's message) is kept in the same history as the decisions. */
+export const REVIEW_DECISIONS = REVIEW_ENTRY_KINDS;
 export type ReviewDecision = (typeof REVIEW_DECISIONS)[number];
 
 @Entity({ tableName: 'reviews' })

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { Entity, EntityRepositoryType, Opt, PrimaryKey, Property } from '@mikro-orm/core';
+import type { NoticeKind } from '@limbus/schema';
 import { UserRepository } from '../user.repository';
 
 @Entity({ tableName: 'users', repository: () => UserRepository })
@@ -23,6 +24,10 @@ export class User {
 
   @Property({ type: 'boolean' })
   isAdmin: boolean & Opt = false;
+
+  /** E-mail notice kinds this user turned off; everything else is sent. */
+  @Property({ type: 'json' })
+  noticeOptOuts: NoticeKind[] & Opt = [];
 
   @Property({ type: 'datetime' })
   createdAt: Date & Opt = new Date();
