@@ -34,6 +34,11 @@ export interface TestApp {
   post(url: string): request.Test;
   /** Messages caught for one recipient, waiting up to 5 s for at least `atLeast` of them. */
   mailTo(email: string, atLeast?: number): Promise<CaughtMessage[]>;
+  /**
+   * The newest message to one recipient whose subject starts with `subjectStart`, waiting up to 5 s:
+   * notices leave after the request has answered.
+   */
+  mailAbout(email: string, subjectStart: string): Promise<CaughtMessage>;
   createTeam(name?: string): Promise<Team>;
   createUser(options?: {
     teams?: Array<{ team: Team; roles: TeamRole[] }>;
@@ -118,6 +123,16 @@ export async function bootTestApp(overrides: Record<string, string> = {}): Promi
         const all = (await response.json()) as CaughtMessage[];
         const mine = all.filter((m) => m.to.some((to) => to.toLowerCase().includes(email.toLowerCase())));
         if (mine.length >= atLeast || Date.now() > deadline) return mine;
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+    },
+    async mailAbout(email, subjectStart) {
+      const deadline = Date.now() + 5000;
+      for (;;) {
+        const mine = await testApp.mailTo(email, 0);
+        const found = mine.filter((m) => m.subject.startsWith(subjectStart)).at(-1);
+        if (found) return found;
+        if (Date.now() > deadline) throw new Error(`no e-mail "${subjectStart}…" to ${email} within 5 s`);
         await new Promise((resolve) => setTimeout(resolve, 100));
       }
     },

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type AppConfig, loadConfig } from '../../src/config/app-config';
 import { ormOptions } from '../../src/database/orm-options';
 import { DEMO_PASSWORD, DEMO_TEAM_NAME, DEMO_USERS, seedDatabase } from '../../src/database/seed';
+import { OccultationEvent } from '../../src/events/entities/occultation-event.entity';
 import { Membership } from '../../src/teams/entities/membership.entity';
 import { Team } from '../../src/teams/entities/team.entity';
 import { User } from '../../src/users/entities/user.entity';
@@ -17,6 +18,8 @@ async function inEmptiedDatabase(orm: MikroORM, check: (em: EntityManager) => Pr
   await em.begin();
   try {
     await em.nativeDelete(User, {});
+    // Events first: a body with events cannot be deleted (the key says so), not even by a team's cascade.
+    await em.nativeDelete(OccultationEvent, {});
     await em.nativeDelete(Team, {});
     await check(em);
   } finally {

@@ -55,15 +55,19 @@ export async function createWorkspace(t: TestApp): Promise<Workspace> {
   };
 }
 
+/**
+ * Imports an event file as the workspace's coordinator. Without `bodyName` the event goes to the team's
+ * only body (an "Unassigned" one made on the first import).
+ */
 export async function importExample(
   t: TestApp,
   w: Workspace,
   file: Record<string, unknown> = exampleEvent(),
+  options: { bodyName?: string } = {},
 ): Promise<string> {
-  const response = await t
-    .post('/api/events/import')
-    .set(w.auth('coordinator'))
-    .field('teamId', w.team.id)
+  const form = t.post('/api/events/import').set(w.auth('coordinator')).field('teamId', w.team.id);
+  if (options.bodyName !== undefined) void form.field('bodyName', options.bodyName);
+  const response = await form
     .attach('file', Buffer.from(JSON.stringify(file)), {
       filename: 'event.json',
       contentType: 'application/json',

@@ -114,8 +114,9 @@ describe('fit exports with the event body context', () => {
   beforeAll(async () => {
     t = await bootTestApp();
     w = await createWorkspace(t);
+    // Physical parameters belong to the body: the event without them observes another body.
     const eventWith = await importExample(t, w);
-    const eventWithout = await importExample(t, w);
+    const eventWithout = await importExample(t, w, exampleEvent(), { bodyName: 'Body without parameters' });
     await request(t.app.getHttpServer() as Server)
       .put(`/api/events/${eventWith}/dynamics`)
       .set('X-Forwarded-For', t.address)

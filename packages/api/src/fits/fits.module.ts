@@ -7,7 +7,6 @@ import {
 } from '@nestjs/common';
 import { AuditModule } from '../audit/audit.module';
 import { EventsModule } from '../events/events.module';
-import { MailModule } from '../mail/mail.module';
 import { QueueModule } from '../queue/queue.module';
 import { TeamScopeRegistry } from '../teams/team-scope.registry';
 import { TeamsModule } from '../teams/teams.module';
@@ -18,7 +17,7 @@ import { FitsService } from './fits.service';
 
 /** The API side of fits: submit, read, stream. The worker side is FitsWorkerModule. */
 @Module({
-  imports: [TeamsModule, EventsModule, AuditModule, MailModule, QueueModule],
+  imports: [TeamsModule, EventsModule, AuditModule, QueueModule],
   controllers: [FitsController],
   providers: [FitsService],
   exports: [FitsService],
