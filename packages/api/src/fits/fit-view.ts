@@ -11,6 +11,10 @@ export interface FitView {
   solution: Solution | null;
   options: Record<string, unknown>;
   inputSha256: string;
+  /** SHA-256 of the event data the fit ran on (eventDataSha256). */
+  dataSha256: string;
+  /** False when the event's data changed since: the fit is based on older data. */
+  inputMatchesEvent: boolean;
   engineVersion: string;
   seed: number;
   createdBy: { id: string; name: string };
@@ -21,7 +25,8 @@ export interface FitView {
 
 export type FitSummaryView = Omit<FitView, 'solution'>;
 
-export function fitSummaryView(f: FitRun): FitSummaryView {
+/** `currentDataSha256` is the event's data hash now (EventsService.detail(...).dataSha256). */
+export function fitSummaryView(f: FitRun, currentDataSha256: string): FitSummaryView {
   return {
     id: f.id,
     eventId: f.event.id,
@@ -31,6 +36,8 @@ export function fitSummaryView(f: FitRun): FitSummaryView {
     error: f.error,
     options: f.options,
     inputSha256: f.inputSha256,
+    dataSha256: f.dataSha256,
+    inputMatchesEvent: f.dataSha256 === currentDataSha256,
     engineVersion: f.engineVersion,
     seed: f.seed,
     createdBy: { id: f.createdBy.id, name: f.createdBy.name },
@@ -40,6 +47,6 @@ export function fitSummaryView(f: FitRun): FitSummaryView {
   };
 }
 
-export function fitView(f: FitRun): FitView {
-  return { ...fitSummaryView(f), solution: f.solution };
+export function fitView(f: FitRun, currentDataSha256: string): FitView {
+  return { ...fitSummaryView(f, currentDataSha256), solution: f.solution };
 }

@@ -120,7 +120,8 @@ export class FitsService {
   }
 
   async get(fitId: string): Promise<FitView> {
-    return fitView(await this.find(fitId, true));
+    const fit = await this.find(fitId, true);
+    return fitView(fit, (await this.events.detail(fit.event.id)).dataSha256);
   }
 
   async list(eventId: string): Promise<FitSummaryView[]> {
@@ -130,7 +131,8 @@ export class FitsService {
       { event },
       { populate: ['createdBy'], orderBy: { createdAt: 'desc', id: 'desc' } },
     );
-    return fits.map(fitSummaryView);
+    const current = (await this.events.detail(eventId)).dataSha256;
+    return fits.map((f) => fitSummaryView(f, current));
   }
 
   /** Server-sent events: `progress` and `state` as the row changes; ends once solved or failed. */
