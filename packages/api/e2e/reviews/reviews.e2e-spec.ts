@@ -52,9 +52,14 @@ describe('review and sign-off of fits', () => {
     const id = await solvedFit(w.tokens.modeller);
     await t.post(`/api/fits/${id}/reviews`).set(w.auth('reviewer')).send({ decision: 'approve' }).expect(409);
     await t.post(`/api/fits/${id}/review-request`).set(w.auth('coordinator')).expect(403);
-    await t.post(`/api/fits/${id}/review-request`).set(w.auth('modeller')).expect(200);
+    await t
+      .post(`/api/fits/${id}/review-request`)
+      .set(w.auth('modeller'))
+      .send({ message: 'Limb now with the clock offset of the second station fitted.' })
+      .expect(200);
     const asked = await t.mailAbout(reviewerEmail, 'Review requested');
     expect(asked.text).toContain(`/events/${eventId}/fits/${id}`);
+    expect(asked.text).toContain('clock offset of the second station fitted');
     await t.post(`/api/fits/${id}/reviews`).set(w.auth('modeller')).send({ decision: 'approve' }).expect(403);
     const noComment = await t
       .post(`/api/fits/${id}/reviews`)
@@ -85,8 +90,14 @@ describe('review and sign-off of fits', () => {
       .send({ decision: 'return', comment: 'x' })
       .expect(409);
     const list = await t.get(`/api/fits/${id}/reviews`).set(w.auth('observer')).expect(200);
-    expect((list.body as Array<{ decision: string }>).map((r) => r.decision)).toEqual(['return', 'approve']);
-    expect(await t.orm.em.fork().count(Review, { fit: id })).toBe(2);
+    const entries = list.body as Array<{ decision: string; comment: string; reviewer: { id: string } }>;
+    expect(entries.map((r) => r.decision)).toEqual(['request', 'return', 'request', 'approve']);
+    expect(entries[0]).toMatchObject({
+      comment: 'Limb now with the clock offset of the second station fitted.',
+      reviewer: { id: w.userIds.modeller },
+    });
+    expect(entries[2]?.comment).toBe('');
+    expect(await t.orm.em.fork().count(Review, { fit: id })).toBe(4);
     await t.mailAbout(authorEmail, 'Fit approved');
   });
 
@@ -100,5 +111,52 @@ describe('review and sign-off of fits', () => {
       .expect(403);
     expect((own.body as { message: string }).message).toBe('A fit cannot be reviewed by its own author');
     await t.post(`/api/fits/${id}/reviews`).set(w.auth('outsider')).send({ decision: 'approve' }).expect(404);
+  });
+
+  it('GET /api/events/:eventId/reviews keeps the history of an earlier fit after a re-run', async () => {
+    const first = await solvedFit(w.tokens.modeller);
+    await t.post(`/api/fits/${first}/review-request`).set(w.auth('modeller')).expect(200);
+    await t
+      .post(`/api/fits/${first}/reviews`)
+      .set(w.auth('reviewer'))
+      .send({ decision: 'return', comment: 'add the negative chord of the northern station' })
+      .expect(201);
+    const second = await solvedFit(w.tokens.modeller);
+    await t
+      .post(`/api/fits/${second}/review-request`)
+      .set(w.auth('modeller'))
+      .send({ message: 'negative added' })
+      .expect(200);
+    const history = await t.get(`/api/events/${eventId}/reviews`).set(w.auth('observer')).expect(200);
+    const entries = history.body as Array<{
+      fitId: string;
+      fitCreatedAt: string;
+      decision: string;
+      comment: string;
+    }>;
+    const ofRun = (fitId: string) =>
+      entries.filter((e) => e.fitId === fitId).map((e) => [e.decision, e.comment]);
+    expect(ofRun(first)).toEqual([
+      ['request', ''],
+      ['return', 'add the negative chord of the northern station'],
+    ]);
+    expect(ofRun(second)).toEqual([['request', 'negative added']]);
+    const stored = await t.orm.em.fork().findOneOrFail(FitRun, { id: first });
+    expect(entries.find((e) => e.fitId === first)?.fitCreatedAt).toBe(stored.createdAt.toISOString());
+    await t.get(`/api/events/${eventId}/reviews`).set(w.auth('outsider')).expect(404);
+    await t.get(`/api/events/${eventId}/reviews`).expect(401);
+  });
+
+  it('POST /api/fits/:fitId/review-request refuses a message with control characters, naming the field', async () => {
+    const id = await solvedFit(w.tokens.modeller);
+    const response = await t
+      .post(`/api/fits/${id}/review-request`)
+      .set(w.auth('modeller'))
+      .send({ message: 'look \u001b[31mhere' })
+      .expect(400);
+    expect((response.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path)).toEqual([
+      'message',
+    ]);
+    expect((await t.orm.em.fork().findOneOrFail(FitRun, { id })).reviewState).toBe('none');
   });
 });

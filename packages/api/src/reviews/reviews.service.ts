@@ -1,30 +1,24 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
-import type { ReviewDecisionPayload } from '@limbus/schema';
+import type { ReviewDecisionPayload, ReviewEntry, ReviewRequestPayload } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
-import { ConflictError, ForbiddenError } from '../common/domain-errors';
+import { ConflictError, ForbiddenError, NotFoundError } from '../common/domain-errors';
 import { FitRun, type ReviewState } from '../fits/entities/fit-run.entity';
 import { fitLinkPath } from '../fits/fit-link';
 import { NoticesService } from '../mail/notices.service';
 import { FitsService } from '../fits/fits.service';
 import { Membership } from '../teams/entities/membership.entity';
 import { User } from '../users/entities/user.entity';
-import { Review, type ReviewDecision } from './entities/review.entity';
+import { OccultationEvent } from '../events/entities/occultation-event.entity';
+import { Review } from './entities/review.entity';
 
-export interface ReviewView {
-  id: string;
-  fitId: string;
-  decision: ReviewDecision;
-  comment: string;
-  reviewer: { id: string; name: string };
-  createdAt: string;
-}
-
-function reviewView(r: Review): ReviewView {
+/** A request (by the fit's author, with their message), an approval or a return (with the comment). */
+function reviewEntry(r: Review): ReviewEntry {
   return {
     id: r.id,
     fitId: r.fit.id,
+    fitCreatedAt: r.fit.createdAt.toISOString(),
     decision: r.decision,
     comment: r.comment,
     reviewer: { id: r.reviewer.id, name: r.reviewer.name },
@@ -42,7 +36,12 @@ export class ReviewsService {
     private readonly notices: NoticesService,
   ) {}
 
-  async requestReview(user: AuthUser, fitId: string): Promise<{ id: string; reviewState: ReviewState }> {
+  /** The request is kept in the review history with the author's message, so reviewers see why. */
+  async requestReview(
+    user: AuthUser,
+    fitId: string,
+    body: ReviewRequestPayload,
+  ): Promise<{ id: string; reviewState: ReviewState }> {
     const fit = await this.fits.find(fitId);
     if (fit.createdBy.id !== user.id)
       throw new ForbiddenError('Only the author of a fit can send it for review');
@@ -57,6 +56,7 @@ export class ReviewsService {
       { reviewState: 'in_review' },
     );
     if (moved === 0) throw new ConflictError('The fit changed meanwhile; reload it');
+    this.em.persist(new Review(fit, this.em.getReference(User, user.id), 'request', body.message));
     this.audit.record(this.em, {
       teamId: fit.event.team.id,
       eventId: fit.event.id,
@@ -64,6 +64,7 @@ export class ReviewsService {
       action: 'fit.review-request',
       objectType: 'fit',
       objectId: fit.id,
+      ...(body.message === '' ? {} : { detail: { message: body.message } }),
     });
     await this.em.flush();
     const members = await this.em.find(Membership, { team: fit.event.team.id });
@@ -71,13 +72,16 @@ export class ReviewsService {
       kind: 'review-requested',
       to: members.filter((m) => m.roles.includes('reviewer') && m.user.id !== user.id).map((m) => m.user.id),
       subject: `Review requested: ${fit.event.title}`,
-      lines: [`${fit.createdBy.name} asks you to review a fit of "${fit.event.title}".`],
+      lines: [
+        `${fit.createdBy.name} asks you to review a fit of "${fit.event.title}".`,
+        ...(body.message === '' ? [] : [`Message: ${body.message}`]),
+      ],
       link: { path: fitLinkPath(fit.event.id, fit.id), label: 'Open the fit' },
     });
     return { id: fit.id, reviewState: 'in_review' };
   }
 
-  async decide(user: AuthUser, fitId: string, body: ReviewDecisionPayload): Promise<ReviewView> {
+  async decide(user: AuthUser, fitId: string, body: ReviewDecisionPayload): Promise<ReviewEntry> {
     const fit = await this.fits.find(fitId);
     if (fit.createdBy.id === user.id) throw new ForbiddenError('A fit cannot be reviewed by its own author');
     if (fit.reviewState !== 'in_review') throw new ConflictError('The fit is not waiting for review');
@@ -114,18 +118,30 @@ export class ReviewsService {
       ],
       link: { path: fitLinkPath(fit.event.id, fit.id), label: 'Open the fit' },
     });
-    return reviewView(
+    return reviewEntry(
       await this.em.findOneOrFail(Review, { id: review.id }, { populate: ['reviewer', 'fit'] }),
     );
   }
 
-  async list(fitId: string): Promise<ReviewView[]> {
+  async list(fitId: string): Promise<ReviewEntry[]> {
     const fit = await this.fits.find(fitId);
     const reviews = await this.em.find(
       Review,
       { fit },
       { populate: ['reviewer', 'fit'], orderBy: { createdAt: 'asc', id: 'asc' } },
     );
-    return reviews.map(reviewView);
+    return reviews.map(reviewEntry);
+  }
+
+  /** Every fit's history of one event, oldest first: a re-run keeps the earlier reviews in sight. */
+  async listForEvent(eventId: string): Promise<ReviewEntry[]> {
+    const event = await this.em.findOne(OccultationEvent, { id: eventId, state: 'active' });
+    if (!event) throw new NotFoundError();
+    const reviews = await this.em.find(
+      Review,
+      { fit: { event } },
+      { populate: ['reviewer', 'fit'], orderBy: { createdAt: 'asc', id: 'asc' } },
+    );
+    return reviews.map(reviewEntry);
   }
 }
