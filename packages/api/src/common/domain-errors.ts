@@ -32,8 +32,19 @@ export class ForbiddenError extends DomainError {
   }
 }
 
+/**
+ * A 409. `code` names a conflict the client handles on its own (e.g. `replaces-better-timing`, which it
+ * answers by asking the person and repeating the request), and `detail` carries what the client shows.
+ */
 export class ConflictError extends DomainError {
   readonly statusCode = 409;
+  constructor(
+    message: string,
+    readonly code?: string,
+    readonly detail?: unknown,
+  ) {
+    super(message);
+  }
 }
 
 export class ValidationError extends DomainError {

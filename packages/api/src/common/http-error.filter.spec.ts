@@ -40,6 +40,26 @@ describe('toErrorBody', () => {
     });
   });
 
+  it('toErrorBody() sends the code and detail of a named conflict, and neither for a plain one', () => {
+    const detail = { chordId: 'c1', current: { disappearance: null } };
+    expect(
+      toErrorBody(new ConflictError('would replace timed values', 'replaces-better-timing', detail)),
+    ).toEqual({
+      statusCode: 409,
+      error: 'Conflict',
+      message: 'would replace timed values',
+      code: 'replaces-better-timing',
+      detail: { chordId: 'c1', current: { disappearance: null } },
+    });
+    expect(toErrorBody(new ConflictError('taken', 'name-taken'))).toEqual({
+      statusCode: 409,
+      error: 'Conflict',
+      message: 'taken',
+      code: 'name-taken',
+    });
+    expect(toErrorBody(new ConflictError('Already there'))).not.toHaveProperty('code');
+  });
+
   it('toErrorBody() words an unknown route without echoing it, but keeps other 404 messages', () => {
     expect(toErrorBody(new NotFoundException('Cannot GET /api/<script>')).message).toBe('No such route');
     expect(toErrorBody(new NotFoundException('Event not found')).message).toBe('Event not found');

@@ -1,12 +1,21 @@
 import { ArgumentsHost, Catch, ExceptionFilter, HttpException, HttpStatus, Logger } from '@nestjs/common';
 import type { Response } from 'express';
-import { DomainError, type FieldIssue, TooManyRequestsError, ValidationError } from './domain-errors';
+import {
+  ConflictError,
+  DomainError,
+  type FieldIssue,
+  TooManyRequestsError,
+  ValidationError,
+} from './domain-errors';
 
 export interface ErrorBody {
   statusCode: number;
   error: string;
   message: string;
   issues?: FieldIssue[];
+  /** A conflict the client handles by name, with what it shows (see ConflictError). */
+  code?: string;
+  detail?: unknown;
 }
 
 /** Reason phrases by code, taken from Nest's own HttpStatus names (e.g. NOT_FOUND -> "Not Found"). */
@@ -50,6 +59,15 @@ export function toErrorBody(exception: unknown): ErrorBody {
       error: reasonPhrase(400),
       message: exception.message,
       issues: exception.issues,
+    };
+  }
+  if (exception instanceof ConflictError && exception.code !== undefined) {
+    return {
+      statusCode: 409,
+      error: reasonPhrase(409),
+      message: exception.message,
+      code: exception.code,
+      ...(exception.detail === undefined ? {} : { detail: exception.detail }),
     };
   }
   if (exception instanceof DomainError) {
