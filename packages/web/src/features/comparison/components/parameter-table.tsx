@@ -10,7 +10,8 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { ComparisonFit, ValueSigma } from '../api/get-comparison';
-import { fitColour, formatValueSigma } from '../format';
+import { fitColour } from '../format';
+import { formatValueSigma } from '@/lib/value-sigma';
 
 const useStyles = makeStyles({
   scroll: { overflowX: 'auto' },
