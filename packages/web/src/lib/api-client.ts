@@ -2,7 +2,9 @@ import { z } from 'zod';
 
 // The single door to the API. The access token lives only in memory (never in storage, so an injected
 // script cannot lift it from there); the refresh token is an httpOnly cookie the browser sends to
-// /api/auth on its own.
+// /api/auth on its own. Beside it the server sets `limbus_session=1`, readable here and carrying no
+// secret: it only says whether a refresh is worth trying, so a signed-out visit sends nothing that would
+// be refused, and a reload refreshes before its first request instead of after a 401.
 
 export interface ApiIssue {
   path: string;
@@ -41,10 +43,23 @@ export function hasAccessToken(): boolean {
   return accessToken !== null;
 }
 
-/** For EventSource, which cannot send headers: the server reads the token from the query string. */
-export function currentAccessToken(): string | null {
-  return accessToken;
+const SESSION_HINT_NAME = 'limbus_session';
+
+/** Whether the server's session hint cookie is present, i.e. the refresh cookie is likely still valid. */
+export function hasSessionHint(): boolean {
+  return document.cookie.split(';').some((cookie) => cookie.trim() === `${SESSION_HINT_NAME}=1`);
 }
+
+/**
+ * Drops the hint on this side too, for a sign-out whose server call failed: the user asked to leave, so
+ * a reload must not bring the session back.
+ */
+export function forgetSessionHint(): void {
+  document.cookie = `${SESSION_HINT_NAME}=; Max-Age=0; Path=/; SameSite=Strict`;
+}
+
+/** The answer to a request that needs a session when there is none; decided here, never sent. */
+export const SIGN_IN_REQUIRED = 'Sign-in required';
 
 export interface RequestOptions<T> {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -53,6 +68,11 @@ export interface RequestOptions<T> {
   /** Validates the response body; omit for responses without one (204). */
   schema?: z.ZodType<T>;
   signal?: AbortSignal;
+  /**
+   * A route open to anyone (sign-in, password reset, an invitation link): sent even without a session,
+   * and a 401 from it is its answer (a wrong password), not an expired token to refresh.
+   */
+  anonymous?: boolean;
 }
 
 async function toApiError(response: Response): Promise<ApiError> {
@@ -125,17 +145,29 @@ export function refreshAccessToken(): Promise<boolean> {
   return refreshInFlight;
 }
 
-// Requests that must not trigger a refresh: they either are the refresh or establish a session themselves.
-const NO_REFRESH_PATHS = ['/api/auth/login', '/api/auth/refresh', '/api/auth/logout'];
+/**
+ * Sends a request that needs a session. Without a token in memory it refreshes first when the hint
+ * cookie says there is a session, and otherwise answers 401 itself; a 401 from the server (an expired
+ * token) gets one refresh and one retry.
+ */
+async function sendSignedIn(
+  path: string,
+  method: string,
+  body: unknown,
+  signal: AbortSignal | undefined,
+): Promise<Response> {
+  if (accessToken === null && !(hasSessionHint() && (await refreshAccessToken())))
+    throw new ApiError(401, SIGN_IN_REQUIRED);
+  const response = await send(path, method, body, signal);
+  if (response.status === 401 && (await refreshAccessToken())) return send(path, method, body, signal);
+  return response;
+}
 
 export async function apiRequest<T = void>(path: string, options: RequestOptions<T> = {}): Promise<T> {
   const method = options.method ?? 'GET';
-  let response = await send(path, method, options.body, options.signal);
-  if (response.status === 401 && !NO_REFRESH_PATHS.includes(path)) {
-    if (await refreshAccessToken()) {
-      response = await send(path, method, options.body, options.signal);
-    }
-  }
+  const response = options.anonymous
+    ? await send(path, method, options.body, options.signal)
+    : await sendSignedIn(path, method, options.body, options.signal);
   if (!response.ok) throw await toApiError(response);
   if (options.schema === undefined) return undefined as T;
   const json: unknown = await response.json();
@@ -157,10 +189,7 @@ export async function apiBlob(
   path: string,
   options: { method?: 'GET' | 'POST'; body?: unknown; signal?: AbortSignal } = {},
 ): Promise<Blob> {
-  const method = options.method ?? 'GET';
-  let response = await send(path, method, options.body, options.signal);
-  if (response.status === 401 && (await refreshAccessToken()))
-    response = await send(path, method, options.body, options.signal);
+  const response = await sendSignedIn(path, options.method ?? 'GET', options.body, options.signal);
   if (!response.ok) throw await toApiError(response);
   return response.blob();
 }

@@ -1,6 +1,6 @@
 import { QueryClient, QueryObserver } from '@tanstack/react-query';
 import { afterEach, describe, expect, it } from 'vitest';
-import { hasAccessToken, setAccessToken } from './api-client';
+import { hasAccessToken, hasSessionHint, setAccessToken } from './api-client';
 import { endSession, startSession } from './session';
 
 afterEach(() => setAccessToken(null));
@@ -19,12 +19,14 @@ describe('session', () => {
     unsubscribe();
   });
 
-  it('endSession() drops the token and every cached query', () => {
+  it('endSession() drops the token, the session cookie and every cached query', () => {
     const client = new QueryClient();
     setAccessToken('token-1');
+    document.cookie = 'limbus_session=1; Path=/';
     client.setQueryData(['me'], { name: 'someone' });
     endSession(client);
     expect(hasAccessToken()).toBe(false);
+    expect(hasSessionHint()).toBe(false);
     expect(client.getQueryCache().getAll()).toHaveLength(0);
   });
 });

@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { setAccessToken } from './api-client';
+import { forgetSessionHint, setAccessToken } from './api-client';
 
 // Sign-in and accepting an invitation both end in a new session; they share this so neither feature has
 // to import the other.
@@ -16,5 +16,6 @@ export function startSession(queryClient: QueryClient, accessToken: string): voi
 
 export function endSession(queryClient: QueryClient): void {
   setAccessToken(null);
+  forgetSessionHint();
   queryClient.clear();
 }

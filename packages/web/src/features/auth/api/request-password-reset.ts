@@ -7,7 +7,7 @@ export const requestPasswordResetInputSchema = z.object({ email: z.email('Enter 
 export type RequestPasswordResetInput = z.infer<typeof requestPasswordResetInputSchema>;
 
 export function requestPasswordReset(input: RequestPasswordResetInput): Promise<void> {
-  return apiRequest('/api/auth/password-reset', { method: 'POST', body: input });
+  return apiRequest('/api/auth/password-reset', { method: 'POST', body: input, anonymous: true });
 }
 
 export function useRequestPasswordReset() {

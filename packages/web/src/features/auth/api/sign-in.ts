@@ -11,7 +11,12 @@ export const signInInputSchema = z.object({
 export type SignInInput = z.infer<typeof signInInputSchema>;
 
 export function signIn(input: SignInInput): Promise<z.infer<typeof sessionResponseSchema>> {
-  return apiRequest('/api/auth/login', { method: 'POST', body: input, schema: sessionResponseSchema });
+  return apiRequest('/api/auth/login', {
+    method: 'POST',
+    body: input,
+    schema: sessionResponseSchema,
+    anonymous: true,
+  });
 }
 
 export function useSignIn(onSignedIn?: () => void) {

@@ -3,7 +3,8 @@ import { apiRequest } from '@/lib/api-client';
 import { endSession } from '@/lib/session';
 
 export function signOut(): Promise<void> {
-  return apiRequest('/api/auth/logout', { method: 'POST' });
+  // Anonymous: the refresh cookie is what the server revokes, and a page without a token may sign out.
+  return apiRequest('/api/auth/logout', { method: 'POST', anonymous: true });
 }
 
 export function useSignOut(onSignedOut?: () => void) {

@@ -1,9 +1,12 @@
 import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { SignInForm } from './sign-in-form';
 import { hasAccessToken, setAccessToken } from '@/lib/api-client';
 import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-utils';
+
+// The sign-in page is seen signed out.
+beforeEach(() => setAccessToken(null));
 
 afterEach(() => {
   vi.unstubAllGlobals();

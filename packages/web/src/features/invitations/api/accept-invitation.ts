@@ -17,6 +17,7 @@ export function acceptInvitation(token: string, input: AcceptInvitationInput) {
     method: 'POST',
     body: input,
     schema: sessionResponseSchema,
+    anonymous: true,
   });
 }
 

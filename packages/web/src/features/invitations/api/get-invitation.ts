@@ -12,7 +12,11 @@ export const invitationSchema = z.object({
 export type Invitation = z.infer<typeof invitationSchema>;
 
 export function getInvitation(token: string, signal?: AbortSignal): Promise<Invitation> {
-  return apiRequest(`/api/invitations/${encodeURIComponent(token)}`, { schema: invitationSchema, signal });
+  return apiRequest(`/api/invitations/${encodeURIComponent(token)}`, {
+    schema: invitationSchema,
+    signal,
+    anonymous: true,
+  });
 }
 
 export function invitationQueryOptions(token: string) {
