@@ -1,3 +1,4 @@
+import { lineText, TEXT_LIMITS } from '@limbus/schema/text';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
@@ -5,13 +6,27 @@ import { apiRequest } from '@/lib/api-client';
 const numberIn = (min: number, max: number, message: string) =>
   z.number({ error: message }).min(min, message).max(max, message);
 
+const positiveOrNone = (what: string, unit: string) =>
+  z
+    .number({ error: `${what} must be a number (${unit})` })
+    .positive(`${what} must be greater than zero`)
+    .nullable();
+
+const detailOrNone = (what: string) => lineText(TEXT_LIMITS.stationDetail, what).nullable();
+
 // The event file's station limits (docs/file-formats.md, "Event file"); longitudes are east-positive.
+// The observer is a member of the team (`observerId`) or, for someone without an account, a name.
 export const stationInputSchema = z.object({
-  code: z.string().trim().min(1, 'station id must not be empty').max(100, 'at most 100 characters'),
+  code: lineText(TEXT_LIMITS.stationCode, 'station id'),
   latDeg: numberIn(-90, 90, 'latitude must be within ±90°'),
   lonDeg: numberIn(-180, 180, 'longitude must be within ±180° (east positive)'),
   heightM: z.number({ error: 'height must be a number (metres above the ellipsoid)' }),
-  observerName: z.string().trim().max(200, 'at most 200 characters').nullable(),
+  observerId: z.string().min(1).nullable(),
+  observerName: detailOrNone('observer name'),
+  apertureMm: positiveOrNone('aperture', 'millimetres'),
+  camera: detailOrNone('camera'),
+  exposureSeconds: positiveOrNone('exposure', 'seconds'),
+  timeSource: detailOrNone('time source'),
 });
 
 export type StationInput = z.infer<typeof stationInputSchema>;

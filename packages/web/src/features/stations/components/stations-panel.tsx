@@ -1,8 +1,11 @@
 import {
   Body1,
   Button,
-  Field,
-  Input,
+  Dialog,
+  DialogBody,
+  DialogContent,
+  DialogSurface,
+  DialogTitle,
   makeStyles,
   Table,
   TableBody,
@@ -12,104 +15,131 @@ import {
   TableRow,
   tokens,
 } from '@fluentui/react-components';
-import { useState, type FormEvent } from 'react';
-import { stationInputSchema, useCreateStation } from '../api/create-station';
+import { useState } from 'react';
+import { useCreateStation } from '../api/create-station';
 import { useDeleteStation } from '../api/delete-station';
+import { useTeamMembers, type TeamMember } from '../api/get-team-members';
+import { useUpdateStation } from '../api/update-station';
+import { StationForm, type StationRow } from './station-form';
 import { FormError } from '@/components/form-error';
-import { errorMessage, fieldErrorsFromApi, type FieldErrors } from '@/components/form-errors';
+import { errorMessage, fieldErrorsFromApi } from '@/components/form-errors';
+import { ScrollArea } from '@/components/scroll-area';
+
+export type { StationRow } from './station-form';
 
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
-  form: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'start' },
   number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end' },
-  scroll: { overflowX: 'auto' },
+  actions: { display: 'flex', gap: tokens.spacingHorizontalXS },
 });
 
-export interface StationRow {
-  id: string;
-  code: string;
-  latDeg: number;
-  lonDeg: number;
-  heightM: number;
-  observerName?: string | null;
+/** The observer as the table names them: the member's name, or the typed name of someone without an account. */
+function observerText(station: StationRow, members: TeamMember[] | undefined): string {
+  if (station.observerId) {
+    const member = members?.find((m) => m.userId === station.observerId);
+    return member?.name ?? station.observerName ?? 'a team member';
+  }
+  return station.observerName ? `${station.observerName} (no account)` : '—';
 }
 
-const numberOf = (text: string) => (text.trim() === '' ? Number.NaN : Number(text));
+const orDash = (value: string | number | null | undefined) => (value == null ? '—' : String(value));
 
-function AddStation({ eventId }: { eventId: string }) {
-  const styles = useStyles();
-  const [fields, setFields] = useState({ code: '', lat: '', lon: '', height: '', observer: '' });
-  const [errors, setErrors] = useState<FieldErrors>({});
+/** A form-level message only when the refusal names no field the form shows. */
+function unnamedError(error: unknown): boolean {
+  return error !== null && Object.keys(fieldErrorsFromApi(error)).length === 0;
+}
+
+function AddStation({ eventId, members }: { eventId: string; members: TeamMember[] | undefined }) {
   const create = useCreateStation(eventId);
-  const shown = { ...fieldErrorsFromApi(create.error), ...errors };
-  const set = (key: keyof typeof fields, value: string) => setFields((f) => ({ ...f, [key]: value }));
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = stationInputSchema.safeParse({
-      code: fields.code,
-      latDeg: numberOf(fields.lat),
-      lonDeg: numberOf(fields.lon),
-      heightM: numberOf(fields.height),
-      observerName: fields.observer.trim() === '' ? null : fields.observer,
-    });
-    if (!parsed.success) {
-      const next: FieldErrors = {};
-      for (const issue of parsed.error.issues) next[String(issue.path[0])] ??= issue.message;
-      setErrors(next);
-      return;
-    }
-    setErrors({});
-    create.mutate(parsed.data, {
-      onSuccess: () => setFields({ code: '', lat: '', lon: '', height: '', observer: '' }),
-    });
-  };
-
   return (
-    <form className={styles.form} onSubmit={submit} noValidate aria-label="Add station">
-      <Field label="Station id" required validationMessage={shown.code}>
-        <Input value={fields.code} onChange={(_, d) => set('code', d.value)} />
-      </Field>
-      <Field label="Latitude (°)" required validationMessage={shown.latDeg}>
-        <Input inputMode="decimal" value={fields.lat} onChange={(_, d) => set('lat', d.value)} />
-      </Field>
-      <Field label="Longitude (°, east positive)" required validationMessage={shown.lonDeg}>
-        <Input inputMode="decimal" value={fields.lon} onChange={(_, d) => set('lon', d.value)} />
-      </Field>
-      <Field label="Height (m)" required validationMessage={shown.heightM}>
-        <Input inputMode="decimal" value={fields.height} onChange={(_, d) => set('height', d.value)} />
-      </Field>
-      <Field label="Observer name" validationMessage={shown.observerName}>
-        <Input value={fields.observer} onChange={(_, d) => set('observer', d.value)} />
-      </Field>
-      <Button type="submit" disabled={create.isPending}>
-        {create.isPending ? 'Adding…' : 'Add station'}
-      </Button>
-      {create.isError ? (
+    <>
+      <StationForm
+        station={null}
+        members={members}
+        formLabel="Add station"
+        submitLabel="Add station"
+        pending={create.isPending}
+        serverError={create.error}
+        onSubmit={(input, reset) => create.mutate(input, { onSuccess: reset })}
+      />
+      {unnamedError(create.error) ? (
         <FormError title="The station was not added" message={errorMessage(create.error)} />
       ) : null}
-    </form>
+    </>
   );
 }
 
-/** The event's stations (WGS84 geodetic, height above the ellipsoid); coordinators add and remove them. */
-export function StationsPanel({
+function EditStation({
   eventId,
-  stations,
-  canEdit,
+  station,
+  members,
+  onClose,
 }: {
   eventId: string;
-  stations: StationRow[];
-  canEdit: boolean;
+  station: StationRow;
+  members: TeamMember[] | undefined;
+  onClose: () => void;
 }) {
+  const update = useUpdateStation(eventId);
+  return (
+    <Dialog open onOpenChange={(_, data) => (data.open ? undefined : onClose())}>
+      <DialogSurface>
+        <DialogBody>
+          <DialogTitle>Edit station {station.code}</DialogTitle>
+          <DialogContent>
+            <StationForm
+              station={station}
+              members={members}
+              formLabel={`Edit station ${station.code}`}
+              submitLabel="Save station"
+              pending={update.isPending}
+              serverError={update.error}
+              onSubmit={(input) => update.mutate({ stationId: station.id, input }, { onSuccess: onClose })}
+              onCancel={onClose}
+            />
+            {unnamedError(update.error) ? (
+              <FormError title="The station was not saved" message={errorMessage(update.error)} />
+            ) : null}
+          </DialogContent>
+        </DialogBody>
+      </DialogSurface>
+    </Dialog>
+  );
+}
+
+export interface StationsPanelProps {
+  eventId: string;
+  /** The event's team, whose members may be chosen as observers. */
+  teamId: string;
+  /** The stations the viewer may see: all of them, or an observer's own. */
+  stations: StationRow[];
+  /** How many stations the event has, when `stations` holds only the viewer's own. */
+  eventStationCount?: number;
+  /** Coordinators add, edit and remove stations. */
+  canEdit: boolean;
+}
+
+function emptyText(eventStationCount: number): string {
+  if (eventStationCount === 0) return 'No stations yet.';
+  if (eventStationCount === 1)
+    return "This event's only station is not assigned to you yet; ask the event's coordinator to assign you one.";
+  return `None of this event's ${eventStationCount} stations is assigned to you yet; ask the event's coordinator to assign you one.`;
+}
+
+/** The event's stations with their observer and equipment; coordinators add, edit and remove them. */
+export function StationsPanel({ eventId, teamId, stations, eventStationCount, canEdit }: StationsPanelProps) {
   const styles = useStyles();
   const remove = useDeleteStation(eventId);
+  const members = useTeamMembers(teamId);
+  const [editing, setEditing] = useState<StationRow | null>(null);
+  // Without the member list a name can still be typed, so a failed load offers an empty list.
+  const memberList = members.data ?? (members.isError ? [] : undefined);
   return (
     <section className={styles.panel} aria-label="Stations">
       {stations.length === 0 ? (
-        <Body1 as="p">No stations yet.</Body1>
+        <Body1 as="p">{emptyText(eventStationCount ?? 0)}</Body1>
       ) : (
-        <div className={styles.scroll}>
+        <ScrollArea label="Stations table">
           <Table aria-label="Stations" size="small">
             <TableHeader>
               <TableRow>
@@ -118,6 +148,10 @@ export function StationsPanel({
                 <TableHeaderCell>Longitude (°E)</TableHeaderCell>
                 <TableHeaderCell>Height (m)</TableHeaderCell>
                 <TableHeaderCell>Observer</TableHeaderCell>
+                <TableHeaderCell>Aperture (mm)</TableHeaderCell>
+                <TableHeaderCell>Camera</TableHeaderCell>
+                <TableHeaderCell>Exposure (s)</TableHeaderCell>
+                <TableHeaderCell>Time source</TableHeaderCell>
                 {canEdit ? <TableHeaderCell>Actions</TableHeaderCell> : null}
               </TableRow>
             </TableHeader>
@@ -128,29 +162,57 @@ export function StationsPanel({
                   <TableCell className={styles.number}>{s.latDeg.toFixed(5)}</TableCell>
                   <TableCell className={styles.number}>{s.lonDeg.toFixed(5)}</TableCell>
                   <TableCell className={styles.number}>{s.heightM.toFixed(0)}</TableCell>
-                  <TableCell>{s.observerName ?? '—'}</TableCell>
+                  <TableCell>{observerText(s, memberList)}</TableCell>
+                  <TableCell className={styles.number}>{orDash(s.apertureMm)}</TableCell>
+                  <TableCell>{orDash(s.camera)}</TableCell>
+                  <TableCell className={styles.number}>{orDash(s.exposureSeconds)}</TableCell>
+                  <TableCell>{orDash(s.timeSource)}</TableCell>
                   {canEdit ? (
                     <TableCell>
-                      <Button
-                        size="small"
-                        aria-label={`Delete station ${s.code}`}
-                        disabled={remove.isPending}
-                        onClick={() => remove.mutate(s.id)}
-                      >
-                        Delete
-                      </Button>
+                      <div className={styles.actions}>
+                        <Button
+                          size="small"
+                          aria-label={`Edit station ${s.code}`}
+                          onClick={() => setEditing(s)}
+                        >
+                          Edit
+                        </Button>
+                        <Button
+                          size="small"
+                          aria-label={`Delete station ${s.code}`}
+                          disabled={remove.isPending}
+                          onClick={() => remove.mutate(s.id)}
+                        >
+                          Delete
+                        </Button>
+                      </div>
                     </TableCell>
                   ) : null}
                 </TableRow>
               ))}
             </TableBody>
           </Table>
-        </div>
+        </ScrollArea>
       )}
       {remove.isError ? (
         <FormError title="The station was not deleted" message={errorMessage(remove.error)} />
       ) : null}
-      {canEdit ? <AddStation eventId={eventId} /> : null}
+      {members.isError && canEdit ? (
+        <FormError
+          title="The team's members could not be loaded"
+          message={`${errorMessage(members.error)}. An observer without an account can still be typed in.`}
+        />
+      ) : null}
+      {canEdit ? <AddStation eventId={eventId} members={memberList} /> : null}
+      {editing !== null ? (
+        <EditStation
+          key={editing.id}
+          eventId={eventId}
+          station={editing}
+          members={memberList}
+          onClose={() => setEditing(null)}
+        />
+      ) : null}
     </section>
   );
 }
