@@ -24,7 +24,7 @@ import { type TimingDefaults, useTimingDefaults } from '../api/get-timing-defaul
 import { useTimings } from '../api/get-timings';
 import { useMarkDip } from '../api/mark-dip';
 import type { TimingDetail, TimingResult } from '../api/timing-schema';
-import { LightCurvePlot } from './light-curve-plot';
+import { LightCurvePlot } from '@/components/light-curve-plot';
 import { FormError } from '@/components/form-error';
 import {
   errorMessage,

@@ -1,10 +1,10 @@
 import { Button, makeStyles, tokens, Toolbar } from '@fluentui/react-components';
 import { axisBottom, axisLeft, line, scaleLinear, select } from 'd3';
 import { useEffect, useMemo, useRef, useState } from 'react';
-import type { TimingResult } from '../api/timing-schema';
 import {
   type Domain,
   fullDomain,
+  type LightCurveFigure,
   panDomain,
   secondsAfter,
   windowAround,
@@ -12,7 +12,8 @@ import {
 } from './light-curve-geometry';
 
 export interface LightCurvePlotProps {
-  result: TimingResult;
+  /** A timing's result, or a raw curve (no model) with the times to mark on it. */
+  result: LightCurveFigure;
   stationLabel: string;
   widthPx?: number;
 }
@@ -39,7 +40,8 @@ function timeOfDay(iso: string): string {
 
 /**
  * The light curve as fitted: samples, the model, residuals below, D and R with their 1-sigma span, and
- * the dips shaded. Zoom and pan are buttons, so a keyboard reaches them; D3 draws, React holds the window.
+ * the dips shaded. A raw curve (no model) is drawn without the model line and the residual panel. Zoom
+ * and pan are buttons, so a keyboard reaches them; D3 draws, React holds the window.
  */
 export function LightCurvePlot({ result, stationLabel, widthPx = 760 }: LightCurvePlotProps) {
   const styles = useStyles();
@@ -60,7 +62,10 @@ export function LightCurvePlot({ result, stationLabel, widthPx = 760 }: LightCur
       ),
     [result, origin],
   );
-  const heightPx = MARGIN.top + FLUX_HEIGHT_PX + GAP_PX + RESIDUAL_HEIGHT_PX + MARGIN.bottom;
+  const fitted = result.series.modelFlux !== null;
+  const heightPx = fitted
+    ? MARGIN.top + FLUX_HEIGHT_PX + GAP_PX + RESIDUAL_HEIGHT_PX + MARGIN.bottom
+    : MARGIN.top + FLUX_HEIGHT_PX + MARGIN.bottom;
 
   useEffect(() => {
     const svgElement = svgRef.current;
@@ -69,17 +74,15 @@ export function LightCurvePlot({ result, stationLabel, widthPx = 760 }: LightCur
     svg.selectAll('*').remove();
     const { timesSeconds, flux, modelFlux } = result.series;
     const visible = timesSeconds
-      .map((t, i) => ({ t, f: flux[i] ?? 0, m: modelFlux[i] ?? 0 }))
+      .map((t, i) => ({ t, f: flux[i] ?? 0, m: modelFlux?.[i] ?? null }))
       .filter((p) => p.t >= domain.fromSeconds && p.t <= domain.toSeconds);
     const innerWidth = widthPx - MARGIN.left - MARGIN.right;
     const x = scaleLinear().domain([domain.fromSeconds, domain.toSeconds]).range([0, innerWidth]);
-    const fluxValues = visible.flatMap((p) => [p.f, p.m]);
+    const fluxValues = visible.flatMap((p) => (p.m === null ? [p.f] : [p.f, p.m]));
     const y = scaleLinear()
       .domain([Math.min(0, ...fluxValues), Math.max(1, ...fluxValues)])
       .nice()
       .range([FLUX_HEIGHT_PX, 0]);
-    const residualLimit = Math.max(1e-6, ...visible.map((p) => Math.abs(p.f - p.m)));
-    const yr = scaleLinear().domain([-residualLimit, residualLimit]).nice().range([RESIDUAL_HEIGHT_PX, 0]);
 
     svg
       .append('defs')
@@ -139,18 +142,8 @@ export function LightCurvePlot({ result, stationLabel, widthPx = 760 }: LightCur
       .attr('cy', (p) => y(p.f))
       .attr('r', 1.8)
       .attr('fill', COLOURS.data);
-    plot
-      .append('path')
-      .attr('class', 'model')
-      .attr('fill', 'none')
-      .attr('stroke', COLOURS.model)
-      .attr('stroke-width', 1.5)
-      .attr(
-        'd',
-        line<{ t: number; m: number }>()
-          .x((p) => x(p.t))
-          .y((p) => y(p.m))(visible) ?? '',
-      );
+    const modelled = visible.flatMap((p) => (p.m === null ? [] : [{ t: p.t, f: p.f, m: p.m }]));
+    const timeAxisLabel = `Time (s after ${timeOfDay(origin)} UTC)`;
 
     top.append('g').attr('transform', `translate(0,${FLUX_HEIGHT_PX})`).call(axisBottom(x).ticks(8));
     top.append('g').call(axisLeft(y).ticks(6));
@@ -161,7 +154,31 @@ export function LightCurvePlot({ result, stationLabel, widthPx = 760 }: LightCur
       .attr('y', -46)
       .attr('text-anchor', 'middle')
       .attr('font-size', 12)
-      .text('Normalised flux');
+      .text(fitted ? 'Normalised flux' : 'Flux (as recorded)');
+    if (!fitted) {
+      top
+        .append('text')
+        .attr('x', innerWidth / 2)
+        .attr('y', FLUX_HEIGHT_PX + 38)
+        .attr('text-anchor', 'middle')
+        .attr('font-size', 12)
+        .text(timeAxisLabel);
+      return;
+    }
+    plot
+      .append('path')
+      .attr('class', 'model')
+      .attr('fill', 'none')
+      .attr('stroke', COLOURS.model)
+      .attr('stroke-width', 1.5)
+      .attr(
+        'd',
+        line<{ t: number; m: number }>()
+          .x((p) => x(p.t))
+          .y((p) => y(p.m))(modelled) ?? '',
+      );
+    const residualLimit = Math.max(1e-6, ...modelled.map((p) => Math.abs(p.f - p.m)));
+    const yr = scaleLinear().domain([-residualLimit, residualLimit]).nice().range([RESIDUAL_HEIGHT_PX, 0]);
 
     const bottom = svg
       .append('g')
@@ -176,7 +193,7 @@ export function LightCurvePlot({ result, stationLabel, widthPx = 760 }: LightCur
       .attr('stroke', tokens.colorNeutralStroke1);
     bottom
       .selectAll('circle.residual')
-      .data(visible)
+      .data(modelled)
       .join('circle')
       .attr('class', 'residual')
       .attr('cx', (p) => x(p.t))
@@ -199,8 +216,8 @@ export function LightCurvePlot({ result, stationLabel, widthPx = 760 }: LightCur
       .attr('y', RESIDUAL_HEIGHT_PX + 38)
       .attr('text-anchor', 'middle')
       .attr('font-size', 12)
-      .text(`Time (s after ${timeOfDay(origin)} UTC)`);
-  }, [result, domain, edges, origin, widthPx]);
+      .text(timeAxisLabel);
+  }, [result, domain, edges, origin, widthPx, fitted]);
 
   const label =
     `Light curve of ${stationLabel}: ${result.series.timesSeconds.length} samples, ` +

@@ -1,10 +1,18 @@
 import { screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
-import { fullDomain, panDomain, secondsAfter, zoomDomain } from './light-curve-geometry';
+import {
+  fullDomain,
+  type LightCurveFigure,
+  panDomain,
+  secondsAfter,
+  zoomDomain,
+} from './light-curve-geometry';
 import { LightCurvePlot } from './light-curve-plot';
-import { TEST_RESULT } from './test-timing';
+import { TEST_DIP, TEST_EDGES, TEST_SERIES } from '@/testing/test-light-curve';
 import { renderWithProviders } from '@/testing/test-utils';
+
+const TEST_RESULT: LightCurveFigure = { ...TEST_EDGES, dips: [TEST_DIP], series: TEST_SERIES };
 
 describe('LightCurvePlot', () => {
   it('secondsAfter() keeps the microseconds that Date.parse drops', () => {
@@ -68,5 +76,24 @@ describe('LightCurvePlot', () => {
     expect(inWindow).toBeLessThan(200);
     await user.click(screen.getByRole('button', { name: 'Show all' }));
     expect(svg.querySelectorAll('circle.sample')).toHaveLength(200);
+  });
+
+  it('LightCurvePlot draws a raw curve without a model as the samples alone, with the times it is given', () => {
+    const raw: LightCurveFigure = {
+      series: { ...TEST_SERIES, modelFlux: null },
+      disappearance: TEST_EDGES.disappearance,
+      reappearance: null,
+      dips: [],
+    };
+    renderWithProviders(<LightCurvePlot result={raw} stationLabel="quillmoor" />);
+    const svg = screen.getByRole('img', { name: /^Light curve of quillmoor: 200 samples, disappearance at/ });
+    expect(svg.querySelectorAll('circle.sample')).toHaveLength(200);
+    expect(svg.querySelector('path.model')).toBeNull();
+    expect(svg.querySelectorAll('circle.residual')).toHaveLength(0);
+    expect(svg.querySelectorAll('.edge')).toHaveLength(1);
+    const labels = [...svg.querySelectorAll('text')].map((t) => t.textContent);
+    expect(labels).toContain('Flux (as recorded)');
+    expect(labels).toContain('Time (s after 02:13:40 UTC)');
+    expect(labels).not.toContain('Residual (flux)');
   });
 });

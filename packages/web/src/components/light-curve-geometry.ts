@@ -1,4 +1,24 @@
-import type { TimingResult } from '../api/timing-schema';
+interface Mark {
+  time: string;
+  sigmaSeconds: number;
+}
+
+/**
+ * What the light-curve plot draws: a timing's result fits this as it is; a raw uploaded curve has no
+ * model (`modelFlux` null) and marks whatever times are known for it.
+ */
+export interface LightCurveFigure {
+  series: {
+    /** ISO UTC time of the first sample; the times below are seconds after it. */
+    originUtc: string;
+    timesSeconds: number[];
+    flux: number[];
+    modelFlux: number[] | null;
+  };
+  disappearance: Mark | null;
+  reappearance: Mark | null;
+  dips: Array<{ start: Mark; end: Mark; marked: boolean }>;
+}
 
 /**
  * Seconds of an ISO UTC time after the series origin. The integer milliseconds of Date.parse are
@@ -17,7 +37,7 @@ export interface Domain {
   toSeconds: number;
 }
 
-export function fullDomain(result: TimingResult): Domain {
+export function fullDomain(result: LightCurveFigure): Domain {
   const t = result.series.timesSeconds;
   return { fromSeconds: t[0] ?? 0, toSeconds: t[t.length - 1] ?? 1 };
 }
