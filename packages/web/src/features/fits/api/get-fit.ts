@@ -1,25 +1,25 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
+import { FIT_STATE_VALUES, fitStatusSchema, REVIEW_STATE_VALUES } from '@limbus/schema/views';
 import { solutionSchema } from './solution-schema';
 import { apiRequest } from '@/lib/api-client';
 
-export const FIT_STATES = ['queued', 'running', 'solved', 'failed'] as const;
-export const REVIEW_STATES = ['none', 'in_review', 'approved', 'returned'] as const;
+export const FIT_STATES = FIT_STATE_VALUES;
+export const REVIEW_STATES = REVIEW_STATE_VALUES;
 export type FitState = (typeof FIT_STATES)[number];
 export type ReviewState = (typeof REVIEW_STATES)[number];
 
 const authorSchema = z.object({ id: z.string(), name: z.string() });
 
-export const fitSummarySchema = z.object({
-  id: z.string(),
-  state: z.enum(FIT_STATES),
-  reviewState: z.enum(REVIEW_STATES).default('none'),
+/** A fit as `GET /api/events/:eventId/fits` lists it: the shared fit status, and who ran it with what. */
+export const fitSummarySchema = fitStatusSchema.extend({
   progress: z.number().default(0),
   error: z.string().nullable().optional(),
   createdBy: authorSchema,
-  createdAt: z.string(),
   finishedAt: z.string().nullable().optional(),
   options: z.record(z.string(), z.unknown()).optional(),
+  /** SHA-256 of the event data the fit ran on; `inputMatchesEvent` compares it with the event's now. */
+  dataSha256: z.string(),
 });
 
 export const fitSchema = fitSummarySchema.extend({ solution: solutionSchema.nullable().optional() });

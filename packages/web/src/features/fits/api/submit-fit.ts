@@ -2,16 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { fitsQueryKey } from './get-fits';
 import { apiRequest } from '@/lib/api-client';
-
-// The limb parameters a fit may hold fixed, as the event file names them (docs/file-formats.md).
-export const LIMB_PARAMETERS = [
-  { key: 'centerFKm', label: 'Centre f', unit: 'km' },
-  { key: 'centerGKm', label: 'Centre g', unit: 'km' },
-  { key: 'equatorialRadiusKm', label: 'Equatorial radius', unit: 'km' },
-  { key: 'oblateness', label: 'Oblateness', unit: '' },
-  { key: 'positionAngleDeg', label: 'Position angle', unit: '°' },
-] as const;
-export type LimbParameterKey = (typeof LIMB_PARAMETERS)[number]['key'];
+import { LIMB_PARAMETERS } from '@/lib/fit-numbers';
 
 const fixedSchema = z
   .object({

@@ -9,15 +9,10 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { useState, type FormEvent } from 'react';
-import {
-  fitOptionsInputSchema,
-  LIMB_PARAMETERS,
-  type FitOptionsInput,
-  type LimbParameterKey,
-} from '../api/submit-fit';
-import { useSubmitFit } from '../api/submit-fit';
+import { fitOptionsInputSchema, type FitOptionsInput, useSubmitFit } from '../api/submit-fit';
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
+import { LIMB_PARAMETERS, type LimbParameterKey } from '@/lib/fit-numbers';
 
 const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '44em' },

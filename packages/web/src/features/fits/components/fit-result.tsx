@@ -15,25 +15,13 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { Solution } from '@limbus/geometry';
-import { LIMB_PARAMETERS, type LimbParameterKey } from '../api/submit-fit';
+import { LIMB_PARAMETERS, readFitOptions } from '@/lib/fit-numbers';
+import { formatValueSigma } from '@/lib/value-sigma';
 
 const useStyles = makeStyles({
   result: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end', whiteSpace: 'nowrap' },
 });
-
-// Decimals by unit: km to 0.1 m would claim more than any occultation measures.
-const DECIMALS: Record<LimbParameterKey, number> = {
-  centerFKm: 2,
-  centerGKm: 2,
-  equatorialRadiusKm: 2,
-  oblateness: 4,
-  positionAngleDeg: 2,
-};
-
-function withSigma(value: number, sigma: number, decimals: number): string {
-  return `${value.toFixed(decimals)} ± ${sigma.toFixed(decimals)}`;
-}
 
 /** A fit's numbers, each with its 1-σ, and what was fixed or assumed to get them. */
 export function FitResult({
@@ -45,8 +33,8 @@ export function FitResult({
 }) {
   const styles = useStyles();
   const limb = solution.limb;
-  const fixed = fixedOf(options);
-  const cautions = cautionsOf(solution, fixed, options);
+  const fixed = readFitOptions(options).fixed ?? {};
+  const cautions = cautionsOf(solution, options);
   return (
     <div className={styles.result}>
       {limb === null ? (
@@ -68,8 +56,8 @@ export function FitResult({
                   <TableCell>{p.label}</TableCell>
                   <TableCell className={styles.number}>
                     {p.key in fixed
-                      ? limb[p.key].toFixed(DECIMALS[p.key])
-                      : withSigma(limb[p.key], limb.uncertainty[p.key], DECIMALS[p.key])}
+                      ? limb[p.key].toFixed(p.decimals)
+                      : formatValueSigma(limb[p.key], limb.uncertainty[p.key])}
                   </TableCell>
                   <TableCell>{p.unit === '' ? '—' : p.unit}</TableCell>
                   <TableCell>{p.key in fixed ? 'fixed' : 'fitted'}</TableCell>
@@ -78,7 +66,7 @@ export function FitResult({
               <TableRow>
                 <TableCell>Equivalent radius</TableCell>
                 <TableCell className={styles.number}>
-                  {withSigma(limb.equivalentRadiusKm, limb.uncertainty.equivalentRadiusKm, 2)}
+                  {formatValueSigma(limb.equivalentRadiusKm, limb.uncertainty.equivalentRadiusKm)}
                 </TableCell>
                 <TableCell>km</TableCell>
                 <TableCell>derived</TableCell>
@@ -86,7 +74,7 @@ export function FitResult({
               {limb.timeOffsets.map((t) => (
                 <TableRow key={t.station}>
                   <TableCell>Clock offset, {t.station}</TableCell>
-                  <TableCell className={styles.number}>{withSigma(t.seconds, t.sigma, 3)}</TableCell>
+                  <TableCell className={styles.number}>{formatValueSigma(t.seconds, t.sigma)}</TableCell>
                   <TableCell>s</TableCell>
                   <TableCell>fitted</TableCell>
                 </TableRow>
@@ -114,9 +102,9 @@ export function FitResult({
         <section key={ring.ring} className={styles.result} aria-label={`Ring ${ring.ring}`}>
           <Subtitle2 as="h4">Ring {ring.ring}</Subtitle2>
           <Body1 as="p">
-            Radius {withSigma(ring.radiusKm, ring.uncertainty.radiusKm, 1)} km, opening angle{' '}
-            {withSigma(ring.openingAngleDeg, ring.uncertainty.openingAngleDeg, 2)}°, position angle{' '}
-            {withSigma(ring.positionAngleDeg, ring.uncertainty.positionAngleDeg, 2)}°; χ²{' '}
+            Radius {formatValueSigma(ring.radiusKm, ring.uncertainty.radiusKm)} km, opening angle{' '}
+            {formatValueSigma(ring.openingAngleDeg, ring.uncertainty.openingAngleDeg)}°, position angle{' '}
+            {formatValueSigma(ring.positionAngleDeg, ring.uncertainty.positionAngleDeg)}°; χ²{' '}
             {ring.chi2.toFixed(2)} for {ring.dof} dof.
           </Body1>
           <Table aria-label={`Pole solutions of ring ${ring.ring}`} size="small">
@@ -142,13 +130,13 @@ export function FitResult({
       {solution.astrometry === null ? null : (
         <Body1 as="p" aria-label="Astrometric offset">
           Astrometric offset at {solution.astrometry.referenceTimeUtc}: Δα cos δ ={' '}
-          {withSigma(
+          {formatValueSigma(
             solution.astrometry.raOffsetCosDecMas,
             solution.astrometry.uncertainty.raOffsetCosDecMas,
-            2,
           )}{' '}
           mas, Δδ ={' '}
-          {withSigma(solution.astrometry.decOffsetMas, solution.astrometry.uncertainty.decOffsetMas, 2)} mas.
+          {formatValueSigma(solution.astrometry.decOffsetMas, solution.astrometry.uncertainty.decOffsetMas)}{' '}
+          mas.
         </Body1>
       )}
       <MessageBar intent="warning" layout="multiline">
@@ -169,30 +157,18 @@ export function FitResult({
   );
 }
 
-function isRecord(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
-
-function fixedOf(options: Record<string, unknown> | undefined): Record<string, number> {
-  const limb = isRecord(options?.limb) ? options.limb : {};
-  const fixed = isRecord(limb.fixed) ? limb.fixed : {};
-  return Object.fromEntries(
-    Object.entries(fixed).filter((e): e is [string, number] => typeof e[1] === 'number'),
-  );
-}
-
 /** What a reader must know before quoting the numbers: every fixed value and assumption, stated plainly. */
-export function cautionsOf(
-  solution: Solution,
-  fixed: Record<string, number>,
-  options: Record<string, unknown> | undefined,
-): string[] {
+export function cautionsOf(solution: Solution, options: Record<string, unknown> | undefined): string[] {
+  const read = readFitOptions(options);
+  const fixed = read.fixed ?? {};
   const cautions: string[] = [];
-  for (const p of LIMB_PARAMETERS)
-    if (p.key in fixed)
+  for (const p of LIMB_PARAMETERS) {
+    const value = fixed[p.key];
+    if (value !== undefined)
       cautions.push(
-        `${p.label} was fixed at ${fixed[p.key]}${p.unit === '' ? '' : ` ${p.unit}`}, not fitted; its 1σ is not meaningful.`,
+        `${p.label} was fixed at ${value}${p.unit === '' ? '' : ` ${p.unit}`}, not fitted; its 1σ is not meaningful.`,
       );
+  }
   const limb = solution.limb;
   if (limb !== null) {
     const positives = solution.chords.filter((c) => c.type === 'positive').length;
@@ -211,11 +187,9 @@ export function cautionsOf(
         `Clock offsets were fitted for ${limb.timeOffsets.map((t) => t.station).join(', ')}; those chords fix the shape only.`,
       );
   }
-  const limbOptions = isRecord(options?.limb) ? options.limb : {};
-  if (typeof limbOptions.modelErrorKm === 'number' && limbOptions.modelErrorKm > 0)
-    cautions.push(`A model error of ${limbOptions.modelErrorKm} km was added to every endpoint.`);
-  const ring = isRecord(options?.ring) ? options.ring : {};
-  if (solution.rings.length > 0 && ring.centerFrom !== 'free')
+  if (read.modelErrorKm !== null && read.modelErrorKm > 0)
+    cautions.push(`A model error of ${read.modelErrorKm} km was added to every endpoint.`);
+  if (solution.rings.length > 0 && read.ringCenterFrom !== 'free')
     cautions.push('Ring centres were taken from the limb centre (assumed concentric).');
   if (solution.rings.length > 0)
     cautions.push('Each ring gives two pole solutions; the occultation alone cannot tell them apart.');

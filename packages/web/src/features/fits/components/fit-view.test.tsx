@@ -20,6 +20,8 @@ const FIT = {
   createdAt: '2029-05-18T10:00:00.000Z',
   finishedAt: '2029-05-18T10:00:04.000Z',
   options: { limb: { fixed: { oblateness: 0.082 } }, ring: { centerFrom: 'limb' } },
+  dataSha256: 'b'.repeat(64),
+  inputMatchesEvent: true,
 };
 
 describe('FitView', () => {
@@ -28,9 +30,10 @@ describe('FitView', () => {
     renderWithProviders(<FitView fitId="f1" />);
     const table = await screen.findByRole('table', { name: 'Limb parameters' });
     const radius = within(table).getByText('Equatorial radius').closest('tr');
-    expect(radius).toHaveTextContent('121.40 ± 1.80');
+    // Each value rounded to its σ's second significant digit (value-sigma.ts).
+    expect(radius).toHaveTextContent('121.4 ± 1.8');
     expect(radius).toHaveTextContent('km');
-    expect(within(table).getByText('Oblateness').closest('tr')).toHaveTextContent('0.0820 ± 0.0110');
+    expect(within(table).getByText('Oblateness').closest('tr')).toHaveTextContent('0.082 ± 0.011');
     expect(within(table).getByText('Clock offset, brackenmoor').closest('tr')).toHaveTextContent(
       '0.210 ± 0.050',
     );
@@ -38,6 +41,15 @@ describe('FitView', () => {
     expect(screen.getByText('every negative chord is clear of the limb')).toBeInTheDocument();
     expect(screen.getByLabelText('Astrometric offset')).toHaveTextContent('Δα cos δ = 12.30 ± 0.60 mas');
     expect(screen.getByText('by Iris Tallow')).toBeInTheDocument();
+    expect(screen.queryByText('Based on older data')).not.toBeInTheDocument();
+  });
+
+  it('FitView warns that a fit ran on older data when the event changed since', async () => {
+    stubFetch(() => jsonResponse(200, { ...FIT, reviewState: 'approved', inputMatchesEvent: false }));
+    renderWithProviders(<FitView fitId="f1" />);
+    expect(await screen.findByText('Based on older data')).toBeInTheDocument();
+    expect(screen.getByText(/Run the fit again before relying on it/)).toBeInTheDocument();
+    expect(screen.getByText('based on older data')).toBeInTheDocument();
   });
 
   it('FitView marks a fixed parameter as fixed, without a sigma, and names it among the cautions', async () => {

@@ -13,8 +13,9 @@ import {
 import { useFitEvents } from '../api/fit-events';
 import { useFit, type Fit } from '../api/get-fit';
 import { FitResult } from './fit-result';
-import { utcText } from '../utc-text';
 import { Loading, RequestFailed } from '@/components/request-state';
+import { StaleFitBadge, StaleFitWarning } from '@/components/stale-fit';
+import { utcText } from '@/lib/utc-text';
 
 const useStyles = makeStyles({
   view: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
@@ -44,7 +45,10 @@ function FitProgress({ fit }: { fit: Fit }) {
   );
 }
 
-/** One fit: its progress while it runs, then its numbers; an approved fit is frozen and says so. */
+/**
+ * One fit: its progress while it runs, then its numbers; an approved fit is frozen and says so, and a fit
+ * that ran on data the event no longer holds says that too.
+ */
 export function FitView({ fitId }: { fitId: string }) {
   const styles = useStyles();
   const fit = useFit(fitId);
@@ -64,8 +68,10 @@ export function FitView({ fitId }: { fitId: string }) {
         >
           {REVIEW_LABELS[f.reviewState]}
         </Badge>
+        {f.inputMatchesEvent ? null : <StaleFitBadge />}
         <Body1>by {author}</Body1>
       </div>
+      {f.inputMatchesEvent ? null : <StaleFitWarning />}
       {f.reviewState === 'approved' ? (
         <MessageBar intent="success">
           <MessageBarBody>
