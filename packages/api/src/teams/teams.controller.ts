@@ -1,11 +1,12 @@
-import { Controller, Get, Param } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { openApiSchema } from '../common/zod-validation.pipe';
-import { TeamMemberSchema, TeamSummarySchema } from './dto/team.views';
+import { Body, Controller, Delete, Get, HttpCode, Param, Patch } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { memberViewSchema, type UpdateMemberPayload, updateMemberPayloadSchema } from '@limbus/schema';
 import { z } from 'zod';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
-import { TeamMember } from './roles.decorator';
-import { type TeamMemberView, type TeamSummary, TeamsService } from './teams.service';
+import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
+import { TeamSummarySchema } from './dto/team.views';
+import { Roles, TeamMember } from './roles.decorator';
+import { type MemberView, type TeamSummary, TeamsService } from './teams.service';
 
 @ApiTags('teams')
 @ApiBearerAuth()
@@ -27,9 +28,33 @@ export class TeamsController {
   }
 
   @Get(':teamId/members')
-  @ApiOkResponse({ schema: openApiSchema(z.array(TeamMemberSchema)) })
+  @ApiOkResponse({ schema: openApiSchema(z.array(memberViewSchema)) })
   @TeamMember()
-  members(@Param('teamId') teamId: string): Promise<TeamMemberView[]> {
+  members(@Param('teamId') teamId: string): Promise<MemberView[]> {
     return this.teams.members(teamId);
+  }
+
+  @Patch(':teamId/members/:userId')
+  @Roles('coordinator')
+  @ApiBody({ schema: openApiSchema(updateMemberPayloadSchema) })
+  @ApiOkResponse({ schema: openApiSchema(memberViewSchema) })
+  updateMember(
+    @Param('teamId') teamId: string,
+    @Param('userId') userId: string,
+    @Body(new ZodValidationPipe(updateMemberPayloadSchema)) body: UpdateMemberPayload,
+    @CurrentUser() user: AuthUser,
+  ): Promise<MemberView> {
+    return this.teams.updateMember(teamId, userId, body.roles, user.id);
+  }
+
+  @Delete(':teamId/members/:userId')
+  @Roles('coordinator')
+  @HttpCode(204)
+  removeMember(
+    @Param('teamId') teamId: string,
+    @Param('userId') userId: string,
+    @CurrentUser() user: AuthUser,
+  ): Promise<void> {
+    return this.teams.removeMember(teamId, userId, user.id);
   }
 }

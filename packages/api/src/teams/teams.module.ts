@@ -1,5 +1,6 @@
 import { MikroOrmModule } from '@mikro-orm/nestjs';
 import { Module, OnModuleInit } from '@nestjs/common';
+import { AuditModule } from '../audit/audit.module';
 import { UsersModule } from '../users/users.module';
 import { Membership } from './entities/membership.entity';
 import { Team } from './entities/team.entity';
@@ -10,7 +11,7 @@ import { TeamsController } from './teams.controller';
 import { TeamsService } from './teams.service';
 
 @Module({
-  imports: [MikroOrmModule.forFeature([Team, Membership]), UsersModule],
+  imports: [MikroOrmModule.forFeature([Team, Membership]), UsersModule, AuditModule],
   controllers: [TeamsController, MeController],
   providers: [TeamsService, TeamScopeRegistry, RolesGuard],
   exports: [MikroOrmModule, TeamsService, TeamScopeRegistry, RolesGuard],

@@ -1,9 +1,18 @@
+import { EntityManager, LockMode } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
-import { NotFoundError } from '../common/domain-errors';
+import type { MemberView, MeView, NoticeKind } from '@limbus/schema';
+import { AuditService } from '../audit/audit.service';
+import { ConflictError, NotFoundError } from '../common/domain-errors';
+import { Station } from '../stations/entities/station.entity';
+import { User } from '../users/entities/user.entity';
+import { Membership } from './entities/membership.entity';
+import { Team } from './entities/team.entity';
 import { MembershipRepository } from './membership.repository';
 import type { TeamRole } from './roles';
 import { TeamRepository } from './team.repository';
 import { UserRepository } from '../users/user.repository';
+
+export type { MemberView, MeView };
 
 export interface TeamSummary {
   id: string;
@@ -11,30 +20,27 @@ export interface TeamSummary {
   roles: TeamRole[];
 }
 
-/** GET /api/me, also returned with every new access token so the client needs no second call. */
-export interface MeView {
-  id: string;
-  email: string;
-  name: string;
-  isAdmin: boolean;
-  teams: TeamSummary[];
-}
-
-export interface TeamMemberView {
-  userId: string;
-  name: string;
-  email: string;
-  roles: TeamRole[];
+function memberView(membership: Membership, user: User): MemberView {
+  return {
+    userId: user.id,
+    name: user.name,
+    email: user.email,
+    roles: membership.roles,
+    joinedAt: membership.createdAt.toISOString(),
+  };
 }
 
 @Injectable()
 export class TeamsService {
   constructor(
+    private readonly em: EntityManager,
     private readonly teams: TeamRepository,
     private readonly memberships: MembershipRepository,
     private readonly users: UserRepository,
+    private readonly audit: AuditService,
   ) {}
 
+  /** GET /api/me, also returned with every new access token so the client needs no second call. */
   async me(userId: string): Promise<MeView> {
     const user = await this.users.findOne({ id: userId });
     if (!user) throw new NotFoundError();
@@ -44,7 +50,16 @@ export class TeamsService {
       name: user.name,
       isAdmin: user.isAdmin,
       teams: await this.teamsOf(user.id),
+      noticeOptOuts: user.noticeOptOuts,
     };
+  }
+
+  async setNoticeOptOuts(userId: string, optOut: NoticeKind[]): Promise<MeView> {
+    const user = await this.users.findOne({ id: userId });
+    if (!user) throw new NotFoundError();
+    user.noticeOptOuts = optOut;
+    await this.em.flush();
+    return this.me(userId);
   }
 
   async teamsOf(userId: string): Promise<TeamSummary[]> {
@@ -60,11 +75,96 @@ export class TeamsService {
     return { id: team.id, name: team.name, roles: membership?.roles ?? [] };
   }
 
-  async members(teamId: string): Promise<TeamMemberView[]> {
+  async members(teamId: string): Promise<MemberView[]> {
     const rows = await this.memberships.find(
       { team: teamId },
       { populate: ['user'], orderBy: { user: { name: 'asc' } } },
     );
-    return rows.map((m) => ({ userId: m.user.id, name: m.user.name, email: m.user.email, roles: m.roles }));
+    return rows.map((m) => memberView(m, m.user));
   }
+
+  /** Sets a member's roles; refused with 409 when it would leave the team without a coordinator. */
+  async updateMember(
+    teamId: string,
+    userId: string,
+    roles: TeamRole[],
+    actorId: string,
+  ): Promise<MemberView> {
+    return this.withLockedMembers(teamId, userId, async ({ em, team, target, rows }) => {
+      const before = target.roles;
+      const after = [...new Set(roles)].sort();
+      if (!after.includes('coordinator')) assertAnotherCoordinator(team, target, rows);
+      if (before.join() !== after.join()) {
+        target.roles = after;
+        this.audit.record(em, {
+          teamId,
+          eventId: null,
+          actorId,
+          action: 'membership.roles',
+          objectType: 'membership',
+          objectId: target.id,
+          detail: { userId, before, after },
+        });
+        await em.flush();
+      }
+      return memberView(target, await em.findOneOrFail(User, { id: userId }));
+    });
+  }
+
+  /**
+   * Removes a member; refused with 409 for the last coordinator. The team's stations they observed
+   * keep their name (observerName) but no longer link to them, so they cannot report there.
+   */
+  async removeMember(teamId: string, userId: string, actorId: string): Promise<void> {
+    await this.withLockedMembers(teamId, userId, async ({ em, team, target, rows }) => {
+      assertAnotherCoordinator(team, target, rows);
+      const user = await em.findOneOrFail(User, { id: userId });
+      const stations = await em.find(Station, { observer: userId, event: { team: teamId } });
+      for (const station of stations) {
+        station.observer = null;
+        if (!station.observerName?.trim()) station.observerName = user.name;
+      }
+      this.audit.record(em, {
+        teamId,
+        eventId: null,
+        actorId,
+        action: 'membership.remove',
+        objectType: 'membership',
+        objectId: target.id,
+        detail: { userId, roles: target.roles, stationIds: stations.map((s) => s.id) },
+      });
+      em.remove(target);
+      await em.flush();
+    });
+  }
+
+  /**
+   * Runs `change` in a transaction holding a write lock on every membership row of the team
+   * (`select … for update`), so two requests that each remove or demote one of two coordinators run
+   * one after the other and the second sees the first's result.
+   */
+  private async withLockedMembers<T>(
+    teamId: string,
+    userId: string,
+    change: (locked: { em: EntityManager; team: Team; target: Membership; rows: Membership[] }) => Promise<T>,
+  ): Promise<T> {
+    return this.em.transactional(
+      async (em) => {
+        const rows = await em.find(Membership, { team: teamId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+        const team = await em.findOneOrFail(Team, { id: teamId });
+        const target = rows.find((m) => m.user.id === userId);
+        if (!target) throw new NotFoundError('No such member in this team');
+        return change({ em, team, target, rows });
+      },
+      { clear: true },
+    );
+  }
+}
+
+function assertAnotherCoordinator(team: Team, target: Membership, rows: Membership[]): void {
+  if (!target.roles.includes('coordinator')) return;
+  if (rows.some((m) => m !== target && m.roles.includes('coordinator'))) return;
+  throw new ConflictError(
+    `${team.name} needs at least one coordinator: give another member the coordinator role first`,
+  );
 }

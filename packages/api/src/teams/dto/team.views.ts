@@ -1,3 +1,4 @@
+import { meViewSchema } from '@limbus/schema';
 import { z } from 'zod';
 import { TEAM_ROLES } from '../roles';
 
@@ -8,22 +9,7 @@ export const TeamSummarySchema = z.object({
   roles: z.array(z.enum(TEAM_ROLES)),
 });
 
-export const MeViewSchema = z.object({
-  id: z.string(),
-  email: z.email(),
-  name: z.string(),
-  isAdmin: z.boolean(),
-  teams: z.array(TeamSummarySchema),
-});
-
-export const TeamMemberSchema = z.object({
-  userId: z.string(),
-  name: z.string(),
-  email: z.email(),
-  roles: z.array(z.enum(TEAM_ROLES)),
-});
-
 export const SessionViewSchema = z.object({
   accessToken: z.string().describe('JWT (HS256) for the Authorization: Bearer header'),
-  user: MeViewSchema,
+  user: meViewSchema,
 });
