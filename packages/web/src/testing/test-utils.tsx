@@ -6,7 +6,11 @@ import { MemoryRouter } from 'react-router-dom';
 import { vi } from 'vitest';
 import { limbusTheme } from '@/app/theme';
 
-export function renderWithProviders(ui: ReactElement): RenderResult & { queryClient: QueryClient } {
+/** `initialEntries` opens the router at a URL, for components that read their state from it. */
+export function renderWithProviders(
+  ui: ReactElement,
+  options: { initialEntries?: string[] } = {},
+): RenderResult & { queryClient: QueryClient } {
   // No retries: a test must see the first failure, not wait for backoff.
   const queryClient = new QueryClient({
     defaultOptions: { queries: { retry: false }, mutations: { retry: false } },
@@ -14,7 +18,7 @@ export function renderWithProviders(ui: ReactElement): RenderResult & { queryCli
   const result = render(
     <FluentProvider theme={limbusTheme}>
       <QueryClientProvider client={queryClient}>
-        <MemoryRouter>{ui}</MemoryRouter>
+        <MemoryRouter initialEntries={options.initialEntries}>{ui}</MemoryRouter>
       </QueryClientProvider>
     </FluentProvider>,
   );
