@@ -10,10 +10,18 @@ import { applyChordInput, chordInput, chordRow } from '../events/event-rows';
 import { EventsService } from '../events/events.service';
 import { type ChordView, chordView } from '../events/views';
 import { Station } from '../stations/entities/station.entity';
+import { nextChordPosition } from './chord-position';
 import { parseChordCsv, type ParsedChordRow } from './chord-csv';
 import { Chord } from './entities/chord.entity';
 
 export class CsvValidationError extends ValidationError {}
+
+/** The times a chord holds (not its station or clock offset), to tell whether an edit changed them. */
+function timesOf(c: Chord): string {
+  const d = c.disappearance;
+  const r = c.reappearance;
+  return [c.type, d?.time, d?.sigmaSeconds, r?.time, r?.sigmaSeconds, c.startUtc, c.endUtc].join('|');
+}
 
 @Injectable()
 export class ChordsService {
@@ -40,19 +48,10 @@ export class ChordsService {
     return station;
   }
 
-  private async nextPosition(event: OccultationEvent): Promise<number> {
-    const last = await this.em.findOne(
-      Chord,
-      { event },
-      { orderBy: { position: 'desc' }, fields: ['position'] },
-    );
-    return (last?.position ?? -1) + 1;
-  }
-
   async create(user: AuthUser, eventId: string, body: ChordInput): Promise<ChordView> {
     const event = await this.events.find(eventId);
     const station = await this.stationByCode(event, body.station);
-    const chord = chordRow(event, station, body, 'manual', await this.nextPosition(event));
+    const chord = chordRow(event, station, body, 'manual', await nextChordPosition(this.em, event));
     this.em.persist(chord);
     this.audit.record(this.em, {
       teamId: event.team.id,
@@ -90,7 +89,13 @@ export class ChordsService {
         })),
       );
     const station = await this.stationByCode(chord.event, parsed.data.station);
+    const before = { times: timesOf(chord), source: chord.source };
     applyChordInput(chord, station, parsed.data);
+    // Hand-edited times are no longer the report's or the timing's; the chord still stands for its report.
+    if (timesOf(chord) !== before.times) {
+      chord.source = 'manual';
+      chord.timing = null;
+    }
     this.audit.record(this.em, {
       teamId: chord.event.team.id,
       eventId: chord.event.id,
@@ -98,7 +103,10 @@ export class ChordsService {
       action: 'chord.update',
       objectType: 'chord',
       objectId: chord.id,
-      detail: { fields: Object.keys(body) },
+      detail: {
+        fields: Object.keys(body),
+        ...(chord.source === before.source ? {} : { source: { before: before.source, after: chord.source } }),
+      },
     });
     await this.em.flush();
     return chordView(chord);
@@ -136,7 +144,7 @@ export class ChordsService {
     const chords = parsed.rows.map((r: ParsedChordRow) => r.chord);
     if (preview) return { chords, ids: [] };
     return this.em.transactional(async (em) => {
-      let position = await this.nextPosition(event);
+      let position = await nextChordPosition(em, event);
       const rows = chords.map((c) => {
         const station = byCode.get(c.station);
         if (!station) throw new Error(`station ${c.station} vanished during the import`);

@@ -44,6 +44,8 @@ export interface ChordView {
   end: string | null;
   timeOffsetSeconds: number;
   source: ChordSource;
+  /** With source "timing": the light-curve timing whose D and R the chord holds. */
+  timingId: string | null;
   reportId: string | null;
 }
 
@@ -59,6 +61,7 @@ export function chordView(c: Chord): ChordView {
     end: c.endUtc,
     timeOffsetSeconds: c.timeOffsetSeconds,
     source: c.source,
+    timingId: c.timing?.id ?? null,
     reportId: c.report?.id ?? null,
   };
 }
