@@ -1,7 +1,9 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Res } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Post, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { SessionViewSchema } from '../teams/dto/team.views';
+import { invitationViewSchema, publicInvitationViewSchema } from '@limbus/schema';
 import type { Response } from 'express';
+import { z } from 'zod';
+import { SessionViewSchema } from '../teams/dto/team.views';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
 import { Public } from '../auth/public.decorator';
 import { sendSession, type SessionView } from '../auth/refresh-cookie';
@@ -14,7 +16,7 @@ import {
   type CreateInvitationDto,
   CreateInvitationSchema,
 } from './dto/invitation.dto';
-import { type InvitationView, InvitationsService } from './invitations.service';
+import { type InvitationView, InvitationsService, type PublicInvitationView } from './invitations.service';
 
 @ApiTags('invitations')
 @Controller()
@@ -23,6 +25,14 @@ export class InvitationsController {
     private readonly invitations: InvitationsService,
     private readonly config: AppConfig,
   ) {}
+
+  @Get('teams/:teamId/invitations')
+  @Roles('coordinator')
+  @ApiBearerAuth()
+  @ApiOkResponse({ schema: openApiSchema(z.array(invitationViewSchema)) })
+  list(@Param('teamId') teamId: string): Promise<InvitationView[]> {
+    return this.invitations.list(teamId);
+  }
 
   @Post('teams/:teamId/invitations')
   @Roles('coordinator')
@@ -36,9 +46,31 @@ export class InvitationsController {
     return this.invitations.invite(teamId, body.email, body.roles, user.id);
   }
 
+  @Post('teams/:teamId/invitations/:invitationId/resend')
+  @Roles('coordinator')
+  @HttpCode(200)
+  @ApiBearerAuth()
+  @ApiOkResponse({ schema: openApiSchema(invitationViewSchema) })
+  resend(
+    @Param('teamId') teamId: string,
+    @Param('invitationId') invitationId: string,
+    @CurrentUser() user: AuthUser,
+  ): Promise<InvitationView> {
+    return this.invitations.resend(teamId, invitationId, user.id);
+  }
+
+  @Delete('teams/:teamId/invitations/:invitationId')
+  @Roles('coordinator')
+  @HttpCode(204)
+  @ApiBearerAuth()
+  revoke(@Param('teamId') teamId: string, @Param('invitationId') invitationId: string): Promise<void> {
+    return this.invitations.revoke(teamId, invitationId);
+  }
+
   @Get('invitations/:token')
   @Public()
-  describe(@Param('token') token: string): Promise<InvitationView> {
+  @ApiOkResponse({ schema: openApiSchema(publicInvitationViewSchema) })
+  describe(@Param('token') token: string): Promise<PublicInvitationView> {
     return this.invitations.describe(token);
   }
 
@@ -48,7 +80,7 @@ export class InvitationsController {
   @ApiBody({ schema: openApiSchema(AcceptInvitationSchema) })
   @ApiOkResponse({
     schema: openApiSchema(SessionViewSchema),
-    description: 'Also sets the limbus_refresh cookie',
+    description: 'Also sets the limbus_refresh and limbus_session cookies',
   })
   async accept(
     @Param('token') token: string,

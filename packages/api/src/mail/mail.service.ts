@@ -42,3 +42,8 @@ export class MailService implements OnApplicationShutdown {
 export function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
+
+/** A time as the product writes it: "YYYY-MM-DD hh:mm:ss UTC". */
+export function utcText(date: Date): string {
+  return `${date.toISOString().slice(0, 19).replace('T', ' ')} UTC`;
+}
