@@ -1,6 +1,6 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
-import type { ChordInput } from '@limbus/geometry';
+import type { ChordInput, TimedMark } from '@limbus/geometry';
 import {
   type CreateReportPayload,
   chordPayloadSchema,
@@ -9,18 +9,18 @@ import {
 } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
-import { Chord } from '../chords/entities/chord.entity';
-import { RingEvent } from '../chords/entities/ring-event.entity';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../common/domain-errors';
-import { applyChordInput, chordRow } from '../events/event-rows';
 import { rolesIn } from '../events/team-choice';
 import { EventsService } from '../events/events.service';
 import { Station } from '../stations/entities/station.entity';
+import type { LightCurveTiming } from '../timings/entities/light-curve-timing.entity';
 import { User } from '../users/entities/user.entity';
-import { Report } from './entities/report.entity';
-import { type ReportView, reportView } from './report-view';
-
-const POPULATE = ['station', 'author', 'event', 'event.team', 'lightCurve'] as const;
+import { Report, type ReportState } from './entities/report.entity';
+import { writeReportChord, writeReportRingEvents } from './report-chord';
+import { applyReportFields } from './report-fields';
+import { ReportNotices } from './report-notices';
+import { assertSeesReport, seesEveryReport } from './report-privacy';
+import { REPORT_VIEW_POPULATE, type ReportView, reportViewOf, reportViews } from './report-view';
 
 /** The chord an accepted report stands for; clouded-out and failed reports stand for none. */
 export function chordOfReport(report: Report): ChordInput | null {
@@ -43,33 +43,64 @@ export function chordOfReport(report: Report): ChordInput | null {
   return null;
 }
 
+/** A positive whose times are still to come from its light curve. */
+export function awaitsTiming(report: Report): boolean {
+  return report.result === 'positive' && (!report.disappearance || !report.reappearance);
+}
+
+/** Checks that the report makes a valid chord; `path` names the field of the refusal. */
+export function checkedChordOf(report: Report, path: string): ChordInput | null {
+  const input = chordOfReport(report);
+  if (input && !chordPayloadSchema.safeParse(input).success)
+    throw new ValidationError([{ path, message: 'the report does not make a valid chord' }]);
+  return input;
+}
+
+const DECIDED_MEANWHILE = 'The report was decided meanwhile';
+
+/** A copy, so the chord's JSON column never shares an object with the timing's result. */
+function markCopy(m: TimedMark): TimedMark {
+  return { time: m.time, sigmaSeconds: m.sigmaSeconds };
+}
+
 @Injectable()
 export class ReportsService {
   constructor(
     private readonly em: EntityManager,
     private readonly events: EventsService,
     private readonly audit: AuditService,
+    private readonly notices: ReportNotices,
   ) {}
+
+  view(report: Report): Promise<ReportView> {
+    return reportViewOf(this.em, report);
+  }
 
   /** Observers see their own reports only; coordinators, modellers and reviewers see all. */
   async list(user: AuthUser, eventId: string): Promise<ReportView[]> {
     const event = await this.events.find(eventId);
-    const roles = await rolesIn(this.em, user, event.team.id);
-    const seesAll = roles.some((r) => r !== 'observer');
+    const seesAll = seesEveryReport(await rolesIn(this.em, user, event.team.id));
     const reports = await this.em.find(Report, seesAll ? { event } : { event, author: user.id }, {
-      populate: POPULATE,
+      populate: REPORT_VIEW_POPULATE,
       orderBy: { createdAt: 'asc', id: 'asc' },
     });
-    return reports.map(reportView);
+    return reportViews(this.em, reports);
   }
 
   async find(reportId: string): Promise<Report> {
     const report = await this.em.findOne(
       Report,
       { id: reportId, event: { state: 'active' } },
-      { populate: POPULATE },
+      { populate: REPORT_VIEW_POPULATE },
     );
     if (!report) throw new NotFoundError();
+    return report;
+  }
+
+  /** As `find`, but another observer's report is as missing to a member who is only an observer. */
+  async findVisible(user: AuthUser, reportId: string): Promise<Report> {
+    const report = await this.find(reportId);
+    await assertSeesReport(this.em, user, report);
     return report;
   }
 
@@ -88,11 +119,11 @@ export class ReportsService {
     if (open)
       throw new ConflictError(
         open.state === 'accepted'
-          ? 'Your report for this station is already accepted'
+          ? 'Your report for this station is already accepted; ask for a correction instead'
           : `You already have a report for this station (${open.id}); edit it instead`,
       );
     const report = new Report(event, station, this.em.getReference(User, user.id), body.result);
-    this.applyFields(report, body);
+    applyReportFields(report, body);
     this.em.persist(report);
     this.audit.record(this.em, {
       teamId: event.team.id,
@@ -101,76 +132,95 @@ export class ReportsService {
       action: 'report.submit',
       objectType: 'report',
       objectId: report.id,
-      detail: { station: station.code, result: report.result },
+      detail: {
+        station: station.code,
+        result: report.result,
+        timesFromLightCurve: report.timesFromLightCurve,
+      },
     });
     await this.em.flush();
-    return reportView(await this.find(report.id));
-  }
-
-  private applyFields(report: Report, body: PatchReportPayload): void {
-    if (body.result !== undefined) report.result = body.result;
-    if (body.disappearance !== undefined) report.disappearance = body.disappearance;
-    if (body.reappearance !== undefined) report.reappearance = body.reappearance;
-    if (body.observedFromUtc !== undefined) report.observedFromUtc = body.observedFromUtc;
-    if (body.observedToUtc !== undefined) report.observedToUtc = body.observedToUtc;
-    if (body.ringDips !== undefined) report.ringDips = body.ringDips;
-    if (body.notes !== undefined) report.notes = body.notes;
+    const stored = await this.find(report.id);
+    await this.notices.submitted(stored, false);
+    return this.view(stored);
   }
 
   /** The author edits until acceptance; editing a rejected report submits it again. */
   async update(user: AuthUser, reportId: string, body: PatchReportPayload): Promise<ReportView> {
-    const report = await this.find(reportId);
+    const report = await this.findVisible(user, reportId);
     if (report.author.id !== user.id) throw new ForbiddenError('Only the author can edit a report');
-    if (report.state === 'accepted') throw new ConflictError('An accepted report can no longer be edited');
-    this.applyFields(report, body);
+    if (report.state === 'accepted')
+      throw new ConflictError('An accepted report can no longer be edited; ask for a correction instead');
+    applyReportFields(report, body);
     const problems = reportTimingProblems(report);
     if (problems.length > 0) throw new ValidationError(problems);
     const wasRejected = report.state === 'rejected';
-    report.state = 'submitted';
-    report.rejectReason = null;
-    this.audit.record(this.em, {
-      teamId: report.event.team.id,
-      eventId: report.event.id,
-      actorId: user.id,
-      action: wasRejected ? 'report.resubmit' : 'report.update',
-      objectType: 'report',
-      objectId: report.id,
-      detail: { fields: Object.keys(body) },
+    await this.em.transactional(async (em) => {
+      // Conditional, so that an accept landing meanwhile is not undone by this edit.
+      const open = await em.nativeUpdate(
+        Report,
+        { id: report.id, state: { $in: ['submitted', 'rejected'] } },
+        { state: 'submitted' },
+      );
+      if (open === 0)
+        throw new ConflictError('The report was accepted meanwhile; ask for a correction instead');
+      report.state = 'submitted';
+      report.rejectReason = null;
+      this.audit.record(em, {
+        teamId: report.event.team.id,
+        eventId: report.event.id,
+        actorId: user.id,
+        action: wasRejected ? 'report.resubmit' : 'report.update',
+        objectType: 'report',
+        objectId: report.id,
+        detail: { fields: Object.keys(body) },
+      });
+      await em.flush();
     });
-    await this.em.flush();
-    return reportView(report);
+    if (wasRejected) await this.notices.submitted(report, true);
+    return this.view(report);
   }
 
-  /** Acceptance creates or updates the report's chord and replaces its ring events, in one transaction. */
-  async accept(user: AuthUser, reportId: string): Promise<ReportView> {
+  /**
+   * Moves the report to `to` only from one of `from`, in the caller's transaction: of two decisions
+   * at once, exactly one moves it. Returns whether this one did.
+   */
+  private async move(
+    em: EntityManager,
+    report: Report,
+    from: ReportState[],
+    to: ReportState,
+  ): Promise<boolean> {
+    const moved = await em.nativeUpdate(Report, { id: report.id, state: { $in: from } }, { state: to });
+    return moved > 0;
+  }
+
+  /**
+   * Acceptance writes the report's chord (asking first before it replaces better-timed values) and
+   * replaces its ring events, in one transaction. A positive still waiting for its light curve's
+   * timing has nothing to write: its timing is accepted instead.
+   */
+  async accept(user: AuthUser, reportId: string, replaceTimedChord: boolean): Promise<ReportView> {
     const report = await this.find(reportId);
     if (report.state !== 'submitted') throw new ConflictError(`The report is ${report.state}, not submitted`);
-    const input = chordOfReport(report);
-    if (input && !chordPayloadSchema.safeParse(input).success)
-      throw new ValidationError([{ path: 'report', message: 'the report does not make a valid chord' }]);
-    await this.em.transactional(async (em) => {
-      const existing = await em.findOne(Chord, { report });
-      if (input && existing) applyChordInput(existing, report.station, input);
-      else if (input) {
-        const last = await em.findOne(Chord, { event: report.event }, { orderBy: { position: 'desc' } });
-        const chord = chordRow(report.event, report.station, input, 'report', (last?.position ?? -1) + 1);
-        chord.report = report;
-        em.persist(chord);
-      } else if (existing) em.remove(existing);
-      await em.nativeDelete(RingEvent, { report });
-      const lastRing = await em.findOne(
-        RingEvent,
-        { event: report.event },
-        { orderBy: { position: 'desc' } },
+    if (awaitsTiming(report))
+      throw new ConflictError(
+        'this report has no times yet: time its light curve (Light curves) and accept the timing',
       );
-      let ringPosition = (lastRing?.position ?? -1) + 1;
-      for (const dip of report.ringDips) {
-        const ring = new RingEvent(report.event, report.station, dip);
-        ring.report = report;
-        ring.position = ringPosition++;
-        em.persist(ring);
-      }
+    const input = checkedChordOf(report, 'report');
+    await this.em.transactional(async (em) => {
+      if (!(await this.move(em, report, ['submitted'], 'accepted')))
+        throw new ConflictError(DECIDED_MEANWHILE);
+      const written = await writeReportChord(em, {
+        report,
+        input,
+        timing: null,
+        what: 'the report',
+        times: "the report's typed times",
+        replaceTimedChord,
+      });
+      await writeReportRingEvents(em, report);
       report.state = 'accepted';
+      report.rejectReason = null;
       this.audit.record(em, {
         teamId: report.event.team.id,
         eventId: report.event.id,
@@ -178,28 +228,105 @@ export class ReportsService {
         action: 'report.accept',
         objectType: 'report',
         objectId: report.id,
-        detail: { chord: input?.type ?? null, ringEvents: report.ringDips.length },
+        detail: {
+          chord: input?.type ?? null,
+          chordId: written.chord?.id ?? null,
+          replaced: written.before,
+          ringEvents: report.ringDips.length,
+        },
       });
       await em.flush();
     });
-    return reportView(report);
+    await this.notices.decided(report, user.id, 'report');
+    return this.view(report);
   }
 
   async reject(user: AuthUser, reportId: string, reason: string): Promise<ReportView> {
     const report = await this.find(reportId);
     if (report.state !== 'submitted') throw new ConflictError(`The report is ${report.state}, not submitted`);
-    report.state = 'rejected';
-    report.rejectReason = reason;
-    this.audit.record(this.em, {
-      teamId: report.event.team.id,
-      eventId: report.event.id,
-      actorId: user.id,
-      action: 'report.reject',
-      objectType: 'report',
-      objectId: report.id,
-      detail: { reason },
+    await this.em.transactional(async (em) => {
+      if (!(await this.move(em, report, ['submitted'], 'rejected')))
+        throw new ConflictError(DECIDED_MEANWHILE);
+      report.state = 'rejected';
+      report.rejectReason = reason;
+      this.audit.record(em, {
+        teamId: report.event.team.id,
+        eventId: report.event.id,
+        actorId: user.id,
+        action: 'report.reject',
+        objectType: 'report',
+        objectId: report.id,
+        detail: { reason },
+      });
+      await em.flush();
     });
-    await this.em.flush();
-    return reportView(report);
+    await this.notices.decided(report, user.id, 'report');
+    return this.view(report);
+  }
+
+  /**
+   * Accepting a timing writes its D and R (with their 1σ) into the chord of the timing's report, with
+   * source "timing", and accepts the report if it was not yet: report and timing never disagree. The
+   * report's typed ring dips are left to its timing's dips (the ring-events route), which are measured.
+   */
+  async acceptTiming(
+    user: AuthUser,
+    timing: LightCurveTiming,
+    edges: { disappearance: TimedMark; reappearance: TimedMark },
+    replaceTimedChord: boolean,
+  ): Promise<{ chordId: string; report: ReportView }> {
+    const report = await this.find(timing.report.id);
+    const input: ChordInput = {
+      station: report.station.code,
+      type: 'positive',
+      disappearance: markCopy(edges.disappearance),
+      reappearance: markCopy(edges.reappearance),
+      timeOffsetSeconds: 0,
+    };
+    let moved = false;
+    const chordId = await this.em.transactional(async (em) => {
+      moved = await this.move(em, report, ['submitted', 'rejected'], 'accepted');
+      const { chord, before } = await writeReportChord(em, {
+        report,
+        input,
+        timing,
+        what: 'this timing',
+        times: "this timing's times",
+        replaceTimedChord,
+      });
+      if (!chord) throw new Error('accepting a timing always writes a chord');
+      timing.acceptedAt = new Date();
+      this.audit.record(em, {
+        teamId: report.event.team.id,
+        eventId: report.event.id,
+        actorId: user.id,
+        action: 'timing.accept',
+        objectType: 'chord',
+        objectId: chord.id,
+        detail: {
+          timingId: timing.id,
+          reportId: report.id,
+          before,
+          after: { disappearance: input.disappearance, reappearance: input.reappearance },
+        },
+      });
+      if (moved) {
+        report.state = 'accepted';
+        report.rejectReason = null;
+        this.audit.record(em, {
+          teamId: report.event.team.id,
+          eventId: report.event.id,
+          actorId: user.id,
+          action: 'report.accept',
+          objectType: 'report',
+          objectId: report.id,
+          detail: { chord: 'positive', chordId: chord.id, timingId: timing.id },
+        });
+      }
+      await em.flush();
+      return chord.id;
+    });
+    if (moved) await this.notices.decided(report, user.id, 'timing');
+    return { chordId, report: await this.view(report) };
   }
 }

@@ -1,5 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiTags } from '@nestjs/swagger';
+import { type AcceptIntoChordPayload, acceptIntoChordPayloadSchema } from '@limbus/schema';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { Roles, TeamMember } from '../teams/roles.decorator';
@@ -11,6 +12,7 @@ import {
   type TimingOptions,
   timingOptionsSchema,
 } from './timing-options';
+import type { ReportView } from '../reports/report-view';
 import type { TimingDefaults } from './timing-defaults';
 import { type TimingDetail, type TimingSummary, TimingsService } from './timings.service';
 
@@ -35,31 +37,46 @@ export class TimingsController {
 
   @Get('reports/:reportId/timing-defaults')
   @TeamMember()
-  defaults(@Param('eventId') eventId: string, @Param('reportId') reportId: string): Promise<TimingDefaults> {
-    return this.timings.defaults(eventId, reportId);
+  defaults(
+    @CurrentUser() user: AuthUser,
+    @Param('eventId') eventId: string,
+    @Param('reportId') reportId: string,
+  ): Promise<TimingDefaults> {
+    return this.timings.defaults(user, eventId, reportId);
   }
 
   @Get('reports/:reportId/timings')
   @TeamMember()
-  list(@Param('eventId') eventId: string, @Param('reportId') reportId: string): Promise<TimingSummary[]> {
-    return this.timings.list(eventId, reportId);
+  list(
+    @CurrentUser() user: AuthUser,
+    @Param('eventId') eventId: string,
+    @Param('reportId') reportId: string,
+  ): Promise<TimingSummary[]> {
+    return this.timings.list(user, eventId, reportId);
   }
 
   @Get('timings/:timingId')
   @TeamMember()
-  one(@Param('eventId') eventId: string, @Param('timingId') timingId: string): Promise<TimingDetail> {
-    return this.timings.detail(eventId, timingId);
+  one(
+    @CurrentUser() user: AuthUser,
+    @Param('eventId') eventId: string,
+    @Param('timingId') timingId: string,
+  ): Promise<TimingDetail> {
+    return this.timings.detail(user, eventId, timingId);
   }
 
+  /** 409 `replaces-better-timing` when the chord holds better-timed values, unless `replaceTimedChord`. */
   @Post('timings/:timingId/accept')
   @Roles('coordinator', 'modeller')
   @HttpCode(200)
+  @ApiBody({ schema: openApiSchema(acceptIntoChordPayloadSchema), required: false })
   accept(
     @CurrentUser() user: AuthUser,
     @Param('eventId') eventId: string,
     @Param('timingId') timingId: string,
-  ): Promise<{ chordId: string }> {
-    return this.timings.accept(user, eventId, timingId);
+    @Body(new ZodValidationPipe(acceptIntoChordPayloadSchema)) body: AcceptIntoChordPayload,
+  ): Promise<{ chordId: string; report: ReportView }> {
+    return this.timings.accept(user, eventId, timingId, body.replaceTimedChord);
   }
 
   @Post('timings/:timingId/ring-events')

@@ -11,6 +11,9 @@ import { RingEvent } from '../chords/entities/ring-event.entity';
 import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
 import { enqueueOrLeaveToSweep } from '../queue/bounded-enqueue';
 import { Report } from '../reports/entities/report.entity';
+import { assertSeesReport } from '../reports/report-privacy';
+import type { ReportView } from '../reports/report-view';
+import { ReportsService } from '../reports/reports.service';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { User } from '../users/entities/user.entity';
 import { LightCurveTiming, type TimingState } from './entities/light-curve-timing.entity';
@@ -26,6 +29,9 @@ export interface TimingSummary {
   state: TimingState;
   error: string | null;
   options: TimingOptions;
+  /** The chord of the station holds this timing's D and R now. */
+  inChord: boolean;
+  /** When it was last accepted into the chord; kept as history after another value replaced it. */
   acceptedAt: string | null;
   ringEventsCreatedAt: string | null;
   createdAt: string;
@@ -36,7 +42,7 @@ export interface TimingDetail extends TimingSummary {
   result: TimingView | null;
 }
 
-function summary(t: LightCurveTiming): TimingSummary {
+function summary(t: LightCurveTiming, inChord: boolean): TimingSummary {
   return {
     id: t.id,
     reportId: t.report.id,
@@ -44,6 +50,7 @@ function summary(t: LightCurveTiming): TimingSummary {
     state: t.state,
     error: t.error,
     options: t.options,
+    inChord,
     acceptedAt: t.acceptedAt?.toISOString() ?? null,
     ringEventsCreatedAt: t.ringEventsCreatedAt?.toISOString() ?? null,
     createdAt: t.createdAt.toISOString(),
@@ -51,8 +58,8 @@ function summary(t: LightCurveTiming): TimingSummary {
   };
 }
 
-/** A copy, so the chord's JSON column never shares an object with the timing's result. */
-function chordMark(m: TimedMark): TimedMark {
+/** A copy, so a ring event's JSON column never shares an object with the timing's result. */
+function markCopy(m: TimedMark): TimedMark {
   return { time: m.time, sigmaSeconds: m.sigmaSeconds };
 }
 
@@ -63,8 +70,19 @@ export class TimingsService {
   constructor(
     private readonly em: EntityManager,
     private readonly audit: AuditService,
+    private readonly reports: ReportsService,
     @InjectQueue(TIMINGS_QUEUE) private readonly queue: Queue<TimingJobData>,
   ) {}
+
+  /** Summaries saying which of these timings the chords hold now. */
+  private async summaries(timings: LightCurveTiming[]): Promise<TimingSummary[]> {
+    const inChords =
+      timings.length === 0
+        ? []
+        : await this.em.find(Chord, { timing: { $in: timings.map((t) => t.id) } }, { fields: ['timing'] });
+    const held = new Set(inChords.map((c) => c.timing?.id));
+    return timings.map((t) => summary(t, held.has(t.id)));
+  }
 
   private async report(eventId: string, reportId: string): Promise<Report> {
     const report = await this.em.findOne(
@@ -87,8 +105,9 @@ export class TimingsService {
   }
 
   /** Speed, distance and exposure to start a timing of this report's light curve from. */
-  async defaults(eventId: string, reportId: string): Promise<TimingDefaults> {
+  async defaults(user: AuthUser, eventId: string, reportId: string): Promise<TimingDefaults> {
     const report = await this.report(eventId, reportId);
+    await assertSeesReport(this.em, user, report);
     const file = eventFileOf(await loadEventRows(this.em, report.event));
     return timingDefaultsOf(file, report.station.code, report, report.station.exposureSeconds);
   }
@@ -131,22 +150,27 @@ export class TimingsService {
     await this.em.persist(timing).flush();
     // Enqueued after the row is committed, so the worker always finds it.
     await enqueueOrLeaveToSweep(enqueueTiming(this.queue, timing.id), `timing ${timing.id}`, this.logger);
-    return summary(timing);
+    return summary(timing, false);
   }
 
-  async list(eventId: string, reportId: string): Promise<TimingSummary[]> {
-    await this.report(eventId, reportId);
+  /** Newest first; another observer's report is as missing to a member who is only an observer. */
+  async list(user: AuthUser, eventId: string, reportId: string): Promise<TimingSummary[]> {
+    const report = await this.report(eventId, reportId);
+    await assertSeesReport(this.em, user, report);
     const rows = await this.em.find(
       LightCurveTiming,
       { report: reportId },
       { populate: ['report', 'report.station'], orderBy: { createdAt: 'desc', id: 'asc' } },
     );
-    return rows.map(summary);
+    return this.summaries(rows);
   }
 
-  async detail(eventId: string, timingId: string): Promise<TimingDetail> {
+  async detail(user: AuthUser, eventId: string, timingId: string): Promise<TimingDetail> {
     const timing = await this.timing(eventId, timingId);
-    return { ...summary(timing), result: timing.result };
+    await assertSeesReport(this.em, user, timing.report);
+    const [view] = await this.summaries([timing]);
+    if (!view) throw new NotFoundError('No such timing in this event');
+    return { ...view, result: timing.result };
   }
 
   private solved(timing: LightCurveTiming): TimingView {
@@ -156,49 +180,23 @@ export class TimingsService {
     return timing.result;
   }
 
-  /** Writes the fitted D and R with their 1-sigma into the station's positive chord (made if missing). */
-  async accept(user: AuthUser, eventId: string, timingId: string): Promise<{ chordId: string }> {
+  /**
+   * Writes the fitted D and R with their 1σ into the chord of the timing's report (source "timing") and
+   * accepts the report with it; 409 `replaces-better-timing` unless `replaceTimedChord` (ReportsService).
+   */
+  async accept(
+    user: AuthUser,
+    eventId: string,
+    timingId: string,
+    replaceTimedChord: boolean,
+  ): Promise<{ chordId: string; report: ReportView }> {
     const timing = await this.timing(eventId, timingId);
     const result = this.solved(timing);
     const { disappearance, reappearance } = result;
     if (disappearance === null || reappearance === null) {
       throw new ConflictError('The timing found no disappearance and reappearance to put in a chord');
     }
-    const station = timing.report.station;
-    return this.em.transactional(async (em) => {
-      let chord =
-        (await em.findOne(Chord, { report: timing.report.id })) ??
-        (await em.findOne(
-          Chord,
-          { event: eventId, station: station.id, type: 'positive' },
-          { orderBy: { position: 'asc' } },
-        ));
-      const before = chord ? { disappearance: chord.disappearance, reappearance: chord.reappearance } : null;
-      if (!chord) {
-        chord = new Chord(timing.event, station, 'positive', 'report');
-        chord.report = timing.report;
-        chord.position = (await em.count(Chord, { event: eventId })) + 1;
-        em.persist(chord);
-      }
-      chord.disappearance = chordMark(disappearance);
-      chord.reappearance = chordMark(reappearance);
-      timing.acceptedAt = new Date();
-      this.audit.record(em, {
-        teamId: timing.event.team.id,
-        eventId,
-        actorId: user.id,
-        action: 'timing.accept',
-        objectType: 'chord',
-        objectId: chord.id,
-        detail: {
-          timingId,
-          before,
-          after: { disappearance: chord.disappearance, reappearance: chord.reappearance },
-        },
-      });
-      await em.flush();
-      return { chordId: chord.id };
-    });
+    return this.reports.acceptTiming(user, timing, { disappearance, reappearance }, replaceTimedChord);
   }
 
   /** One ring event per chosen dip, under one ring name; a timing feeds ring events once. */
@@ -227,8 +225,8 @@ export class TimingsService {
         if (!dip) throw new NotFoundError('No such dip');
         const ringEvent = new RingEvent(timing.event, timing.report.station, {
           ring: payload.ring,
-          start: chordMark(dip.start),
-          end: chordMark(dip.end),
+          start: markCopy(dip.start),
+          end: markCopy(dip.end),
         });
         ringEvent.report = timing.report;
         ringEvent.position = position + k + 1;

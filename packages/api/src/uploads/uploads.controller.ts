@@ -48,10 +48,11 @@ export class UploadsController {
   @Get()
   @TeamMember()
   async download(
+    @CurrentUser() user: AuthUser,
     @Param('reportId') reportId: string,
     @Res({ passthrough: true }) res: Response,
   ): Promise<StreamableFile> {
-    const { upload, bytes } = await this.uploads.lightCurve(reportId);
+    const { upload, bytes } = await this.uploads.lightCurve(user, reportId);
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="${upload.name.replace(/["\\\r\n]/g, '_')}"`);
     return new StreamableFile(bytes);

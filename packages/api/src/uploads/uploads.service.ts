@@ -5,7 +5,7 @@ import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../common/domain-errors';
 import { rolesIn } from '../events/team-choice';
-import { type ReportView, reportView } from '../reports/report-view';
+import type { ReportView } from '../reports/report-view';
 import { ReportsService } from '../reports/reports.service';
 import { StorageService } from '../storage/storage.service';
 import { User } from '../users/entities/user.entity';
@@ -22,7 +22,10 @@ export class UploadsService {
     private readonly audit: AuditService,
   ) {}
 
-  /** Author (until accepted) or coordinator. Bytes go to the store first, the row only if that worked. */
+  /**
+   * Author (until accepted) or coordinator; another observer's report is as missing. Bytes go to the
+   * store first, the row only if that worked.
+   */
   async attachLightCurve(
     user: AuthUser,
     reportId: string,
@@ -30,7 +33,7 @@ export class UploadsService {
   ): Promise<ReportView> {
     if (!file)
       throw new ValidationError([{ path: 'file', message: 'missing; send the CSV as field "file"' }]);
-    const report = await this.reports.find(reportId);
+    const report = await this.reports.findVisible(user, reportId);
     const isCoordinator = (await rolesIn(this.em, user, report.event.team.id)).includes('coordinator');
     if (report.author.id !== user.id && !isCoordinator)
       throw new ForbiddenError('Only the author or a coordinator can attach a light curve');
@@ -68,11 +71,12 @@ export class UploadsService {
       },
     });
     await this.em.flush();
-    return reportView(report);
+    return this.reports.view(report);
   }
 
-  async lightCurve(reportId: string): Promise<{ upload: Upload; bytes: Buffer }> {
-    const report = await this.reports.find(reportId);
+  /** Every member but an observer who is not the report's author. */
+  async lightCurve(user: AuthUser, reportId: string): Promise<{ upload: Upload; bytes: Buffer }> {
+    const report = await this.reports.findVisible(user, reportId);
     if (!report.lightCurve) throw new NotFoundError('This report has no light curve');
     return { upload: report.lightCurve, bytes: await this.storage.get(report.lightCurve.storageKey) };
   }
