@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { FitView } from './fit-view';
-import { TEST_SOLUTION } from './test-solution';
+import { TEST_SOLUTION } from '@/testing/test-solution';
 import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-utils';
 
 afterEach(() => vi.unstubAllGlobals());

@@ -1,12 +1,15 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { z } from 'zod';
-import { reviewsQueryKey } from './get-reviews';
+import { noteText, TEXT_LIMITS } from '@limbus/schema/text';
+import { useInvalidateReview } from './invalidate-review';
 import { apiRequest } from '@/lib/api-client';
 
+// The server's reviewDecisionPayloadSchema, with one thing more: no decision until the reviewer picks one,
+// so nobody approves a fit by leaving a pre-selected choice alone.
 export const reviewDecisionInputSchema = z
   .object({
-    decision: z.enum(['approve', 'return']),
-    comment: z.string().trim().max(10_000, 'at most 10 000 characters'),
+    decision: z.enum(['approve', 'return'], { error: 'choose whether to approve or return the fit' }),
+    comment: noteText(TEXT_LIMITS.note),
   })
   .refine((review) => review.decision === 'approve' || review.comment !== '', {
     path: ['comment'],
@@ -15,27 +18,8 @@ export const reviewDecisionInputSchema = z
 
 export type ReviewDecisionInput = z.infer<typeof reviewDecisionInputSchema>;
 
-export function requestReview(fitId: string): Promise<void> {
-  return apiRequest(`/api/fits/${encodeURIComponent(fitId)}/review-request`, { method: 'POST' });
-}
-
 export function decideReview(fitId: string, input: ReviewDecisionInput): Promise<void> {
   return apiRequest(`/api/fits/${encodeURIComponent(fitId)}/reviews`, { method: 'POST', body: input });
-}
-
-/** A review changes the fit's review state too, which the fit view and the fits list show. */
-function useInvalidateReview(fitId: string) {
-  const queryClient = useQueryClient();
-  return async () => {
-    await queryClient.invalidateQueries({ queryKey: reviewsQueryKey(fitId) });
-    await queryClient.invalidateQueries({ queryKey: ['fits', fitId] });
-    await queryClient.invalidateQueries({ queryKey: ['events'] });
-  };
-}
-
-export function useRequestReview(fitId: string) {
-  const onSuccess = useInvalidateReview(fitId);
-  return useMutation({ mutationFn: () => requestReview(fitId), onSuccess });
 }
 
 export function useDecideReview(fitId: string) {
