@@ -1,4 +1,4 @@
-import { screen } from '@testing-library/react';
+import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Solution } from '@limbus/geometry';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
@@ -49,7 +49,9 @@ describe('FiguresPanel', () => {
       return jsonResponse(404, { message: 'unexpected' });
     });
     const user = userEvent.setup();
-    renderWithProviders(<FiguresPanel fitId="f1" solution={TEST_SOLUTION} fileStem="night-one" />);
+    renderWithProviders(
+      <FiguresPanel fitId="f1" solution={TEST_SOLUTION} inputMatchesEvent fileStem="night-one" />,
+    );
     await user.click(screen.getByRole('button', { name: 'Download fit figure' }));
     await vi.waitFor(() => expect(saved).toHaveLength(1));
     expect(calls[0]?.url).toBe('/api/fits/f1/figure?format=pdf&widthMm=180');
@@ -63,19 +65,33 @@ describe('FiguresPanel', () => {
 
     await user.click(screen.getByRole('button', { name: 'Download fit table as LaTeX' }));
     await vi.waitFor(() => expect(saved.map((s) => s.name)).toContain('night-one-parameters.tex'));
+    expect(screen.queryByText('Based on older data')).not.toBeInTheDocument();
+  });
+
+  it('FiguresPanel warns before any download that the fit ran on older data than the event holds now', () => {
+    stubFetch(() => jsonResponse(404, { message: 'unexpected' }));
+    renderWithProviders(
+      <FiguresPanel fitId="f1" solution={TEST_SOLUTION} inputMatchesEvent={false} fileStem="night-one" />,
+    );
+    const panel = screen.getByRole('region', { name: 'Figures' });
+    expect(within(panel).getByText('Based on older data')).toBeInTheDocument();
+    expect(within(panel).getByText(/Run the fit again before relying on it/)).toBeInTheDocument();
+    expect(within(panel).getByRole('button', { name: 'Download fit figure' })).toBeInTheDocument();
   });
 
   it('FiguresPanel says what failed when the server refuses a figure', async () => {
     stubFetch(() => jsonResponse(500, { statusCode: 500, message: 'the renderer stopped' }));
     const user = userEvent.setup();
-    renderWithProviders(<FiguresPanel fitId="f1" solution={TEST_SOLUTION} fileStem="night-one" />);
+    renderWithProviders(
+      <FiguresPanel fitId="f1" solution={TEST_SOLUTION} inputMatchesEvent fileStem="night-one" />,
+    );
     await user.click(screen.getByRole('button', { name: 'Download fit figure' }));
     expect(await screen.findByRole('alert')).toHaveTextContent('the renderer stopped');
     expect(saved).toHaveLength(0);
   });
 
   it('FiguresPanel without a solved fit offers nothing to download', () => {
-    renderWithProviders(<FiguresPanel fitId={null} solution={null} fileStem="night-one" />);
+    renderWithProviders(<FiguresPanel fitId={null} solution={null} inputMatchesEvent fileStem="night-one" />);
     expect(screen.getByText(/Open a solved fit/)).toBeInTheDocument();
     expect(screen.queryByRole('button')).not.toBeInTheDocument();
   });

@@ -2,6 +2,7 @@ import { Body1, Button, makeStyles, Subtitle2, tokens } from '@fluentui/react-co
 import type { Solution } from '@limbus/geometry';
 import { fetchFitTable, fitFigureFileName, fitFigureUrl } from '../api/fit-exports';
 import { FigureDownload } from '@/components/figure-download';
+import { StaleFitWarning } from '@/components/stale-fit';
 import { TableDownload } from '@/components/table-download';
 import { saveFile } from '@/lib/save-file';
 
@@ -13,6 +14,8 @@ export interface FiguresPanelProps {
   /** The fit shown in the desk, when it is solved; null otherwise. */
   fitId: string | null;
   solution: Solution | null;
+  /** False when the event's data changed since the fit ran: its figure and table would describe old data. */
+  inputMatchesEvent: boolean;
   fileStem: string;
 }
 
@@ -21,7 +24,7 @@ export interface FiguresPanelProps {
  * renders them (each with its provenance: fit id, input SHA-256, engine version, seed, approval state), and
  * the solution file byte for byte as stored.
  */
-export function FiguresPanel({ fitId, solution, fileStem }: FiguresPanelProps) {
+export function FiguresPanel({ fitId, solution, inputMatchesEvent, fileStem }: FiguresPanelProps) {
   const styles = useStyles();
   if (fitId === null || solution === null)
     return (
@@ -31,6 +34,7 @@ export function FiguresPanel({ fitId, solution, fileStem }: FiguresPanelProps) {
     );
   return (
     <section className={styles.panel} aria-label="Figures">
+      {inputMatchesEvent ? null : <StaleFitWarning />}
       <Subtitle2 as="h3">Sky-plane figure</Subtitle2>
       <FigureDownload
         buttonLabel="Download fit figure"
