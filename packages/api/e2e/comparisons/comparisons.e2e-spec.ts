@@ -102,7 +102,7 @@ describe('comparison across events and the joint ring pole job', () => {
   it('GET /api/teams/:teamId/comparison returns the approved fits by default, by event date, with the stored numbers', async () => {
     const view = (await t.get(`/api/teams/${w.team.id}/comparison`).set(w.auth('observer')).expect(200))
       .body as ComparisonView;
-    expect(view.selection).toBe('approved');
+    expect(view.selection).toBe('latest-approved');
     expect(view.fits.map((f) => f.fitId)).toEqual(fitIds.slice(0, 2));
     expect(view.ringLabels).toEqual(['R1']);
     const first = view.fits[0];

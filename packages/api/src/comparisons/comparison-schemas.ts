@@ -1,9 +1,18 @@
 import { z } from 'zod';
 import { figureQuerySchema } from '../exports/export-query';
 
-/** Approved fits are what a team stands behind; "all" adds every other solved fit, on request. */
+/**
+ * Approved fits are what a team stands behind. By default each event shows its latest approved fit only
+ * (two fits of one event would count its chords twice); "approved" shows every approved fit, "all" adds
+ * every other solved fit, on request.
+ */
+export const COMPARISON_SELECTIONS = ['latest-approved', 'approved', 'all'] as const;
+export type ComparisonSelection = (typeof COMPARISON_SELECTIONS)[number];
+
 export const comparisonQuerySchema = z.strictObject({
-  fits: z.enum(['approved', 'all']).default('approved'),
+  fits: z.enum(COMPARISON_SELECTIONS).default('latest-approved'),
+  /** One body of the team; on the team routes, required when the team's fits observe several bodies. */
+  bodyId: z.string().min(1).max(36).optional(),
   /** Comma-separated event ids; all of the team's events when absent. */
   events: z
     .string()

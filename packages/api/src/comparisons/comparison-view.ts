@@ -2,6 +2,7 @@
 // against the event's date. Chords are left out; the overlay draws ellipses from their parameters.
 import type { EventInput, Solution } from '@limbus/geometry';
 import type { ReviewState } from '../fits/entities/fit-run.entity';
+import type { ComparisonSelection } from './comparison-schemas';
 
 export interface ValueSigma {
   value: number;
@@ -31,6 +32,8 @@ export interface ComparisonFit {
   fitId: string;
   eventId: string;
   eventTitle: string;
+  /** False when the event's data changed since the fit ran (it is based on older data). */
+  inputMatchesEvent: boolean;
   /** The astrometry reference time, else the earliest timing in the event (ISO UTC). */
   eventDateUtc: string | null;
   reviewState: ReviewState;
@@ -41,7 +44,9 @@ export interface ComparisonFit {
 
 export interface ComparisonView {
   teamId: string;
-  selection: 'approved' | 'all';
+  /** The body all the fits observe; null when there are no fits. */
+  body: { id: string; name: string } | null;
+  selection: ComparisonSelection;
   ringLabels: string[];
   fits: ComparisonFit[];
 }
@@ -59,6 +64,7 @@ export function comparisonFit(
   eventRow: { id: string; title: string },
   event: EventInput,
   solution: Solution,
+  inputMatchesEvent: boolean,
 ): ComparisonFit {
   const limb = solution.limb;
   const u = limb?.uncertainty;
@@ -66,6 +72,7 @@ export function comparisonFit(
     fitId: fit.id,
     eventId: eventRow.id,
     eventTitle: eventRow.title,
+    inputMatchesEvent,
     eventDateUtc: solution.astrometry?.referenceTimeUtc ?? earliestTimingUtc(event),
     reviewState: fit.reviewState,
     finishedAt: fit.finishedAt?.toISOString() ?? null,

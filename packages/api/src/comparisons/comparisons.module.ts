@@ -1,14 +1,15 @@
 import { BullModule } from '@nestjs/bullmq';
 import { Module, OnModuleInit } from '@nestjs/common';
+import { EventsModule } from '../events/events.module';
 import { TeamScopeRegistry } from '../teams/team-scope.registry';
 import { TeamsModule } from '../teams/teams.module';
 import { ComparisonsController } from './comparisons.controller';
 import { ComparisonsService } from './comparisons.service';
 import { JOINT_QUEUE } from './joint-queue';
 
-/** Comparison across a team's fits and the queued joint ring pole (the API side). */
+/** Comparison across the fits of one body and the queued joint ring pole (the API side). */
 @Module({
-  imports: [TeamsModule, BullModule.registerQueue({ name: JOINT_QUEUE })],
+  imports: [TeamsModule, EventsModule, BullModule.registerQueue({ name: JOINT_QUEUE })],
   controllers: [ComparisonsController],
   providers: [ComparisonsService],
 })

@@ -5,15 +5,18 @@ import { Injectable } from '@nestjs/common';
 import { validateEventFile } from '@limbus/schema';
 import type { Queue } from 'bullmq';
 import type { AuthUser } from '../auth/auth-user';
+import { Body } from '../bodies/entities/body.entity';
+import { bodyScope, type FitScope } from '../bodies/body-scope';
+import { oneBodyIssues } from '../bodies/one-body';
 import { ConflictError, NotFoundError, UnavailableError, ValidationError } from '../common/domain-errors';
 import { comparisonCaptionDraft, renderComparisonFigureSvg } from '../exports/comparison-figure-svg';
 import type { ExportFile } from '../exports/exports.service';
 import { type Provenance, provenanceOf } from '../exports/provenance';
 import { renderPdf, renderPng } from '../exports/raster';
+import { EventsService } from '../events/events.service';
 import { FitRun } from '../fits/entities/fit-run.entity';
-import { Team } from '../teams/entities/team.entity';
 import type { ComparisonFigureQuery, ComparisonQuery, JointPolePayload } from './comparison-schemas';
-import { comparisonFit, type ComparisonView } from './comparison-view';
+import { comparisonFit, type ComparisonFit, type ComparisonView } from './comparison-view';
 import type { JointPoleDocument } from './joint-pole';
 import { ENQUEUE_WAIT_MS, settlesWithin } from '../queue/bounded-enqueue';
 import { JOINT_QUEUE, JOINT_RESULT_KEEP_SECONDS, type JointJobData } from './joint-queue';
@@ -34,39 +37,74 @@ export interface JointPoleView {
 export class ComparisonsService {
   constructor(
     private readonly em: EntityManager,
+    private readonly events: EventsService,
     @InjectQueue(JOINT_QUEUE) private readonly queue: Queue<JointJobData, JointJobResult>,
   ) {}
 
-  async comparison(teamId: string, query: ComparisonQuery): Promise<ComparisonView> {
-    return (await this.load(teamId, query)).view;
+  scopeOfBody(bodyId: string): Promise<FitScope & { bodyId: string }> {
+    return bodyScope(this.em, bodyId);
+  }
+
+  async comparison(scope: FitScope, query: ComparisonQuery): Promise<ComparisonView> {
+    return (await this.load(scope, query)).view;
   }
 
   private async load(
-    teamId: string,
+    scope: FitScope,
     query: ComparisonQuery,
   ): Promise<{ view: ComparisonView; provenance: Provenance[] }> {
+    const bodyId = scope.bodyId ?? query.bodyId;
+    if (bodyId !== undefined && (await this.em.count(Body, { id: bodyId, team: scope.teamId })) === 0)
+      throw new ValidationError([{ path: 'bodyId', message: 'no such body in this team' }]);
     const fits = await this.em.find(
       FitRun,
       {
         state: 'solved',
-        ...(query.fits === 'approved' ? { reviewState: 'approved' as const } : {}),
+        ...(query.fits === 'all' ? {} : { reviewState: 'approved' as const }),
         event: {
-          team: teamId,
+          team: scope.teamId,
           state: 'active',
+          ...(bodyId === undefined ? {} : { body: bodyId }),
           ...(query.events === null ? {} : { id: { $in: query.events } }),
         },
       },
-      { populate: ['event', 'solution', 'input'], orderBy: { createdAt: 'asc', id: 'asc' } },
+      {
+        populate: ['event', 'event.body', 'solution', 'input'],
+        orderBy: { createdAt: 'desc', id: 'desc' },
+      },
     );
-    const rows = fits.flatMap((f) => {
+    const chosen =
+      query.fits === 'latest-approved'
+        ? fits.filter((f, i) => fits.findIndex((g) => g.event.id === f.event.id) === i)
+        : fits;
+    const bodies = new Map(chosen.map((f) => [f.event.body.id, f.event.body.name]));
+    if (bodies.size > 1)
+      throw new ValidationError([
+        {
+          path: query.events === null ? 'bodyId' : 'events',
+          message: `these fits observe ${bodies.size} bodies (${[...bodies.values()].join(', ')}): compare one body at a time (choose it with bodyId, or open the body's page)`,
+        },
+      ]);
+    const rows: Array<{ row: ComparisonFit; provenance: Provenance }> = [];
+    for (const f of chosen) {
       const v = validateEventFile(JSON.parse(f.input));
-      if (!v.ok || f.solution === null) return [];
-      return [{ row: comparisonFit(f, f.event, v.event, f.solution), provenance: provenanceOf(f) }];
-    });
-    rows.sort((a, b) => (a.row.eventDateUtc ?? '').localeCompare(b.row.eventDateUtc ?? ''));
+      if (!v.ok || f.solution === null) continue;
+      const current = (await this.events.detail(f.event.id)).dataSha256;
+      rows.push({
+        row: comparisonFit(f, f.event, v.event, f.solution, f.dataSha256 === current),
+        provenance: provenanceOf(f),
+      });
+    }
+    rows.sort(
+      (a, b) =>
+        (a.row.eventDateUtc ?? '').localeCompare(b.row.eventDateUtc ?? '') ||
+        (a.row.finishedAt ?? '').localeCompare(b.row.finishedAt ?? ''),
+    );
+    const [only] = [...bodies];
     return {
       view: {
-        teamId,
+        teamId: scope.teamId,
+        body: only === undefined ? null : { id: only[0], name: only[1] },
         selection: query.fits,
         ringLabels: [...new Set(rows.flatMap((r) => r.row.rings.map((g) => g.ring)))],
         fits: rows.map((r) => r.row),
@@ -76,21 +114,26 @@ export class ComparisonsService {
   }
 
   /** The comparison as a figure; with `jointId`, that solved joint pole (of this team) is drawn too. */
-  async figure(teamId: string, query: ComparisonFigureQuery): Promise<ExportFile> {
-    const { view, provenance } = await this.load(teamId, query);
+  async figure(scope: FitScope, query: ComparisonFigureQuery): Promise<ExportFile> {
+    const { view, provenance } = await this.load(scope, query);
     let joint: JointPoleDocument | null = null;
     if (query.jointId !== undefined) {
-      if ((await this.teamOfJoint(query.jointId)) !== teamId) throw new NotFoundError();
+      if ((await this.teamOfJoint(query.jointId)) !== scope.teamId) throw new NotFoundError();
       const job = await this.getJoint(query.jointId);
       if (job.result === null)
         throw new ConflictError(`joint pole ${query.jointId} is ${job.state}, not solved`);
       joint = job.result;
     }
-    const team = await this.em.findOneOrFail(Team, { id: teamId }, { fields: ['name'] });
     const ring = joint?.ring ?? view.ringLabels[0] ?? null;
-    const caption = comparisonCaptionDraft(team.name, view.selection, view.fits, ring, joint);
+    const caption = comparisonCaptionDraft(
+      view.body?.name ?? 'no body',
+      view.selection,
+      view.fits,
+      ring,
+      joint,
+    );
     const input = { fits: view.fits, ring, joint, caption, provenance, widthMm: query.widthMm };
-    const base = `limbus-comparison-${teamId}-${query.widthMm}mm`;
+    const base = `limbus-comparison-${view.body?.id ?? scope.teamId}-${query.widthMm}mm`;
     if (query.format === 'svg') {
       const { svg } = renderComparisonFigureSvg({ ...input, embedFont: true, sizeUnit: 'mm' });
       return { body: Buffer.from(svg, 'utf8'), contentType: 'image/svg+xml', fileName: `${base}.svg` };
@@ -111,12 +154,12 @@ export class ComparisonsService {
     };
   }
 
-  /** Checks that every fit is this team's and solved, then queues the joint fit. */
-  async submitJoint(user: AuthUser, teamId: string, body: JointPolePayload): Promise<{ id: string }> {
+  /** Checks that every fit is this team's, solved and of one body, then queues the joint fit. */
+  async submitJoint(user: AuthUser, scope: FitScope, body: JointPolePayload): Promise<{ id: string }> {
     const found = await this.em.find(
       FitRun,
-      { id: { $in: body.fitIds }, event: { team: teamId, state: 'active' } },
-      { fields: ['id', 'state'] },
+      { id: { $in: body.fitIds }, event: { team: scope.teamId, state: 'active' } },
+      { fields: ['id', 'state', 'event.body.name'] },
     );
     const byId = new Map(found.map((f) => [f.id, f]));
     const issues = body.fitIds.flatMap((id, k) => {
@@ -127,11 +170,27 @@ export class ComparisonsService {
     });
     if (new Set(body.fitIds).size !== body.fitIds.length)
       issues.push({ path: 'fitIds', message: 'a fit is listed twice' });
+    const expected =
+      scope.bodyId === undefined
+        ? undefined
+        : await this.em.findOneOrFail(Body, { id: scope.bodyId }, { fields: ['name'] });
+    const ofBodies = body.fitIds.flatMap((id, k) => {
+      const f = byId.get(id);
+      return f === undefined ? [] : [{ path: `fitIds.${k}`, body: f.event.body }];
+    });
+    issues.push(...oneBodyIssues(ofBodies, expected));
     if (issues.length > 0) throw new ValidationError(issues);
+    const bodyId = ofBodies[0]?.body.id;
     const id = randomUUID();
     const added = this.queue.add(
       'joint',
-      { teamId, fitIds: body.fitIds, ring: body.ring ?? null, requestedBy: user.id },
+      {
+        teamId: scope.teamId,
+        ...(bodyId === undefined ? {} : { bodyId }),
+        fitIds: body.fitIds,
+        ring: body.ring ?? null,
+        requestedBy: user.id,
+      },
       {
         jobId: id,
         // A joint fit is deterministic: a failure would fail again, so there is nothing to retry.

@@ -3,6 +3,8 @@ export const JOINT_QUEUE = 'joint';
 
 export interface JointJobData {
   teamId: string;
+  /** The body all the fits observe (jobs queued before bodies existed have none). */
+  bodyId?: string;
   fitIds: string[];
   ring: string | null;
   requestedBy: string;

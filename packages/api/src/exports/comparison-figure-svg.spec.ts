@@ -11,6 +11,7 @@ function twoFits() {
     { id: 'ev-a', title: 'Event A' },
     exampleEvent(),
     exampleSolution(),
+    true,
   );
   const noLimb = { ...exampleSolution(), limb: null };
   const b = comparisonFit(
@@ -18,6 +19,7 @@ function twoFits() {
     { id: 'ev-b', title: 'Event <B>' },
     exampleEvent(),
     noLimb,
+    true,
   );
   return [a, b];
 }

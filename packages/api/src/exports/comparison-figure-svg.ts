@@ -3,6 +3,7 @@
 // with the joint pole and its 1-sigma region when one is given. Same conventions as ./figure-svg.ts.
 import { ellipseOutline, type LimbEllipse, type SkyPointKm } from '@limbus/geometry';
 import type { ComparisonFit } from '../comparisons/comparison-view';
+import type { ComparisonSelection } from '../comparisons/comparison-schemas';
 import type { JointPoleDocument } from '../comparisons/joint-pole';
 import { FIGURE_FONT_FAMILY, latoFontFaceCss } from './fonts';
 import { niceStep, PT_PER_MM, type SvgFigure, wrapText } from './figure-svg';
@@ -280,13 +281,13 @@ export function renderComparisonFigureSvg(input: ComparisonFigureInput): SvgFigu
 /** What the comparison figure shows and from which fits, for the author to rewrite. */
 export function comparisonCaptionDraft(
   teamName: string,
-  selection: 'approved' | 'all',
+  selection: ComparisonSelection,
   fits: ComparisonFit[],
   ring: string | null,
   joint: JointPoleDocument | null,
 ): string {
   const parts = [
-    `Comparison of ${fits.length} fit${fits.length === 1 ? '' : 's'} of ${teamName} (${selection === 'approved' ? 'approved fits only' : 'including fits not approved'}).`,
+    `Comparison of ${fits.length} fit${fits.length === 1 ? '' : 's'} of ${teamName} (${selection === 'latest-approved' ? 'the latest approved fit of each event' : selection === 'approved' ? 'approved fits only' : 'including fits not approved'}).`,
     'Left: limb ellipses (solid) and ring ellipses (dashed), each moved to a common centre; f towards east, g towards north, north up and east left.',
     ring === null
       ? 'No ring was fitted in these events.'

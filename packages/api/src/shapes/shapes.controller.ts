@@ -5,6 +5,7 @@ import { TABLE_FORMATS, TABLE_TYPES, type TableQuery, tableQuerySchema } from '.
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { TeamMember } from '../teams/roles.decorator';
 import { type ShapePayload, shapePayloadSchema } from './shape-schemas';
+import type { FitScope } from '../bodies/body-scope';
 import { ShapesService, type ShapeView } from './shapes.service';
 
 @ApiTags('shapes')
@@ -22,7 +23,18 @@ export class ShapesController {
     @Param('teamId') teamId: string,
     @Body(new ZodValidationPipe(shapePayloadSchema)) body: ShapePayload,
   ): Promise<ShapeView> {
-    return this.shapes.fit(teamId, body);
+    return this.shapes.fit({ teamId }, body);
+  }
+
+  @Post('bodies/:bodyId/shape')
+  @TeamMember()
+  @HttpCode(200)
+  @ApiBody({ schema: openApiSchema(shapePayloadSchema) })
+  async bodyFit(
+    @Param('bodyId') bodyId: string,
+    @Body(new ZodValidationPipe(shapePayloadSchema)) body: ShapePayload,
+  ): Promise<ShapeView> {
+    return this.shapes.fit(await this.shapes.scopeOfBody(bodyId), body);
   }
 
   @Post('teams/:teamId/shape/table')
@@ -31,13 +43,37 @@ export class ShapesController {
   @ApiBody({ schema: openApiSchema(shapePayloadSchema) })
   @ApiProduces('text/csv', 'application/json', 'application/x-tex')
   @ApiQuery({ name: 'format', enum: TABLE_FORMATS })
-  async table(
+  table(
     @Param('teamId') teamId: string,
     @Query(new ZodValidationPipe(tableQuerySchema)) query: TableQuery,
     @Body(new ZodValidationPipe(shapePayloadSchema)) body: ShapePayload,
     @Res({ passthrough: true }) res: Response,
   ): Promise<StreamableFile> {
-    const text = Buffer.from(await this.shapes.table(teamId, body, query.format), 'utf8');
+    return this.sendTable(res, { teamId }, body, query);
+  }
+
+  @Post('bodies/:bodyId/shape/table')
+  @TeamMember()
+  @HttpCode(200)
+  @ApiBody({ schema: openApiSchema(shapePayloadSchema) })
+  @ApiProduces('text/csv', 'application/json', 'application/x-tex')
+  @ApiQuery({ name: 'format', enum: TABLE_FORMATS })
+  async bodyTable(
+    @Param('bodyId') bodyId: string,
+    @Query(new ZodValidationPipe(tableQuerySchema)) query: TableQuery,
+    @Body(new ZodValidationPipe(shapePayloadSchema)) body: ShapePayload,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<StreamableFile> {
+    return this.sendTable(res, await this.shapes.scopeOfBody(bodyId), body, query);
+  }
+
+  private async sendTable(
+    res: Response,
+    scope: FitScope,
+    body: ShapePayload,
+    query: TableQuery,
+  ): Promise<StreamableFile> {
+    const text = Buffer.from(await this.shapes.table(scope, body, query.format), 'utf8');
     res.setHeader('Content-Disposition', `attachment; filename="limbus-shape.${query.format}"`);
     return new StreamableFile(text, { type: TABLE_TYPES[query.format], length: text.length });
   }

@@ -7,6 +7,9 @@ import type { Queue } from 'bullmq';
 import { type FieldIssue, ValidationError } from '../common/domain-errors';
 import { JOINT_QUEUE, type JointJobData } from '../comparisons/joint-queue';
 import type { JointJobResult } from '../comparisons/joint-poles.processor';
+import { Body } from '../bodies/entities/body.entity';
+import { bodyScope, type FitScope } from '../bodies/body-scope';
+import { oneBodyIssues } from '../bodies/one-body';
 import { FitRun } from '../fits/entities/fit-run.entity';
 import type { ShapePayload } from './shape-schemas';
 import { shapeEventOf } from './shape-input';
@@ -48,16 +51,33 @@ export class ShapesService {
     return { ...r.result.pole, source: 'joint ring pole', jointPoleId: id };
   }
 
-  async fit(teamId: string, body: ShapePayload): Promise<ShapeView> {
+  scopeOfBody(bodyId: string): Promise<FitScope & { bodyId: string }> {
+    return bodyScope(this.em, bodyId);
+  }
+
+  async fit(scope: FitScope, body: ShapePayload): Promise<ShapeView> {
+    const teamId = scope.teamId;
     const issues: FieldIssue[] = [];
     if (new Set(body.fitIds).size !== body.fitIds.length)
       issues.push({ path: 'fitIds', message: 'a fit is listed twice' });
     const found = await this.em.find(
       FitRun,
       { id: { $in: body.fitIds }, event: { team: teamId, state: 'active' } },
-      { populate: ['event', 'solution', 'input'] },
+      { populate: ['event', 'event.body', 'solution', 'input'] },
     );
     const byId = new Map(found.map((f) => [f.id, f]));
+    const expected =
+      scope.bodyId === undefined
+        ? undefined
+        : await this.em.findOneOrFail(Body, { id: scope.bodyId }, { fields: ['name'] });
+    const mixed = oneBodyIssues(
+      body.fitIds.flatMap((id, k) => {
+        const f = byId.get(id);
+        return f === undefined ? [] : [{ path: `fitIds.${k}`, body: f.event.body }];
+      }),
+      expected,
+    );
+    if (mixed.length > 0) throw new ValidationError([...issues, ...mixed]);
     const events: ShapeEventInput[] = [];
     const fits: ShapeView['fits'] = [];
     body.fitIds.forEach((id, k) => {
@@ -112,8 +132,8 @@ export class ShapesService {
   }
 
   /** The same fit as a table for a paper, with the fits' hashes and approval states as provenance. */
-  async table(teamId: string, body: ShapePayload, format: TableQuery['format']): Promise<string> {
-    const view = await this.fit(teamId, body);
+  async table(scope: FitScope, body: ShapePayload, format: TableQuery['format']): Promise<string> {
+    const view = await this.fit(scope, body);
     const runs = await this.em.fork().find(FitRun, { id: { $in: body.fitIds } });
     return shapeTable(view, new Map(runs.map((run) => [run.id, run])), format);
   }
