@@ -5,7 +5,15 @@ import { RingEvent } from '../../src/chords/entities/ring-event.entity';
 import { OccultationEvent } from '../../src/events/entities/occultation-event.entity';
 import { Station } from '../../src/stations/entities/station.entity';
 import { bootTestApp, type TestApp } from '../setup';
-import { createWorkspace, del, exampleEvent, importExample, patch, type Workspace } from './workspace';
+import {
+  type Actor,
+  createWorkspace,
+  del,
+  exampleEvent,
+  importExample,
+  patch,
+  type Workspace,
+} from './workspace';
 
 describe('event routes', () => {
   let t: TestApp;
@@ -106,19 +114,27 @@ describe('event routes', () => {
 
   it('GET /api/events lists the events of my teams with counts and no foreign ones', async () => {
     const id = await importExample(t, w);
-    const mine = await t.get('/api/events').set(w.auth('reviewer')).expect(200);
-    const row = (mine.body as Array<Record<string, unknown>>).find((e) => e.id === id);
+    const mine = await t.get('/api/events?pageSize=100').set(w.auth('reviewer')).expect(200);
+    const page = mine.body as { items: Array<Record<string, unknown>>; total: number; page: number };
+    expect(page.page).toBe(1);
+    const row = page.items.find((e) => e.id === id);
+    const stored = await t.orm.em.fork().findOneOrFail(OccultationEvent, { id }, { populate: ['body'] });
     expect(row).toEqual({
       id,
       title: exampleEvent().title,
       teamId: w.team.id,
-      eventDate: '2028-03-14T02:10:00.000Z',
+      bodyId: stored.body.id,
+      bodyName: stored.body.name,
+      // The earliest chord timing of the example, to the second.
+      eventTimeUtc: '2028-03-14T02:10:00Z',
+      deletedAt: null,
       star: { raDeg: 285.21437, decDeg: -21.38812 },
-      counts: { stations: 11, chords: 11, reports: 0, fits: 0 },
+      counts: { stations: 11, chords: 11, reports: 0, fits: 0, myStations: 0, openReports: 0 },
       latestFit: null,
+      fitsInReview: 0,
     });
     const theirs = await t.get('/api/events').set(w.auth('outsider')).expect(200);
-    expect((theirs.body as Array<{ id: string }>).map((e) => e.id)).not.toContain(id);
+    expect((theirs.body as { items: Array<{ id: string }> }).items.map((e) => e.id)).not.toContain(id);
   });
 
   it('POST /api/events creates an empty event; PATCH validates and names the field', async () => {
@@ -163,5 +179,50 @@ describe('event routes', () => {
     await t.post(`/api/events/${id}/restore`).set(w.auth('coordinator')).expect(200);
     const back = await t.get(`/api/events/${id}`).set(w.auth('observer')).expect(200);
     expect((back.body as { stations: unknown[] }).stations).toHaveLength(11);
+  });
+  // Last: it gives the team a second body, after which an event must name its body.
+  it('GET /api/events pages, searches, sorts and filters in the database', async () => {
+    const list = async (query: string, actor: Actor = 'coordinator') =>
+      (await t.get(`/api/events?teamId=${w.team.id}&${query}`).set(w.auth(actor)).expect(200)).body as {
+        items: Array<{ id: string; title: string; eventTimeUtc: string }>;
+        total: number;
+      };
+    const titles = ['Paging early %_ event', 'Paging late event', 'Paging middle event'];
+    const times = ['2030-01-01T00:00:00Z', '2030-03-01T00:00:00Z', '2030-02-01T00:00:00Z'];
+    const ids: string[] = [];
+    for (const [k, title] of titles.entries()) {
+      const file = { ...exampleEvent(), title };
+      const id = await importExample(t, w, file, { bodyName: 'Paging body' });
+      await patch(t, `/api/events/${id}`)
+        .set(w.auth('coordinator'))
+        .send({ eventTimeUtc: times[k] })
+        .expect(200);
+      ids.push(id);
+    }
+    const found = await list('q=Paging&sort=date-asc&pageSize=2');
+    expect(found.total).toBe(3);
+    expect(found.items.map((e) => e.title)).toEqual(['Paging early %_ event', 'Paging middle event']);
+    expect((await list('q=Paging&sort=date-asc&pageSize=2&page=2')).items.map((e) => e.title)).toEqual([
+      'Paging late event',
+    ]);
+    expect((await list('q=Paging&sort=date-desc&pageSize=1')).items[0]?.title).toBe('Paging late event');
+    // % and _ are matched as themselves, not as patterns.
+    expect((await list('q=%25_')).items.map((e) => e.title)).toEqual(['Paging early %_ event']);
+    // The body's name is searched too.
+    expect((await list('q=Paging%20body')).total).toBe(3);
+    expect((await list('q=Paging&fit=none')).total).toBe(3);
+    expect((await list('q=Paging&fit=approved')).total).toBe(0);
+    const bad = await t.get('/api/events?pageSize=101&sort=random').set(w.auth('coordinator')).expect(400);
+    expect((bad.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path).sort()).toEqual([
+      'pageSize',
+      'sort',
+    ]);
+    // Archived events are listed for coordinators only.
+    await del(t, `/api/events/${ids[0] ?? ''}`)
+      .set(w.auth('coordinator'))
+      .expect(204);
+    expect((await list('q=Paging')).total).toBe(2);
+    expect((await list('q=Paging&archived=true')).items.map((e) => e.id)).toEqual([ids[0]]);
+    await t.get(`/api/events?teamId=${w.team.id}&archived=true`).set(w.auth('observer')).expect(403);
   });
 });

@@ -39,11 +39,22 @@ export function eventDataSha256(file: EventData): string {
 }
 
 /**
- * The middle of the ephemeris table, in UTC to the whole second ("YYYY-MM-DDThh:mm:ssZ"): a
- * prediction's ephemeris is centred on the event, so this is the date to sort by until someone enters
- * the time (common practice, no source).
+ * When an event happened, to the whole second in UTC ("YYYY-MM-DDThh:mm:ssZ"), until someone enters it:
+ * the earliest timing of its chords (a positive's disappearance, a negative's start) when it has any,
+ * else the middle of its ephemeris table, which a prediction centres on the event (common practice, no
+ * source).
  */
-export function defaultEventTimeUtc(ephemeris: EventInput['ephemeris']): string {
+export function defaultEventTimeUtc(file: {
+  ephemeris: EventInput['ephemeris'];
+  chords?: EventInput['chords'] | undefined;
+}): string {
+  // ISO 8601 UTC texts ending in Z sort in time order.
+  const timings = (file.chords ?? [])
+    .map((c) => (c.type === 'positive' ? c.disappearance.time : c.start))
+    .sort();
+  const earliest = timings[0];
+  if (earliest !== undefined) return wholeSecondUtc(earliest);
+  const { ephemeris } = file;
   const first = ephemeris.rows[0];
   const last = ephemeris.rows.at(-1);
   if (first === undefined || last === undefined) throw new Error('an ephemeris has at least 4 rows');

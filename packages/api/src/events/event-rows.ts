@@ -59,7 +59,7 @@ export function persistEventFile(
 ): EventRows {
   const event = new OccultationEvent(team, body, {
     title: file.title,
-    eventTimeUtc: defaultEventTimeUtc(file.ephemeris),
+    eventTimeUtc: defaultEventTimeUtc(file),
     star: file.star,
     ephemeris: file.ephemeris,
     earthRotation: file.earthRotation,

@@ -228,7 +228,7 @@ export class EventsService {
         title: body.title,
         eventTimeUtc:
           body.eventTimeUtc === undefined
-            ? defaultEventTimeUtc(body.ephemeris)
+            ? defaultEventTimeUtc({ ephemeris: body.ephemeris })
             : wholeSecondUtc(body.eventTimeUtc),
         star: body.star,
         ephemeris: body.ephemeris,

@@ -90,7 +90,7 @@ export class Migration20261203182617 extends Migration {
       const first = times[0];
       const eventTime =
         first === undefined
-          ? defaultEventTimeUtc(json<EventInput['ephemeris']>(event.ephemeris))
+          ? defaultEventTimeUtc({ ephemeris: json<EventInput['ephemeris']>(event.ephemeris) })
           : wholeSecondUtc(first);
       await sql('update `events` set `event_time_utc` = ? where `id` = ?', [eventTime, event.id]);
     }

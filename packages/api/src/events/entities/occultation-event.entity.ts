@@ -28,7 +28,7 @@ export class OccultationEvent {
 
   /**
    * When the event happens, "YYYY-MM-DDThh:mm:ssZ" (UTC, whole seconds, so the text sorts in time order).
-   * Given by the coordinator, else the middle of the ephemeris (defaultEventTimeUtc).
+   * Given by the coordinator, else its earliest chord or the middle of its ephemeris (defaultEventTimeUtc).
    */
   @Property({ type: 'string', length: 20 })
   eventTimeUtc: string;
