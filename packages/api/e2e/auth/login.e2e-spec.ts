@@ -17,7 +17,14 @@ describe('POST /api/auth/login', () => {
       .post('/api/auth/login')
       .send({ email: email.toUpperCase(), password })
       .expect(200);
-    expect(response.body.user).toEqual({ id: user.id, email, name: user.name, isAdmin: false, teams: [] });
+    expect(response.body.user).toEqual({
+      id: user.id,
+      email,
+      name: user.name,
+      isAdmin: false,
+      teams: [],
+      noticeOptOuts: [],
+    });
     expect(response.body.accessToken.split('.')).toHaveLength(3);
     const cookie = String(response.headers['set-cookie']);
     expect(cookie).toMatch(/^limbus_refresh=[A-Za-z0-9_-]{43};/);

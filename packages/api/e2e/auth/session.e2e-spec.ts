@@ -20,7 +20,7 @@ function signJwt(claims: Record<string, unknown>, secret: string): string {
 describe('access tokens', () => {
   let t: TestApp;
   beforeAll(async () => {
-    t = await bootTestApp({ ACCESS_TOKEN_TTL_SECONDS: '1' });
+    t = await bootTestApp({ ACCESS_TOKEN_TTL_SECONDS: '3' });
   });
   afterAll(async () => {
     await t.close();
@@ -30,8 +30,9 @@ describe('access tokens', () => {
     const { email, password } = await t.createUser();
     const token = await t.signIn(email, password);
     await t.get('/api/me').set('Authorization', `Bearer ${token}`).expect(200);
-    // JWT exp has one-second resolution: after 2.1 s a 1 s token is expired whatever the rounding.
-    await new Promise((resolve) => setTimeout(resolve, 2100));
+    // JWT exp has one-second resolution: after 4.1 s a 3 s token is expired whatever the rounding. A 1 s
+    // token could expire before the first call on a loaded machine (signed at x.9 s, checked at x+1.0 s).
+    await new Promise((resolve) => setTimeout(resolve, 4100));
     const response = await t.get('/api/me').set('Authorization', `Bearer ${token}`).expect(401);
     expect(response.body.statusCode).toBe(401);
   });

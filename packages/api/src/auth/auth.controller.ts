@@ -2,6 +2,7 @@ import { Body, Controller, HttpCode, Post, Req, Res } from '@nestjs/common';
 import { ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { SessionViewSchema } from '../teams/dto/team.views';
 import type { Request, Response } from 'express';
+import { UnauthorizedError } from '../common/domain-errors';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { AppConfig } from '../config/app-config';
 import { AuthService, type Session } from './auth.service';
@@ -35,7 +36,7 @@ export class AuthController {
   @HttpCode(200)
   @ApiOkResponse({
     schema: openApiSchema(SessionViewSchema),
-    description: 'Also sets the limbus_refresh cookie',
+    description: 'Also sets the limbus_refresh and limbus_session cookies',
   })
   @ApiBody({ schema: openApiSchema(LoginSchema) })
   async login(
@@ -50,10 +51,18 @@ export class AuthController {
   @HttpCode(200)
   @ApiOkResponse({
     schema: openApiSchema(SessionViewSchema),
-    description: 'Rotates the limbus_refresh cookie',
+    description: 'Rotates the limbus_refresh cookie; a 401 clears it and limbus_session',
   })
   async refresh(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<SessionView> {
-    return this.answer(res, await this.auth.refresh(readRefreshCookie(req)));
+    let session: Session;
+    try {
+      session = await this.auth.refresh(readRefreshCookie(req));
+    } catch (error) {
+      // The cookie is worthless now; without the hint the client stops trying it on every page load.
+      if (error instanceof UnauthorizedError) clearRefreshCookie(res, secureCookies(this.config));
+      throw error;
+    }
+    return this.answer(res, session);
   }
 
   @Post('logout')

@@ -1,21 +1,36 @@
 import type { CookieOptions, Request, Response } from 'express';
 import type { AppConfig } from '../config/app-config';
-import type { MeView } from '../teams/teams.service';
+import type { MeView } from '@limbus/schema';
 import type { Session } from './auth.service';
 
 export const REFRESH_COOKIE = 'limbus_refresh';
+
+/**
+ * Carries no secret, only "a refresh cookie was set and has not been cleared", readable by the client's
+ * script (the refresh cookie is httpOnly), so that a first page load without a session does not try a
+ * refresh only to log a 401.
+ */
+export const SESSION_HINT_COOKIE = 'limbus_session';
 
 /** Path-scoped so the refresh token travels only to /api/auth, never with ordinary API calls. */
 function options(secure: boolean): CookieOptions {
   return { httpOnly: true, sameSite: 'strict', secure, path: '/api/auth' };
 }
 
-export function setRefreshCookie(res: Response, token: string, maxAgeSeconds: number, secure: boolean): void {
-  res.cookie(REFRESH_COOKIE, token, { ...options(secure), maxAge: maxAgeSeconds * 1000 });
+function hintOptions(secure: boolean): CookieOptions {
+  return { httpOnly: false, sameSite: 'strict', secure, path: '/' };
 }
 
+/** Sets the refresh cookie and the session hint, with the same lifetime. */
+export function setRefreshCookie(res: Response, token: string, maxAgeSeconds: number, secure: boolean): void {
+  res.cookie(REFRESH_COOKIE, token, { ...options(secure), maxAge: maxAgeSeconds * 1000 });
+  res.cookie(SESSION_HINT_COOKIE, '1', { ...hintOptions(secure), maxAge: maxAgeSeconds * 1000 });
+}
+
+/** Clears both cookies: on sign-out and when a refresh fails. */
 export function clearRefreshCookie(res: Response, secure: boolean): void {
   res.clearCookie(REFRESH_COOKIE, options(secure));
+  res.clearCookie(SESSION_HINT_COOKIE, hintOptions(secure));
 }
 
 /** Reads one cookie from the header ourselves; one cookie does not justify a parser dependency. */
@@ -46,7 +61,10 @@ export function secureCookies(config: AppConfig): boolean {
   return config.publicUrl.startsWith('https:');
 }
 
-/** Used by sign-in, refresh and invitation accept: the refresh token goes in the cookie, never the body. */
+/**
+ * Used by sign-in, refresh and invitation accept: the refresh token goes in the cookie, never the body,
+ * and the session hint cookie goes with it.
+ */
 export function sendSession(res: Response, session: Session, config: AppConfig): SessionView {
   setRefreshCookie(res, session.refreshToken, config.refreshTokenTtlSeconds, secureCookies(config));
   return { accessToken: session.accessToken, user: session.user };
