@@ -118,12 +118,35 @@ describe('ChordTable', () => {
     await waitFor(() => expect(screen.queryByRole('button', { name: 'Save' })).not.toBeInTheDocument());
   });
 
-  it('ChordTable hides editing for a read-only role', async () => {
-    stubFetch(() => jsonResponse(200, CHORDS));
+  it('ChordTable hides editing for a read-only role and says why "Add chord" is greyed out', async () => {
+    const calls = stubFetch(() => jsonResponse(200, CHORDS));
     renderWithProviders(<ChordTable eventId="e1" stationCodes={STATIONS} canEdit={false} />);
     await screen.findByRole('grid', { name: 'Chord table' });
     expect(screen.queryByRole('button', { name: /Edit chord/ })).not.toBeInTheDocument();
-    expect(screen.queryByRole('button', { name: 'Add chord' })).not.toBeInTheDocument();
+    const add = screen.getByRole('button', { name: 'Add chord' });
+    expect(add).toHaveAttribute('aria-disabled', 'true');
+    expect(add).toHaveAccessibleDescription('Only coordinators and modellers add chords');
+    await userEvent.setup().click(add);
+    expect(screen.queryByRole('combobox', { name: 'Station, new chord' })).not.toBeInTheDocument();
+    expect(calls.filter((c) => c.method !== 'GET')).toHaveLength(0);
+  });
+
+  it('ChordTable on an event without stations greys out "Add chord" and points to the stations', async () => {
+    stubFetch(() => jsonResponse(200, []));
+    renderWithProviders(<ChordTable eventId="e1" stationCodes={[]} canEdit />);
+    const add = await screen.findByRole('button', { name: 'Add chord' });
+    expect(add).toHaveAttribute('aria-disabled', 'true');
+    expect(add).toHaveAccessibleDescription('Add a station first (Stations & reports)');
+  });
+
+  it('ChordTable offers "Add chord" with no reason when it can be used', async () => {
+    stubFetch(() => jsonResponse(200, CHORDS));
+    renderWithProviders(<ChordTable eventId="e1" stationCodes={STATIONS} canEdit />);
+    const add = await screen.findByRole('button', { name: 'Add chord' });
+    expect(add).not.toHaveAttribute('aria-disabled');
+    expect(add).toHaveAccessibleDescription('');
+    await userEvent.setup().click(add);
+    expect(screen.getByRole('combobox', { name: 'Station, new chord' })).toBeInTheDocument();
   });
 
   it('ChordTable says what failed and retries', async () => {

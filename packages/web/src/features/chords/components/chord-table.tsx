@@ -2,6 +2,7 @@ import {
   Badge,
   Body1,
   Button,
+  Caption1,
   createTableColumn,
   DataGrid,
   DataGridBody,
@@ -18,6 +19,7 @@ import {
   Select,
   tokens,
   type TableColumnDefinition,
+  useId,
 } from '@fluentui/react-components';
 import { useState, type ReactNode } from 'react';
 import { useDeleteChord } from '../api/delete-chord';
@@ -31,6 +33,7 @@ import { Loading, RequestFailed } from '@/components/request-state';
 const useStyles = makeStyles({
   section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   toolbar: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'end' },
+  addChord: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS, alignItems: 'center' },
   scroll: { overflowX: 'auto' },
   time: { fontFamily: tokens.fontFamilyMonospace, whiteSpace: 'nowrap' },
   number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end' },
@@ -96,6 +99,7 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
   const [editingId, setEditingId] = useState<string | null>(null);
   const [draft, setDraft] = useState<ChordDraft | null>(null);
   const [errors, setErrors] = useState<Partial<Record<DraftField, string>>>({});
+  const addReasonId = useId('add-chord-reason');
 
   const startEdit = (id: string, next: ChordDraft) => {
     save.reset();
@@ -300,6 +304,14 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
   const shown: GridRow[] = chords.data.filter((c) => matches(c, filter)).map((c) => ({ id: c.id, chord: c }));
   const rows = editingId === NEW_ROW_ID ? [{ id: NEW_ROW_ID, chord: null }, ...shown] : shown;
   const problems = Object.entries(errors);
+  // "Add chord" stays in view when it cannot be used, saying why, so nobody hunts for a missing button.
+  const addChordReason = !canEdit
+    ? 'Only coordinators and modellers add chords'
+    : stationCodes.length === 0
+      ? 'Add a station first (Stations & reports)'
+      : editingId !== null
+        ? 'Save or cancel the chord being edited first'
+        : null;
 
   return (
     <section className={styles.section} aria-label="Chords">
@@ -311,14 +323,16 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
             placeholder="station, type or time"
           />
         </Field>
-        {canEdit ? (
+        <div className={styles.addChord}>
           <Button
-            disabled={editingId !== null || stationCodes.length === 0}
+            disabledFocusable={addChordReason !== null}
+            aria-describedby={addChordReason === null ? undefined : addReasonId}
             onClick={() => startEdit(NEW_ROW_ID, emptyDraft(stationCodes[0] ?? ''))}
           >
             Add chord
           </Button>
-        ) : null}
+          {addChordReason === null ? null : <Caption1 id={addReasonId}>{addChordReason}</Caption1>}
+        </div>
         {canEdit ? importButton : null}
       </div>
       {problems.length > 0 ? (
