@@ -52,6 +52,16 @@ describe('betterTimingReplaced', () => {
     );
   });
 
+  it('betterTimingReplaced() quotes one σ when both edges round to the same two digits', () => {
+    const fitted = { ...timed, disappearance: mark(timed.disappearance?.time ?? '', 0.002114) };
+    expect(
+      betterTimingReplaced({ ...fitted, reappearance: mark('2028-03-14T02:14:18.357Z', 0.002086) }, typed)
+        ?.message,
+    ).toBe(
+      "the chord of tarrow-knoll holds times from a light-curve timing (σ 0.0021 s); the report's typed times have σ 0.5 s",
+    );
+  });
+
   it('betterTimingReplaced() lets the same timing be accepted again, since nothing is replaced', () => {
     expect(
       betterTimingReplaced(timed, {

@@ -49,8 +49,8 @@ function seconds(sigma: number): string {
 
 function sigmas(d: TimedMark | null, r: TimedMark | null): string {
   if (!d || !r) return 'no σ';
-  if (d.sigmaSeconds === r.sigmaSeconds) return `σ ${seconds(d.sigmaSeconds)}`;
-  return `σ ${seconds(d.sigmaSeconds)} at disappearance and ${seconds(r.sigmaSeconds)} at reappearance`;
+  const [atD, atR] = [seconds(d.sigmaSeconds), seconds(r.sigmaSeconds)];
+  return atD === atR ? `σ ${atD}` : `σ ${atD} at disappearance and ${atR} at reappearance`;
 }
 
 function smaller(current: TimedMark | null, incoming: TimedMark | null): boolean {
