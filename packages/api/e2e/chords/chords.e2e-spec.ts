@@ -92,6 +92,26 @@ describe('chord routes and the chord CSV import', () => {
     expect(stored.disappearance).toEqual({ time: '2028-03-14T02:11:04Z', sigmaSeconds: 0.05 });
   });
 
+  it("PATCH /api/chords/:chordId makes an imported chord 'manual' once its times change, not for a clock offset", async () => {
+    const list = await t.get(`/api/events/${eventId}/chords`).set(w.auth('modeller')).expect(200);
+    const imported = (
+      list.body as Array<{ id: string; station: string; source: string; timingId: null }>
+    ).find((c) => c.station === 'cinder-hill');
+    expect(imported).toMatchObject({ source: 'import', timingId: null });
+    const id = imported?.id ?? '';
+    const offset = await patch(t, `/api/chords/${id}`)
+      .set(w.auth('modeller'))
+      .send({ timeOffsetSeconds: -0.1 })
+      .expect(200);
+    expect((offset.body as { source: string }).source).toBe('import');
+    const edited = await patch(t, `/api/chords/${id}`)
+      .set(w.auth('modeller'))
+      .send({ reappearance: { time: '2028-03-14T02:14:21.990Z', sigmaSeconds: 0.04 } })
+      .expect(200);
+    expect((edited.body as { source: string }).source).toBe('manual');
+    expect((await t.orm.em.fork().findOneOrFail(Chord, { id })).source).toBe('manual');
+  });
+
   it('POST, PATCH and DELETE on chords validate against the event file chord schema', async () => {
     const created = await t
       .post(`/api/events/${eventId}/chords`)

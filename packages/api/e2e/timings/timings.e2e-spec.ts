@@ -163,20 +163,27 @@ describe('light-curve timing routes and job', () => {
     expect((await solved(id)).state).toBe('solved');
   });
 
-  it('POST /api/events/:eventId/timings/:timingId/accept writes D and R with their sigmas into the station chord', async () => {
+  it('POST /api/events/:eventId/timings/:timingId/accept writes D and R with their sigmas into the station chord and accepts the report', async () => {
     const detail = await solved(timingId);
+    expect(detail.inChord).toBe(false);
     const response = await t
       .post(`/api/events/${eventId}/timings/${timingId}/accept`)
       .set(w.auth('modeller'))
       .expect(200);
-    const chordId = (response.body as { chordId: string }).chordId;
-    const chord = await t.orm.em.fork().findOneOrFail(Chord, { id: chordId }, { populate: ['station'] });
+    const body = response.body as { chordId: string; report: { state: string; chord: { source: string } } };
+    const chord = await t.orm.em.fork().findOneOrFail(Chord, { id: body.chordId }, { populate: ['station'] });
     expect(chord.station.id).toBe(stationId);
     expect(chord.type).toBe('positive');
     expect(chord.disappearance).toEqual(detail.result?.disappearance);
     expect(chord.reappearance).toEqual(detail.result?.reappearance);
+    expect(chord.source).toBe('timing');
+    expect(chord.timing?.id).toBe(timingId);
+    expect(chord.report?.id).toBe(reportId);
     // The example's own chord at this station was updated, not joined by a second one.
     expect(await t.orm.em.fork().count(Chord, { event: eventId, station: stationId })).toBe(1);
+    expect((await t.orm.em.fork().findOneOrFail(Report, { id: reportId })).state).toBe('accepted');
+    expect(body.report).toMatchObject({ state: 'accepted', chord: { source: 'timing' } });
+    expect((await solved(timingId)).inChord).toBe(true);
   });
 
   it('POST /api/events/:eventId/timings/:timingId/ring-events makes one ring event per dip, once', async () => {
@@ -326,6 +333,34 @@ describe('light-curve timing routes and job', () => {
       actual.push((await req.set(w.auth(actor)).send(body)).status);
     }
     expect(actual).toEqual(codes);
+  });
+
+  it('POST /api/events/:eventId/timings/:timingId/accept of another timing asks before replacing the timed chord', async () => {
+    const other = await freshSolvedTiming();
+    const refused = await t
+      .post(`/api/events/${eventId}/timings/${other}/accept`)
+      .set(w.auth('coordinator'))
+      .send({})
+      .expect(409);
+    expect(refused.body).toMatchObject({
+      code: 'replaces-better-timing',
+      detail: { station: 'amberfield', source: 'timing', timingId },
+    });
+    expect((refused.body as { message: string }).message).toMatch(
+      /^the chord of amberfield holds times from a light-curve timing \(σ .+\); this timing's times have σ .+ s$/,
+    );
+    const listed = async () =>
+      (await t.get(`/api/events/${eventId}/reports/${reportId}/timings`).set(w.auth('observer')).expect(200))
+        .body as Array<{ id: string; inChord: boolean }>;
+    expect((await listed()).filter((s) => s.inChord).map((s) => s.id)).toEqual([timingId]);
+    await t
+      .post(`/api/events/${eventId}/timings/${other}/accept`)
+      .set(w.auth('coordinator'))
+      .send({ replaceTimedChord: true })
+      .expect(200);
+    expect((await listed()).filter((s) => s.inChord).map((s) => s.id)).toEqual([other]);
+    const chord = await t.orm.em.fork().findOneOrFail(Chord, { report: reportId });
+    expect(chord.timing?.id).toBe(other);
   });
 
   it('timing routes: observers read but may not queue; another team sees nothing', async () => {
