@@ -14,6 +14,7 @@ function props(overrides: Partial<AppHeaderProps> = {}): AppHeaderProps {
     onTeamChange: vi.fn(),
     onSignOut: vi.fn(),
     nav: null,
+    accountLink: <a href="/account">Account</a>,
     ...overrides,
   };
 }
@@ -26,6 +27,12 @@ describe('AppHeader', () => {
     expect(within(banner).getByText('site admin, coordinator')).toBeInTheDocument();
     expect(within(banner).getByText('Outer Belt Timing Group')).toBeInTheDocument();
     expect(screen.queryByRole('combobox', { name: 'Team' })).not.toBeInTheDocument();
+  });
+
+  it('AppHeader shows the account link in the user block, beside the sign-out button', () => {
+    render(<AppHeader {...props()} />);
+    const banner = screen.getByRole('banner');
+    expect(within(banner).getByRole('link', { name: 'Account' })).toHaveAttribute('href', '/account');
   });
 
   it('AppHeader calls onSignOut from the sign-out button', async () => {

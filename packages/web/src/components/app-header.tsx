@@ -19,6 +19,8 @@ export interface AppHeaderProps {
   onSignOut: () => void;
   signingOut?: boolean;
   nav: ReactNode;
+  /** The link to the user's own account page, shown with their name. */
+  accountLink: ReactNode;
 }
 
 const useStyles = makeStyles({
@@ -91,6 +93,7 @@ export function AppHeader(props: AppHeaderProps) {
             {rolesLabel(props.isAdmin, currentTeam)}
           </Text>
         </div>
+        {props.accountLink}
         <Button icon={<SignOutRegular />} onClick={props.onSignOut} disabled={props.signingOut}>
           Sign out
         </Button>

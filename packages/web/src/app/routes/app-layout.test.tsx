@@ -1,4 +1,4 @@
-import { screen } from '@testing-library/react';
+import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { Route, Routes } from 'react-router-dom';
@@ -46,6 +46,32 @@ describe('AppLayout', () => {
     // Give a stray refetch the time it would need to reach fetch.
     await new Promise((resolve) => setTimeout(resolve, 50));
     expect(calls.map((c) => c.url)).toEqual(['/api/me', '/api/auth/logout']);
+  });
+
+  it('AppLayout offers Events, Bodies and Team, the Outbox to admins only, and the account page', async () => {
+    let me = ME;
+    stubFetch(() => jsonResponse(200, me));
+    const first = renderLayout();
+    const nav = await screen.findByRole('navigation', { name: 'Main' });
+    expect(
+      within(nav)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual(['Events', 'Bodies', 'Team']);
+    expect(within(screen.getByRole('banner')).getByRole('link', { name: 'Account' })).toHaveAttribute(
+      'href',
+      paths.account,
+    );
+    first.unmount();
+
+    me = { ...ME, isAdmin: true };
+    renderLayout();
+    const adminNav = await screen.findByRole('navigation', { name: 'Main' });
+    expect(
+      within(adminNav)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual(['Events', 'Bodies', 'Team', 'Outbox']);
   });
 
   it('AppLayout sends a signed-out visitor to the sign-in page without asking the server', async () => {

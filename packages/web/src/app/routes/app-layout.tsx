@@ -95,11 +95,12 @@ export function AppLayout() {
         nav={
           <>
             <RouterLink to={paths.events}>Events</RouterLink>
-            <RouterLink to={paths.comparison}>Comparison</RouterLink>
-            <RouterLink to={paths.plotsPreview}>Plot preview</RouterLink>
+            <RouterLink to={paths.bodies}>Bodies</RouterLink>
+            <RouterLink to={paths.team}>Team</RouterLink>
             {me.data.isAdmin ? <RouterLink to={paths.adminOutbox}>Outbox</RouterLink> : null}
           </>
         }
+        accountLink={<RouterLink to={paths.account}>Account</RouterLink>}
       />
       <main id="main" className={styles.main} tabIndex={-1}>
         <Outlet context={context} />
