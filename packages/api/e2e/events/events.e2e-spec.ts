@@ -4,6 +4,7 @@ import { Chord } from '../../src/chords/entities/chord.entity';
 import { RingEvent } from '../../src/chords/entities/ring-event.entity';
 import { OccultationEvent } from '../../src/events/entities/occultation-event.entity';
 import { Station } from '../../src/stations/entities/station.entity';
+import { User } from '../../src/users/entities/user.entity';
 import { bootTestApp, type TestApp } from '../setup';
 import {
   type Actor,
@@ -55,6 +56,7 @@ describe('event routes', () => {
         objectType: 'event',
         objectId: id,
         actorId: w.userIds.coordinator,
+        actorName: (await em.findOneOrFail(User, { id: w.userIds.coordinator })).name,
       }),
     ]);
   });

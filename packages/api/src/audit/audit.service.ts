@@ -1,5 +1,7 @@
 import type { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
+import type { AuditEntryView } from '@limbus/schema';
+import { User } from '../users/entities/user.entity';
 import { AuditEntry } from './entities/audit-entry.entity';
 
 export interface AuditRecord {
@@ -12,15 +14,7 @@ export interface AuditRecord {
   detail?: Record<string, unknown>;
 }
 
-export interface AuditView {
-  id: string;
-  actorId: string | null;
-  action: string;
-  objectType: string;
-  objectId: string;
-  detail: Record<string, unknown> | null;
-  createdAt: string;
-}
+export type AuditView = AuditEntryView;
 
 /**
  * Entries are persisted into the caller's entity manager, so they commit or roll back with the
@@ -36,9 +30,15 @@ export class AuditService {
 
   async forEvent(em: EntityManager, eventId: string): Promise<AuditView[]> {
     const entries = await em.find(AuditEntry, { eventId }, { orderBy: { createdAt: 'asc', id: 'asc' } });
+    // Actors are ids, not keys, so an entry outlives its actor; a removed account shows no name.
+    const actorIds = [...new Set(entries.map((e) => e.actorId).filter((id): id is string => id !== null))];
+    const actors =
+      actorIds.length === 0 ? [] : await em.find(User, { id: { $in: actorIds } }, { fields: ['id', 'name'] });
+    const names = new Map(actors.map((u) => [u.id, u.name]));
     return entries.map((e) => ({
       id: e.id,
       actorId: e.actorId,
+      actorName: e.actorId === null ? null : (names.get(e.actorId) ?? null),
       action: e.action,
       objectType: e.objectType,
       objectId: e.objectId,
