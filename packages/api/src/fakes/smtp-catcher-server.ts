@@ -15,7 +15,12 @@ export interface CaughtMessage {
   text: string;
   html: string;
   date: string;
+  /** The X-Limbus-Kind header (invitation, password-reset, a notice kind); null for other mail. */
+  kind: string | null;
 }
+
+/** The header the API sets (MAIL_KIND_HEADER in @limbus/schema); mailparser lower-cases header names. */
+const KIND_HEADER = 'x-limbus-kind';
 
 export interface SmtpCatcherOptions {
   /** 0 picks a free port (tests). */
@@ -55,7 +60,16 @@ async function loadMessages(dir: string): Promise<CaughtMessage[]> {
   return content
     .split('\n')
     .filter((line) => line.trim() !== '')
-    .map((line) => JSON.parse(line) as CaughtMessage);
+    .map((line) => {
+      // Lines written before the catcher recorded the kind have none.
+      const stored = JSON.parse(line) as Omit<CaughtMessage, 'kind'> & { kind?: string | null };
+      return { ...stored, kind: stored.kind ?? null };
+    });
+}
+
+function kindOf(headers: Map<string, unknown>): string | null {
+  const value = headers.get(KIND_HEADER);
+  return typeof value === 'string' && value.trim() !== '' ? value.trim() : null;
 }
 
 function listen(server: NetServer, start: (ready: () => void) => void): Promise<number> {
@@ -103,6 +117,7 @@ export async function startSmtpCatcher(options: SmtpCatcherOptions): Promise<Smt
             text: parsed.text ?? '',
             html: parsed.html === false ? '' : (parsed.html ?? ''),
             date: (parsed.date ?? new Date()).toISOString(),
+            kind: kindOf(parsed.headers),
           };
           messages.push(message);
           if (dir !== undefined) await appendFile(join(dir, MESSAGES_FILE), `${JSON.stringify(message)}\n`);

@@ -1,13 +1,18 @@
-import { mkdtemp, rm } from 'node:fs/promises';
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createTransport } from 'nodemailer';
 import { afterEach, describe, expect, it } from 'vitest';
 import { startSmtpCatcher, type CaughtMessage, type SmtpCatcher } from './smtp-catcher-server';
 
-async function send(catcher: SmtpCatcher, subject: string): Promise<void> {
+async function send(
+  catcher: SmtpCatcher,
+  subject: string,
+  headers: Record<string, string> = {},
+): Promise<void> {
   const transport = createTransport({ url: catcher.smtpUrl, ignoreTLS: true });
   await transport.sendMail({
+    headers,
     from: 'Limbus <no-reply@limbus.invalid>',
     to: 'observer@example.org',
     bcc: 'archive@example.org',
@@ -48,6 +53,37 @@ describe('smtp catcher', () => {
     expect(last?.html).toContain('<a href="http://127.0.0.1:8080/invitations/abc">');
     expect(Number.isNaN(Date.parse(last?.date ?? ''))).toBe(false);
     expect(messages[0]?.id).not.toBe(last?.id);
+    expect(last?.kind).toBeNull();
+  });
+
+  it('startSmtpCatcher() records the X-Limbus-Kind header as the message kind', async () => {
+    const catcher = await startSmtpCatcher({ smtpPort: 0, httpPort: 0 });
+    open.push(catcher);
+    await send(catcher, 'You are invited', { 'X-Limbus-Kind': 'invitation' });
+    await send(catcher, 'Review requested', { 'x-limbus-kind': 'review-requested' });
+    expect((await fetchMessages(catcher)).map((m) => m.kind)).toEqual(['invitation', 'review-requested']);
+  });
+
+  it('startSmtpCatcher() reads messages stored before it recorded kinds, with kind null', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'limbus-catcher-'));
+    dirs.push(dir);
+    const old = {
+      id: 'b7d1c1de-0000-4000-8000-000000000001',
+      from: 'Limbus <no-reply@limbus.invalid>',
+      to: ['observer@example.org'],
+      subject: 'Stored long ago',
+      text: 'Hello',
+      html: '',
+      date: '2026-01-02T03:04:05.000Z',
+    };
+    await writeFile(join(dir, 'messages.jsonl'), `${JSON.stringify(old)}\n`);
+    const catcher = await startSmtpCatcher({ smtpPort: 0, httpPort: 0, dir });
+    open.push(catcher);
+    await send(catcher, 'Sent now', { 'X-Limbus-Kind': 'password-reset' });
+    expect(await fetchMessages(catcher)).toEqual([
+      { ...old, kind: null },
+      expect.objectContaining({ subject: 'Sent now', kind: 'password-reset' }),
+    ]);
   });
 
   it('startSmtpCatcher() empties the list on DELETE /messages', async () => {
