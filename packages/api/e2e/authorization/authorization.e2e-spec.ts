@@ -67,6 +67,20 @@ describe('authorization matrix of the event workspace', () => {
       .expect(201);
     return (response.body as { id: string }).id;
   };
+  const acceptedReport = async (): Promise<string> => {
+    const id = await newReport();
+    await t.post(`/api/reports/${id}/accept`).set(coordinator()).expect(200);
+    return id;
+  };
+  const pendingCorrection = async (): Promise<string> => {
+    const id = await acceptedReport();
+    const response = await t
+      .post(`/api/reports/${id}/corrections`)
+      .set(w.auth('observer'))
+      .send({ changes: { notes: 'the sky cleared at 02:12' }, message: 'I left out a note' })
+      .expect(201);
+    return `/api/reports/${id}/corrections/${(response.body as { id: string }).id}`;
+  };
   const newChord = async (): Promise<string> => {
     const response = await t
       .post(`/api/events/${eventId}/chords`)
@@ -168,6 +182,20 @@ describe('authorization matrix of the event workspace', () => {
     'POST /api/reports/:reportId/reject': async () => ({
       method: 'post',
       url: `/api/reports/${await newReport()}/reject`,
+      json: { reason: 'r' },
+    }),
+    'POST /api/reports/:reportId/corrections': async () => ({
+      method: 'post',
+      url: `/api/reports/${await acceptedReport()}/corrections`,
+      json: { changes: { notes: 'n' }, message: 'm' },
+    }),
+    'POST /api/reports/:reportId/corrections/:correctionId/accept': async () => ({
+      method: 'post',
+      url: `${await pendingCorrection()}/accept`,
+    }),
+    'POST /api/reports/:reportId/corrections/:correctionId/reject': async () => ({
+      method: 'post',
+      url: `${await pendingCorrection()}/reject`,
       json: { reason: 'r' },
     }),
     'POST /api/reports/:reportId/light-curve': async () => ({

@@ -48,6 +48,18 @@ export const MATRIX: MatrixRow[] = [
   { route: 'PATCH /api/reports/:reportId', ok: 200, cells: only(['observer']) },
   { route: 'POST /api/reports/:reportId/accept', ok: 200, cells: only(['admin', 'coordinator']) },
   { route: 'POST /api/reports/:reportId/reject', ok: 200, cells: only(['admin', 'coordinator']) },
+  // The report's author (here the observer) and nobody else; an admin is not the author.
+  { route: 'POST /api/reports/:reportId/corrections', ok: 201, cells: only(['observer']) },
+  {
+    route: 'POST /api/reports/:reportId/corrections/:correctionId/accept',
+    ok: 200,
+    cells: only(['admin', 'coordinator']),
+  },
+  {
+    route: 'POST /api/reports/:reportId/corrections/:correctionId/reject',
+    ok: 200,
+    cells: only(['admin', 'coordinator']),
+  },
   {
     route: 'POST /api/reports/:reportId/light-curve',
     ok: 201,
