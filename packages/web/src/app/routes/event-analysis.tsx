@@ -1,12 +1,15 @@
 import { Body1, Field, makeStyles, Select, Subtitle1, tokens } from '@fluentui/react-components';
 import { useState } from 'react';
 import { Loading, RequestFailed } from '@/components/request-state';
-import { DynamicsPanel } from '@/features/dynamics/components/dynamics-panel';
+import { RouterLink } from '@/components/router-link';
+import { paths } from '@/config/paths';
+import { EventDynamicsPanel } from '@/features/dynamics/components/dynamics-panel';
+import { useEvent } from '@/features/event-setup/api/get-event';
 import { LightCurvePanel } from '@/features/light-curves/components/light-curve-panel';
 import { useReports } from '@/features/reports/api/get-reports';
 
-// Composes the light-curve and dynamics features into the event desk (event.tsx mounts these two), so
-// neither feature needs to know about reports or fits beyond the ids it is given.
+// Composes the light-curve, dynamics and setup features into the event desk (event.tsx mounts these), so
+// no feature needs to know about reports, fits or bodies beyond the ids it is given.
 
 const useStyles = makeStyles({
   section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
@@ -58,7 +61,23 @@ export function EventLightCurvesSection({ eventId, stations, canEdit }: EventAna
   );
 }
 
-/** The body's dynamics strip, shown beside the ring fit in the Fits section. */
+/**
+ * The body's dynamics strip beside the ring fit in the Fits section, read-only: the physical parameters
+ * are the body's, edited on its page (`canEdit` words the link as an invitation to edit them there).
+ */
 export function EventDynamicsSection({ eventId, canEdit }: Omit<EventAnalysisProps, 'stations'>) {
-  return <DynamicsPanel eventId={eventId} canEdit={canEdit} />;
+  const event = useEvent(eventId);
+  const body = event.data;
+  return (
+    <EventDynamicsPanel
+      eventId={eventId}
+      bodyLink={
+        body === undefined ? null : (
+          <RouterLink to={paths.body(body.bodyId)}>
+            {canEdit ? 'Edit' : 'See'} the physical parameters of {body.bodyName}
+          </RouterLink>
+        )
+      }
+    />
+  );
 }

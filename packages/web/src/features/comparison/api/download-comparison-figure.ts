@@ -10,11 +10,11 @@ export const comparisonFigureInputSchema = z.object({
 });
 export type ComparisonFigureInput = z.infer<typeof comparisonFigureInputSchema>;
 
-export function comparisonFigureUrl(teamId: string, input: ComparisonFigureInput): string {
+export function comparisonFigureUrl(bodyId: string, input: ComparisonFigureInput): string {
   const v = comparisonFigureInputSchema.parse(input);
   const q = figureQuery(v, { fits: v.selection });
   if (v.jointId !== null) q.set('jointId', v.jointId);
-  return `/api/teams/${encodeURIComponent(teamId)}/comparison/figure?${q.toString()}`;
+  return `/api/bodies/${encodeURIComponent(bodyId)}/comparison/figure?${q.toString()}`;
 }
 
 export function comparisonFigureFileName(input: ComparisonFigureInput): string {

@@ -43,17 +43,17 @@ export const submitJointPoleInputSchema = z.object({
 });
 export type SubmitJointPoleInput = z.infer<typeof submitJointPoleInputSchema>;
 
-export function submitJointPole(teamId: string, input: SubmitJointPoleInput): Promise<{ id: string }> {
-  return apiRequest(`/api/teams/${encodeURIComponent(teamId)}/joint-poles`, {
+export function submitJointPole(bodyId: string, input: SubmitJointPoleInput): Promise<{ id: string }> {
+  return apiRequest(`/api/bodies/${encodeURIComponent(bodyId)}/joint-poles`, {
     method: 'POST',
     body: submitJointPoleInputSchema.parse(input),
     schema: z.object({ id: z.string() }),
   });
 }
 
-export function useSubmitJointPole(teamId: string, onQueued: (id: string) => void) {
+export function useSubmitJointPole(bodyId: string, onQueued: (id: string) => void) {
   return useMutation({
-    mutationFn: (input: SubmitJointPoleInput) => submitJointPole(teamId, input),
+    mutationFn: (input: SubmitJointPoleInput) => submitJointPole(bodyId, input),
     onSuccess: ({ id }) => onQueued(id),
   });
 }

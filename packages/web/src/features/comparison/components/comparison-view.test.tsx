@@ -9,14 +9,21 @@ import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-uti
 afterEach(() => vi.unstubAllGlobals());
 
 // Invented numbers for an invented body; only their formatting and placement are under test.
-function fit(id: string, date: string, approved: boolean, withLimb = true): ComparisonFit {
+function fit(
+  id: string,
+  date: string,
+  approved: boolean,
+  withLimb = true,
+  eventId = `e-${id}`,
+): ComparisonFit {
   return {
     fitId: id,
-    eventId: `e-${id}`,
-    eventTitle: `Event ${id}`,
+    eventId,
+    eventTitle: `Event ${eventId.slice(2)}`,
     eventDateUtc: date,
     reviewState: approved ? 'approved' : 'none',
     finishedAt: date,
+    inputMatchesEvent: true,
     limb: withLimb
       ? {
           centerFKm: { value: 1.234, sigma: 0.51 },
@@ -44,11 +51,15 @@ function fit(id: string, date: string, approved: boolean, withLimb = true): Comp
   };
 }
 
+// Event a has two approved fits: an older one (a0, run on data that has changed since) and the latest (a).
 const APPROVED: Comparison = {
-  teamId: 't1',
   selection: 'approved',
   ringLabels: ['R1'],
-  fits: [fit('a', '2028-03-14T02:11:00.000Z', true), fit('b', '2031-07-02T20:00:00.000Z', true)],
+  fits: [
+    { ...fit('a0', '2028-03-14T02:11:00.000Z', true, true, 'e-a'), finishedAt: '2028-03-20T00:00:00.000Z' },
+    { ...fit('a', '2028-03-14T02:11:00.000Z', true), finishedAt: '2028-04-02T00:00:00.000Z' },
+    { ...fit('b', '2031-07-02T20:00:00.000Z', true), inputMatchesEvent: false },
+  ],
 };
 const ALL: Comparison = {
   ...APPROVED,
@@ -79,26 +90,30 @@ const JOB: JointPoleJob = {
 
 function server() {
   return stubFetch((call) => {
-    if (call.url.includes('/comparison?fits=approved')) return jsonResponse(200, APPROVED);
-    if (call.url.includes('/comparison?fits=all')) return jsonResponse(200, ALL);
-    if (call.url.endsWith('/joint-poles') && call.method === 'POST') return jsonResponse(202, { id: 'j1' });
+    if (call.url === '/api/bodies/b1/comparison?fits=approved') return jsonResponse(200, APPROVED);
+    if (call.url === '/api/bodies/b1/comparison?fits=all') return jsonResponse(200, ALL);
+    if (call.url === '/api/bodies/b1/joint-poles' && call.method === 'POST')
+      return jsonResponse(202, { id: 'j1' });
     if (call.url.endsWith('/joint-poles/j1')) return jsonResponse(200, JOB);
     return jsonResponse(404, { message: 'no route' });
   });
 }
 
 describe('ComparisonView', () => {
-  it('ComparisonView tables the approved fits with ± 1σ against the event date, and asks for approved fits first', async () => {
+  it('ComparisonView tables the latest approved fit of each event with ± 1σ against the event date, from the body route', async () => {
     const calls = server();
-    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole />);
+    renderWithProviders(<ComparisonView bodyId="b1" canFitJointPole />);
     const table = await screen.findByRole('table', { name: 'Parameters by event' });
     const rows = within(table).getAllByRole('row');
     expect(rows).toHaveLength(3);
-    expect(rows[1]).toHaveTextContent('2028-03-14 02:11:00');
+    expect(rows[1]).toHaveAttribute('data-fit', 'a');
+    expect(rows[1]).toHaveTextContent('2028-03-14 02:11:00 UTC');
     expect(rows[1]).toHaveTextContent('401.2 ± 1.8');
     expect(rows[1]).toHaveTextContent('0.100 ± 0.012');
     expect(rows[1]).toHaveTextContent('1080.0 ± 2.3');
-    expect(calls[0]?.url).toBe('/api/teams/t1/comparison?fits=approved');
+    expect(rows[1]).not.toHaveTextContent('based on older data');
+    expect(rows[2]).toHaveTextContent('based on older data');
+    expect(calls[0]?.url).toBe('/api/bodies/b1/comparison?fits=approved');
     expect(
       screen.getByRole('img', { name: 'Centred overlay of 2 limb and 2 ring ellipses' }),
     ).toBeInTheDocument();
@@ -106,20 +121,22 @@ describe('ComparisonView', () => {
     expect(chart.querySelectorAll('[data-pole]')).toHaveLength(4);
   });
 
-  it('ComparisonView adds unapproved fits on request, an event without a limb showing dashes', async () => {
+  it('ComparisonView shows every approved fit, then every solved fit, on request; an event without a limb shows dashes', async () => {
     server();
-    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole />);
-    await screen.findByRole('table', { name: 'Parameters by event' });
-    await userEvent.click(screen.getByRole('switch', { name: 'Include fits that are not approved' }));
-    await waitFor(() => expect(screen.getAllByRole('row')).toHaveLength(4));
-    const last = screen.getAllByRole('row')[3];
+    renderWithProviders(<ComparisonView bodyId="b1" canFitJointPole />);
+    const table = await screen.findByRole('table', { name: 'Parameters by event' });
+    await userEvent.click(screen.getByRole('radio', { name: 'Every approved fit' }));
+    await waitFor(() => expect(within(table).getAllByRole('row')).toHaveLength(4));
+    await userEvent.click(screen.getByRole('radio', { name: 'Every solved fit, approved or not' }));
+    await waitFor(() => expect(screen.getAllByRole('row')).toHaveLength(5));
+    const last = screen.getAllByRole('row')[4];
     expect(last).toHaveTextContent('not approved');
     expect(last).toHaveTextContent('—');
   });
 
   it('ComparisonView queues the joint pole over the chosen events and says which pole survives', async () => {
     const calls = server();
-    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole />);
+    renderWithProviders(<ComparisonView bodyId="b1" canFitJointPole />);
     await screen.findByRole('table', { name: 'Parameters by event' });
     await userEvent.click(screen.getByRole('checkbox', { name: 'Use Event b in the joint pole' }));
     await userEvent.click(screen.getByRole('button', { name: /Fit joint pole of ring R1 \(1 event\)/ }));
@@ -133,7 +150,7 @@ describe('ComparisonView', () => {
 
   it('ComparisonView lets only modellers and coordinators fit the joint pole', async () => {
     server();
-    renderWithProviders(<ComparisonView teamId="t1" teamName="Team" canFitJointPole={false} />);
+    renderWithProviders(<ComparisonView bodyId="b1" canFitJointPole={false} />);
     await screen.findByRole('table', { name: 'Parameters by event' });
     expect(screen.getByRole('button', { name: /Fit joint pole/ })).toBeDisabled();
   });

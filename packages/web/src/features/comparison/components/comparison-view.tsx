@@ -6,15 +6,17 @@ import {
   MessageBar,
   MessageBarBody,
   MessageBarTitle,
+  Radio,
+  RadioGroup,
+  Field,
   Select,
+  Subtitle1,
   Subtitle2,
-  Switch,
-  Title2,
   tokens,
 } from '@fluentui/react-components';
 import { useState } from 'react';
 import { comparisonFigureFileName, comparisonFigureUrl } from '../api/download-comparison-figure';
-import { type FitSelection, useComparison } from '../api/get-comparison';
+import { comparedFits, type FitSelection, routeSelection, useComparison } from '../api/get-comparison';
 import { type JointPoleDocument, useJointPole, useSubmitJointPole } from '../api/joint-pole';
 import { EllipseOverlay } from './ellipse-overlay';
 import { ParameterTable } from './parameter-table';
@@ -45,21 +47,32 @@ function AmbiguityText({ doc }: { doc: JointPoleDocument }) {
 }
 
 export interface ComparisonViewProps {
-  teamId: string;
-  teamName: string;
+  bodyId: string;
   /** Modellers and coordinators may queue a joint pole fit. */
   canFitJointPole: boolean;
 }
 
-/** A team's fits side by side: parameters against date, centred ellipses, pole candidates and the joint pole. */
-export function ComparisonView({ teamId, teamName, canFitJointPole }: ComparisonViewProps) {
+const SELECTIONS: Record<FitSelection, string> = {
+  latest: 'Latest approved fit of each event',
+  approved: 'Every approved fit',
+  all: 'Every solved fit, approved or not',
+};
+
+const EMPTY_TEXT: Record<FitSelection, string> = {
+  latest: 'No approved fits of this body yet. Choose "Every solved fit" to compare fits before review.',
+  approved: 'No approved fits of this body yet. Choose "Every solved fit" to compare fits before review.',
+  all: 'No solved fits of this body yet.',
+};
+
+/** A body's fits side by side: parameters against date, centred ellipses, pole candidates and the joint pole. */
+export function ComparisonView({ bodyId, canFitJointPole }: ComparisonViewProps) {
   const styles = useStyles();
-  const [selection, setSelection] = useState<FitSelection>('approved');
-  const comparison = useComparison(teamId, selection);
+  const [selection, setSelection] = useState<FitSelection>('latest');
+  const comparison = useComparison(bodyId, selection);
   const [unselected, setUnselected] = useState<ReadonlySet<string>>(new Set());
   const [ring, setRing] = useState<string | null>(null);
   const [jointId, setJointId] = useState<string | null>(null);
-  const submit = useSubmitJointPole(teamId, setJointId);
+  const submit = useSubmitJointPole(bodyId, setJointId);
   const jointJob = useJointPole(jointId);
 
   if (comparison.isPending) return <Loading label="Loading the comparison…" />;
@@ -72,7 +85,7 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
       />
     );
 
-  const data = comparison.data;
+  const data = comparedFits(comparison.data, selection);
   const activeRing = ring ?? data.ringLabels[0] ?? null;
   const selected = new Set(
     data.fits
@@ -87,19 +100,29 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
       return next;
     });
   const job = jointJob.data;
+  // The figure route knows "approved" and "all"; it cannot pick the latest approved fit per event.
+  const hasOlderApproved = data.fits.length < comparison.data.fits.length;
   const joint = job?.state === 'solved' ? job.result : null;
 
   return (
     <section className={styles.page} aria-labelledby="comparison-title">
-      <Title2 as="h2" id="comparison-title">
-        Comparison of fits — {teamName}
-      </Title2>
+      <Subtitle1 as="h3" id="comparison-title">
+        Comparison of fits
+      </Subtitle1>
       <div className={styles.controls}>
-        <Switch
-          label="Include fits that are not approved"
-          checked={selection === 'all'}
-          onChange={(_, d) => setSelection(d.checked ? 'all' : 'approved')}
-        />
+        <Field label="Fits compared">
+          <RadioGroup
+            layout="horizontal"
+            value={selection}
+            onChange={(_, d) =>
+              setSelection(d.value === 'all' ? 'all' : d.value === 'approved' ? 'approved' : 'latest')
+            }
+          >
+            {(Object.keys(SELECTIONS) as FitSelection[]).map((key) => (
+              <Radio key={key} value={key} label={SELECTIONS[key]} />
+            ))}
+          </RadioGroup>
+        </Field>
         {data.ringLabels.length > 1 ? (
           <label>
             Ring{' '}
@@ -113,11 +136,7 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
       </div>
       {data.fits.length === 0 ? (
         <MessageBar intent="info">
-          <MessageBarBody>
-            {selection === 'approved'
-              ? 'No approved fits yet. Switch on "Include fits that are not approved" to compare every solved fit.'
-              : 'No solved fits in this team yet.'}
-          </MessageBarBody>
+          <MessageBarBody>{EMPTY_TEXT[selection]}</MessageBarBody>
         </MessageBar>
       ) : (
         <>
@@ -129,12 +148,12 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
           />
           <div className={styles.plots}>
             <figure className={styles.figure}>
-              <Subtitle2 as="h3">Limbs and rings, centred</Subtitle2>
+              <Subtitle2 as="h4">Limbs and rings, centred</Subtitle2>
               <EllipseOverlay fits={data.fits} />
               <Caption1>Solid: limb ellipses; dashed: ring ellipses; colours as in the table.</Caption1>
             </figure>
             <figure className={styles.figure}>
-              <Subtitle2 as="h3">Ring pole candidates</Subtitle2>
+              <Subtitle2 as="h4">Ring pole candidates</Subtitle2>
               <PoleChart fits={data.fits} ring={activeRing} joint={joint} />
               <Caption1>
                 Filled circle: solution 1 of an event; open square: solution 2; triangle: joint pole with its
@@ -143,19 +162,22 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
             </figure>
           </div>
           {activeRing !== null ? (
-            <div className={styles.controls}>
-              <Button
-                appearance="primary"
-                disabled={!canFitJointPole || selected.size === 0 || submit.isPending}
-                onClick={() => submit.mutate({ fitIds: [...selected], ring: activeRing })}
-              >
-                Fit joint pole of ring {activeRing} ({selected.size}{' '}
-                {selected.size === 1 ? 'event' : 'events'})
-              </Button>
-              {!canFitJointPole ? (
-                <Caption1>Modellers and coordinators can fit the joint pole.</Caption1>
-              ) : null}
-            </div>
+            <>
+              <Subtitle2 as="h4">Joint ring pole</Subtitle2>
+              <div className={styles.controls}>
+                <Button
+                  appearance="primary"
+                  disabled={!canFitJointPole || selected.size === 0 || submit.isPending}
+                  onClick={() => submit.mutate({ fitIds: [...selected], ring: activeRing })}
+                >
+                  Fit joint pole of ring {activeRing} ({selected.size}{' '}
+                  {selected.size === 1 ? 'event' : 'events'})
+                </Button>
+                {!canFitJointPole ? (
+                  <Caption1>Modellers and coordinators can fit the joint pole.</Caption1>
+                ) : null}
+              </div>
+            </>
           ) : null}
           {submit.isError ? (
             <MessageBar intent="error" role="alert">
@@ -181,10 +203,20 @@ export function ComparisonView({ teamId, teamName, canFitJointPole }: Comparison
           <FigureDownload
             buttonLabel="Download comparison figure"
             figure={(spec) => {
-              const input = { ...spec, selection, jointId: joint === null ? null : (job?.id ?? null) };
-              return { url: comparisonFigureUrl(teamId, input), fileName: comparisonFigureFileName(input) };
+              const input = {
+                ...spec,
+                selection: routeSelection(selection),
+                jointId: joint === null ? null : (job?.id ?? null),
+              };
+              return { url: comparisonFigureUrl(bodyId, input), fileName: comparisonFigureFileName(input) };
             }}
           />
+          {selection === 'latest' && hasOlderApproved ? (
+            <Caption1>
+              The figure draws every approved fit; some events above have an older approved fit besides the
+              latest one.
+            </Caption1>
+          ) : null}
         </>
       )}
     </section>

@@ -11,10 +11,12 @@ import {
 } from '@fluentui/react-components';
 import type { ComparisonFit, ValueSigma } from '../api/get-comparison';
 import { fitColour } from '../format';
+import { ScrollArea } from '@/components/scroll-area';
+import { StaleFitBadge } from '@/components/stale-fit';
+import { utcText } from '@/lib/utc-text';
 import { formatValueSigma } from '@/lib/value-sigma';
 
 const useStyles = makeStyles({
-  scroll: { overflowX: 'auto' },
   // Fluent's table is fixed-layout; these columns must grow to their numbers instead of overlapping.
   table: { tableLayout: 'auto', width: 'max-content', minWidth: '100%' },
   number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end', whiteSpace: 'nowrap' },
@@ -41,7 +43,7 @@ export interface ParameterTableProps {
 export function ParameterTable({ fits, ringLabels, selected, onToggle }: ParameterTableProps) {
   const styles = useStyles();
   return (
-    <div className={styles.scroll}>
+    <ScrollArea label="Comparison table">
       <Table className={styles.table} aria-label="Parameters by event" size="small">
         <TableHeader>
           <TableRow>
@@ -75,10 +77,16 @@ export function ParameterTable({ fits, ringLabels, selected, onToggle }: Paramet
                     aria-label={`Use ${fit.eventTitle} in the joint pole`}
                   />
                 </TableCell>
-                <TableCell>{fit.eventDateUtc?.slice(0, 19).replace('T', ' ') ?? '—'}</TableCell>
+                <TableCell>{fit.eventDateUtc === null ? '—' : utcText(fit.eventDateUtc)}</TableCell>
                 <TableCell>
                   <span className={styles.swatch} style={{ background: fitColour(i) }} aria-hidden />
                   {fit.eventTitle}
+                  {fit.inputMatchesEvent === false ? (
+                    <>
+                      {' '}
+                      <StaleFitBadge />
+                    </>
+                  ) : null}
                 </TableCell>
                 <TableCell>{fit.reviewState === 'approved' ? 'approved' : 'not approved'}</TableCell>
                 <Cell v={limb?.equatorialRadiusKm} />
@@ -100,6 +108,6 @@ export function ParameterTable({ fits, ringLabels, selected, onToggle }: Paramet
           })}
         </TableBody>
       </Table>
-    </div>
+    </ScrollArea>
   );
 }

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 
-// The GET/PUT /api/events/:eventId/dynamics body (docs/file-formats.md, "Dynamics context route").
+// The answer of GET/PUT /api/bodies/:bodyId/dynamics and GET /api/events/:eventId/dynamics: the body's
+// physical parameters, what follows from them, and the fitted rings set against them (docs/file-formats.md,
+// "Dynamics context route").
 const entry = <T extends z.ZodRawShape>(shape: T) => z.object(shape);
 
 const figures = {
@@ -48,6 +50,9 @@ export type ContextResult = z.infer<typeof contextResultSchema>;
 
 export const ringFitSchema = z.object({
   fitId: z.string(),
+  /** The event whose fit this ring comes from (on the body page, one fit per event). */
+  eventId: z.string(),
+  eventTitle: z.string(),
   ring: z.string(),
   radiusKm: z.number(),
   radiusKmSigma: z.number(),
@@ -65,6 +70,7 @@ export const ringFitSchema = z.object({
 export type RingFit = z.infer<typeof ringFitSchema>;
 
 export const dynamicsViewSchema = z.object({
+  bodyId: z.string(),
   input: z.record(z.string(), z.unknown()),
   result: contextResultSchema,
   ringFits: z.array(ringFitSchema),
@@ -72,7 +78,8 @@ export const dynamicsViewSchema = z.object({
 });
 export type DynamicsView = z.infer<typeof dynamicsViewSchema>;
 
-/** What the route answers before any context is stored. */
-export const noDynamicsSchema = z.object({ input: z.null(), result: z.null() });
+/** What the routes answer before the body's parameters are entered. */
+export const noDynamicsSchema = z.object({ bodyId: z.string(), input: z.null(), result: z.null() });
 
-export const dynamicsQueryKey = (eventId: string) => ['dynamics', eventId] as const;
+/** null while the body has no parameters entered, so the panel can offer the form. */
+export const dynamicsResponseSchema = z.union([noDynamicsSchema.transform(() => null), dynamicsViewSchema]);

@@ -9,8 +9,10 @@ export interface SatelliteDraft {
   name: string;
   semiMajorAxisKm: string;
   semiMajorAxisKmSigma: string;
+  semiMajorAxisKmSource: string;
   periodDays: string;
   periodDaysSigma: string;
+  periodDaysSource: string;
 }
 
 export interface ContextDraft {
@@ -72,8 +74,10 @@ export function draftOf(input: ContextInputFile | null): ContextDraft {
       name: s.name,
       semiMajorAxisKm: text(s.semiMajorAxisKm),
       semiMajorAxisKmSigma: text(s.semiMajorAxisKmSigma),
+      semiMajorAxisKmSource: s.semiMajorAxisKmSource ?? '',
       periodDays: text(s.periodDays),
       periodDaysSigma: text(s.periodDaysSigma),
+      periodDaysSource: s.periodDaysSource ?? '',
     })),
     rings: input?.rings ?? [],
     kept: {
@@ -136,6 +140,8 @@ export function fileOf(draft: ContextDraft): DraftResult {
     if (as !== undefined) out.semiMajorAxisKmSigma = as;
     if (d !== undefined) out.periodDays = d;
     if (ds !== undefined) out.periodDaysSigma = ds;
+    if (s.semiMajorAxisKmSource.trim() !== '') out.semiMajorAxisKmSource = s.semiMajorAxisKmSource.trim();
+    if (s.periodDaysSource.trim() !== '') out.periodDaysSource = s.periodDaysSource.trim();
     if (a === undefined && d === undefined && errors[`${p}.semiMajorAxisKm`] === undefined) {
       errors[`${p}.semiMajorAxisKm`] = `${p}: give semiMajorAxisKm or periodDays`;
     }

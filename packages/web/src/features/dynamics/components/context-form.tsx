@@ -1,7 +1,7 @@
 import { Button, Field, Input, makeStyles, Radio, RadioGroup, tokens } from '@fluentui/react-components';
 import type { ContextInputFile } from '@limbus/schema';
 import { useState, type FormEvent } from 'react';
-import { usePutDynamics } from '../api/put-dynamics';
+import { usePutBodyDynamics } from '../api/put-body-dynamics';
 import {
   type ContextDraft,
   draftOf,
@@ -29,16 +29,18 @@ const emptySatellite = (): SatelliteDraft => ({
   name: '',
   semiMajorAxisKm: '',
   semiMajorAxisKmSigma: '',
+  semiMajorAxisKmSource: '',
   periodDays: '',
   periodDaysSigma: '',
+  periodDaysSource: '',
 });
 
-/** Edits the body's context inputs; every refusal, the client's or the server's, is shown on its field. */
-export function ContextForm({ eventId, input }: { eventId: string; input: ContextInputFile | null }) {
+/** Edits the body's physical parameters; every refusal, the client's or the server's, is shown on its field. */
+export function ContextForm({ bodyId, input }: { bodyId: string; input: ContextInputFile | null }) {
   const styles = useStyles();
   const [draft, setDraft] = useState<ContextDraft>(() => draftOf(input));
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const put = usePutDynamics(eventId);
+  const put = usePutBodyDynamics(bodyId);
   const setValue = (path: string, value: string) =>
     setDraft((d) => ({ ...d, values: { ...d.values, [path]: value } }));
   const setSatellite = (index: number, key: keyof SatelliteDraft, value: string) =>
@@ -99,7 +101,7 @@ export function ContextForm({ eventId, input }: { eventId: string; input: Contex
   );
 
   return (
-    <form aria-label="Dynamics context inputs" className={styles.form} onSubmit={onSubmit} noValidate>
+    <form aria-label="Physical parameters" className={styles.form} onSubmit={onSubmit} noValidate>
       <Field label="Mass from">
         <RadioGroup
           layout="horizontal"
@@ -153,6 +155,12 @@ export function ContextForm({ eventId, input }: { eventId: string; input: Contex
                 onChange={(_, d) => setSatellite(i, 'semiMajorAxisKmSigma', d.value)}
               />
             </Field>
+            <Field label="Semi-major axis source">
+              <Input
+                value={s.semiMajorAxisKmSource}
+                onChange={(_, d) => setSatellite(i, 'semiMajorAxisKmSource', d.value)}
+              />
+            </Field>
             <Field label="Period (d)" validationMessage={errors[`${p}.periodDays`]}>
               <Input value={s.periodDays} onChange={(_, d) => setSatellite(i, 'periodDays', d.value)} />
             </Field>
@@ -160,6 +168,12 @@ export function ContextForm({ eventId, input }: { eventId: string; input: Contex
               <Input
                 value={s.periodDaysSigma}
                 onChange={(_, d) => setSatellite(i, 'periodDaysSigma', d.value)}
+              />
+            </Field>
+            <Field label="Period source">
+              <Input
+                value={s.periodDaysSource}
+                onChange={(_, d) => setSatellite(i, 'periodDaysSource', d.value)}
               />
             </Field>
             <Button
@@ -176,15 +190,15 @@ export function ContextForm({ eventId, input }: { eventId: string; input: Contex
         </Button>
       </div>
       {unplaced.map(([path, message]) => (
-        <FormError key={path} title="The context was refused" message={message} />
+        <FormError key={path} title="The physical parameters were refused" message={message} />
       ))}
       {put.isError && !(put.error instanceof ApiError && put.error.issues.length > 0) && (
-        <FormError title="Could not save the context" message={errorMessage(put.error)} />
+        <FormError title="Could not save the physical parameters" message={errorMessage(put.error)} />
       )}
-      {put.isSuccess && <span role="status">Context saved.</span>}
+      {put.isSuccess && <span role="status">Physical parameters saved.</span>}
       <div>
         <Button type="submit" appearance="primary" disabled={put.isPending}>
-          Save context
+          Save physical parameters
         </Button>
       </div>
     </form>

@@ -1,24 +1,28 @@
 import { screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { DynamicsPanel } from './dynamics-panel';
+import { DynamicsPanel, EventDynamicsPanel } from './dynamics-panel';
 import { TEST_VIEW } from './test-context';
 import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-utils';
 
 afterEach(() => vi.unstubAllGlobals());
 
+const NONE = { bodyId: 'b1', input: null, result: null, ringFits: [], updatedAt: null };
+
 describe('DynamicsPanel', () => {
-  it('DynamicsPanel shows the strip and the fitted ring against each limit with 1σ', async () => {
-    stubFetch(() => jsonResponse(200, TEST_VIEW));
-    renderWithProviders(<DynamicsPanel eventId="e1" canEdit={false} />);
+  it("DynamicsPanel reads the body's route and shows the strip and each event's fitted ring against each limit with 1σ", async () => {
+    const calls = stubFetch(() => jsonResponse(200, TEST_VIEW));
+    renderWithProviders(<DynamicsPanel bodyId="b1" canEdit={false} />);
     await screen.findByRole('img', { name: /^Dynamics strip/ });
+    expect(calls[0]?.url).toBe('/api/bodies/b1/dynamics');
     const table = screen.getByRole('table', { name: 'Fitted ring radius against the context' });
+    expect(table).toHaveTextContent('Invented occultation, night one');
     expect(table).toHaveTextContent('2030 ± 40');
     expect(table).toHaveTextContent('1.202 ± 0.050');
-    expect(screen.queryByRole('form', { name: 'Dynamics context inputs' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Physical parameters' })).not.toBeInTheDocument();
   });
 
-  it('DynamicsPanel form names the bad field before sending, then shows the server’s refusal on its field', async () => {
+  it('DynamicsPanel form names the bad field before sending, then PUTs to the body and shows the refusal on its field', async () => {
     const calls = stubFetch((call) =>
       call.method === 'PUT'
         ? jsonResponse(400, {
@@ -28,23 +32,22 @@ describe('DynamicsPanel', () => {
         : jsonResponse(200, TEST_VIEW),
     );
     const user = userEvent.setup();
-    renderWithProviders(<DynamicsPanel eventId="e1" canEdit />);
+    renderWithProviders(<DynamicsPanel bodyId="b1" canEdit />);
     const radius = await screen.findByRole('textbox', { name: 'Body radius (km)' });
     expect(radius).toHaveValue('560');
     await user.clear(radius);
     await user.type(radius, '-1');
-    await user.click(screen.getByRole('button', { name: 'Save context' }));
+    await user.click(screen.getByRole('button', { name: 'Save physical parameters' }));
     expect(await screen.findByText('body.radiusKm: must be a number greater than 0')).toBeInTheDocument();
     expect(calls.filter((c) => c.method === 'PUT')).toHaveLength(0);
     await user.clear(radius);
     await user.type(radius, '570');
-    await user.click(screen.getByRole('button', { name: 'Save context' }));
+    await user.type(screen.getByRole('textbox', { name: 'Period source' }), 'invented discovery paper');
+    await user.click(screen.getByRole('button', { name: 'Save physical parameters' }));
     expect(await screen.findByText('heliocentricDistanceAu: must be greater than 0')).toBeInTheDocument();
-    const sent = calls.find((c) => c.method === 'PUT')?.body as {
-      body: Record<string, unknown>;
-      satellites: unknown[];
-      spinOrbitK: number[];
-    };
+    const put = calls.find((c) => c.method === 'PUT');
+    expect(put?.url).toBe('/api/bodies/b1/dynamics');
+    const sent = put?.body as { body: Record<string, unknown>; satellites: unknown[]; spinOrbitK: number[] };
     expect(sent.spinOrbitK).toEqual([2, 3]);
     expect(sent.body).toEqual({
       radiusKm: 570,
@@ -53,13 +56,42 @@ describe('DynamicsPanel', () => {
       densityKgM3: 1700,
       densityKgM3Sigma: 200,
     });
-    expect(sent.satellites).toEqual([{ name: 'Oru', semiMajorAxisKm: 14500, semiMajorAxisKmSigma: 50 }]);
+    expect(sent.satellites).toEqual([
+      {
+        name: 'Oru',
+        semiMajorAxisKm: 14500,
+        semiMajorAxisKmSigma: 50,
+        periodDaysSource: 'invented discovery paper',
+      },
+    ]);
   });
 
-  it('DynamicsPanel offers the form when the event has no context yet', async () => {
-    stubFetch(() => jsonResponse(200, { input: null, result: null, ringFits: [], updatedAt: null }));
-    renderWithProviders(<DynamicsPanel eventId="e1" canEdit />);
-    expect(await screen.findByText('No dynamics context for this body yet.')).toBeInTheDocument();
-    expect(screen.getByRole('form', { name: 'Dynamics context inputs' })).toBeInTheDocument();
+  it('DynamicsPanel offers the form when the body has no parameters yet', async () => {
+    stubFetch(() => jsonResponse(200, NONE));
+    renderWithProviders(<DynamicsPanel bodyId="b1" canEdit />);
+    expect(await screen.findByText('No physical parameters entered for this body yet.')).toBeInTheDocument();
+    expect(screen.getByRole('form', { name: 'Physical parameters' })).toBeInTheDocument();
+  });
+});
+
+describe('EventDynamicsPanel', () => {
+  it("EventDynamicsPanel reads the event's route, offers no form, and shows the link it is given", async () => {
+    const calls = stubFetch(() => jsonResponse(200, TEST_VIEW));
+    renderWithProviders(
+      <EventDynamicsPanel
+        eventId="e1"
+        bodyLink={<a href="/bodies/b1">Edit the physical parameters of Quillon</a>}
+      />,
+    );
+    await screen.findByRole('img', { name: /^Dynamics strip/ });
+    expect(calls.map((c) => c.url)).toEqual(['/api/events/e1/dynamics']);
+    expect(
+      screen.getByRole('table', { name: 'Fitted ring radius against the context' }),
+    ).not.toHaveTextContent('Invented occultation');
+    expect(screen.queryByRole('form')).not.toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Edit the physical parameters of Quillon' })).toHaveAttribute(
+      'href',
+      '/bodies/b1',
+    );
   });
 });

@@ -51,6 +51,8 @@ export const TEST_CONTEXT: ContextResult = {
 
 export const TEST_RING_FIT: RingFit = {
   fitId: 'f1',
+  eventId: 'e1',
+  eventTitle: 'Invented occultation, night one',
   ring: 'R1',
   radiusKm: 2030,
   radiusKmSigma: 40,
@@ -62,6 +64,7 @@ export const TEST_RING_FIT: RingFit = {
 };
 
 export const TEST_VIEW: DynamicsView = {
+  bodyId: 'b1',
   input: {
     format: 'limbus-context-input/1',
     body: {

@@ -19,13 +19,23 @@ export const stationSchema = z.object({
   heightM: z.number(),
   observerId: z.string().nullable().optional(),
   observerName: z.string().nullable().optional(),
+  apertureMm: z.number().nullable().optional(),
+  camera: z.string().nullable().optional(),
+  exposureSeconds: z.number().nullable().optional(),
+  timeSource: z.string().nullable().optional(),
 });
 
 export const eventDetailSchema = z.object({
   id: z.string(),
   title: z.string(),
   teamId: z.string(),
-  eventDate: z.string().nullable().optional(),
+  bodyId: z.string(),
+  bodyName: z.string(),
+  bodyDesignation: z.string().nullable(),
+  /** "YYYY-MM-DDThh:mm:ssZ": the moment the event is filed under (its date in lists). */
+  eventTimeUtc: z.string(),
+  /** SHA-256 of the event's data now; a fit whose own hash differs ran on older data. */
+  dataSha256: z.string(),
   star: z.object({
     raDeg: z.number(),
     decDeg: z.number(),

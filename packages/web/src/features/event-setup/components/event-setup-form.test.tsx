@@ -15,6 +15,11 @@ const EVENT: EventDetail = {
   id: 'e1',
   title: 'Invented occultation, night one',
   teamId: 't1',
+  bodyId: 'b1',
+  bodyName: 'Quillon',
+  bodyDesignation: null,
+  eventTimeUtc: '2029-05-17T02:30:00Z',
+  dataSha256: 'a'.repeat(64),
   star: {
     raDeg: 283.25,
     decDeg: -21.5,

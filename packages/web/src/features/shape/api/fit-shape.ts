@@ -74,8 +74,8 @@ export const fitShapeInputSchema = z.object({
 });
 export type FitShapeInput = z.infer<typeof fitShapeInputSchema>;
 
-export function fitShape(teamId: string, input: FitShapeInput): Promise<ShapeView> {
-  return apiRequest(`/api/teams/${encodeURIComponent(teamId)}/shape`, {
+export function fitShape(bodyId: string, input: FitShapeInput): Promise<ShapeView> {
+  return apiRequest(`/api/bodies/${encodeURIComponent(bodyId)}/shape`, {
     method: 'POST',
     body: fitShapeInputSchema.parse(input),
     schema: shapeViewSchema,
@@ -83,13 +83,13 @@ export function fitShape(teamId: string, input: FitShapeInput): Promise<ShapeVie
 }
 
 /** Nothing is stored on the server, so there is no query to invalidate: the answer is the mutation's data. */
-export function useFitShape(teamId: string) {
-  return useMutation({ mutationFn: (input: FitShapeInput) => fitShape(teamId, input) });
+export function useFitShape(bodyId: string) {
+  return useMutation({ mutationFn: (input: FitShapeInput) => fitShape(bodyId, input) });
 }
 
-/** The shape result as a table (POST /api/teams/:teamId/shape/table): the fit is re-run from the same input. */
-export function fetchShapeTable(teamId: string, input: FitShapeInput, format: TableFormat): Promise<Blob> {
-  return apiBlob(`/api/teams/${encodeURIComponent(teamId)}/shape/table?format=${format}`, {
+/** The shape result as a table (POST /api/bodies/:bodyId/shape/table): the fit is re-run from the same input. */
+export function fetchShapeTable(bodyId: string, input: FitShapeInput, format: TableFormat): Promise<Blob> {
+  return apiBlob(`/api/bodies/${encodeURIComponent(bodyId)}/shape/table?format=${format}`, {
     method: 'POST',
     body: fitShapeInputSchema.parse(input),
   });

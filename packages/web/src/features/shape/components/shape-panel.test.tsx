@@ -14,27 +14,32 @@ const limb = (radiusKm: number, oblateness: number, paDeg: number) => ({
   oblateness: { value: oblateness, sigma: 0.01 },
   positionAngleDeg: { value: paDeg, sigma: 1 },
 });
+const row = (
+  fitId: string,
+  event: string,
+  reviewState: string,
+  finishedAt: string,
+  fitLimb: ReturnType<typeof limb> | null,
+) => ({
+  fitId,
+  eventId: `e-${event}`,
+  eventTitle: `Event ${event}`,
+  eventDateUtc: '2029-05-17T03:12:30.000Z',
+  reviewState,
+  finishedAt,
+  createdBy: { id: 'u-m', name: 'Mira Modeller' },
+  limb: fitLimb,
+});
+// Event a has two fits: the approved one (a) and a newer one not yet reviewed (a2); only a is ticked.
 const COMPARISON = {
-  teamId: 't1',
   selection: 'all',
   ringLabels: [],
   fits: [
-    {
-      fitId: 'a',
-      eventTitle: 'Event a',
-      eventDateUtc: null,
-      reviewState: 'approved',
-      limb: limb(600, 0.12, 30),
-    },
-    { fitId: 'b', eventTitle: 'Event b', eventDateUtc: null, reviewState: 'none', limb: limb(580, 0.2, 95) },
-    { fitId: 'c', eventTitle: 'Event c', eventDateUtc: null, reviewState: 'approved', limb: null },
-    {
-      fitId: 'd',
-      eventTitle: 'Event d',
-      eventDateUtc: null,
-      reviewState: 'approved',
-      limb: limb(610, 0.05, 140),
-    },
+    row('a', 'a', 'approved', '2029-05-18T10:00:00.000Z', limb(600, 0.12, 30)),
+    row('a2', 'a', 'none', '2029-05-19T08:30:00.000Z', limb(601, 0.12, 30)),
+    row('b', 'b', 'none', '2029-05-18T11:00:00.000Z', limb(580, 0.2, 95)),
+    row('c', 'c', 'approved', '2029-05-18T12:00:00.000Z', null),
+    row('d', 'd', 'approved', '2029-05-18T13:00:00.000Z', limb(610, 0.05, 140)),
   ],
 };
 const apparent = (r: number, e: number, p: number) => ({
@@ -85,8 +90,8 @@ const VIEW: ShapeView = {
 
 function server(shapeReply: () => Response = () => jsonResponse(200, VIEW)) {
   return stubFetch((call) => {
-    if (call.url === '/api/teams/t1/comparison?fits=all') return jsonResponse(200, COMPARISON);
-    if (call.url === '/api/teams/t1/shape' && call.method === 'POST') return shapeReply();
+    if (call.url === '/api/bodies/b1/comparison?fits=all') return jsonResponse(200, COMPARISON);
+    if (call.url === '/api/bodies/b1/shape' && call.method === 'POST') return shapeReply();
     return jsonResponse(404, { message: 'no route' });
   });
 }
@@ -100,13 +105,23 @@ async function fillForm() {
 
 describe('ShapePanel', () => {
   it(
-    'ShapePanel sends the chosen fits with a limb, the pole and rotation, and tables a, b, c ± 1σ and residuals',
+    'ShapePanel sends one fit per event from the body route, the pole and rotation, and tables a, b, c ± 1σ and residuals',
     { timeout: 20_000 },
     async () => {
       const calls = server();
-      renderWithProviders(<ShapePanel teamId="t1" />);
-      // Event c has no limb, so it is not offered.
-      expect(await screen.findByRole('checkbox', { name: 'Event b (not approved)' })).toBeChecked();
+      renderWithProviders(<ShapePanel bodyId="b1" />);
+      // Each fit is named by event, event date, fit date and author; event c has no limb, so it is not offered.
+      expect(
+        await screen.findByRole('checkbox', {
+          name: 'Event b · event 2029-05-17 03:12:30 UTC · fit of 2029-05-18 11:00:00 UTC by Mira Modeller · not approved',
+        }),
+      ).toBeChecked();
+      expect(
+        screen.getByRole('checkbox', { name: /^Event a · .* fit of 2029-05-18 10:00:00 UTC .* approved$/ }),
+      ).toBeChecked();
+      expect(
+        screen.getByRole('checkbox', { name: /^Event a · .* fit of 2029-05-19 08:30:00 UTC/ }),
+      ).not.toBeChecked();
       expect(screen.queryByRole('checkbox', { name: /Event c/ })).toBeNull();
       await fillForm();
       await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
@@ -147,13 +162,13 @@ describe('ShapePanel', () => {
         saved.push(this.download);
       });
       const calls = stubFetch((call) => {
-        if (call.url === '/api/teams/t1/comparison?fits=all') return jsonResponse(200, COMPARISON);
-        if (call.url === '/api/teams/t1/shape' && call.method === 'POST') return jsonResponse(200, VIEW);
-        if (call.url === '/api/teams/t1/shape/table?format=csv' && call.method === 'POST')
+        if (call.url === '/api/bodies/b1/comparison?fits=all') return jsonResponse(200, COMPARISON);
+        if (call.url === '/api/bodies/b1/shape' && call.method === 'POST') return jsonResponse(200, VIEW);
+        if (call.url === '/api/bodies/b1/shape/table?format=csv' && call.method === 'POST')
           return new Response('parameter,value,sigma,unit', { status: 200 });
         return jsonResponse(404, { message: 'no route' });
       });
-      renderWithProviders(<ShapePanel teamId="t1" />);
+      renderWithProviders(<ShapePanel bodyId="b1" />);
       await fillForm();
       await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
       await screen.findByRole('table', { name: 'Semi-axes' });
@@ -162,7 +177,7 @@ describe('ShapePanel', () => {
       await userEvent.type(period, '9');
       await userEvent.click(screen.getByRole('button', { name: 'Download shape table as CSV' }));
       await vi.waitFor(() => expect(saved).toEqual(['limbus-shape.csv']));
-      expect(calls.find((c) => c.url.startsWith('/api/teams/t1/shape/table'))?.body).toMatchObject({
+      expect(calls.find((c) => c.url.startsWith('/api/bodies/b1/shape/table'))?.body).toMatchObject({
         fitIds: ['a', 'b', 'd'],
         periodHours: 6.71,
       });
@@ -175,7 +190,7 @@ describe('ShapePanel', () => {
     { timeout: 20_000 },
     async () => {
       server();
-      renderWithProviders(<ShapePanel teamId="t1" />);
+      renderWithProviders(<ShapePanel bodyId="b1" />);
       await fillForm();
       await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
       const density = await screen
@@ -200,7 +215,7 @@ describe('ShapePanel', () => {
           issues: [{ path: 'fitIds.1', message: 'fit is queued, not solved' }],
         }),
       );
-      renderWithProviders(<ShapePanel teamId="t1" />);
+      renderWithProviders(<ShapePanel bodyId="b1" />);
       await userEvent.type(await screen.findByRole('textbox', { name: 'Pole RA (°)' }), 'north');
       await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
       expect(screen.getAllByText('enter a number').length).toBeGreaterThan(1);

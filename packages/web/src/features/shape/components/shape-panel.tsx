@@ -12,7 +12,7 @@ import {
   Radio,
   RadioGroup,
   Select,
-  Subtitle2,
+  Subtitle1,
   Table,
   TableBody,
   TableCell,
@@ -29,13 +29,15 @@ import {
   type ShapeView,
   useFitShape,
 } from '../api/fit-shape';
-import { type ShapeFitRow, useShapeFits } from '../api/get-shape-fits';
+import { defaultShapeFitIds, type ShapeFitRow, useShapeFits } from '../api/get-shape-fits';
 import { Silhouettes } from './silhouettes';
 import { Loading, RequestFailed } from '@/components/request-state';
+import { ScrollArea } from '@/components/scroll-area';
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
 import { TableDownload, type TableFormat } from '@/components/table-download';
 import { ApiError } from '@/lib/api-client';
+import { utcText } from '@/lib/utc-text';
 
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
@@ -46,7 +48,8 @@ const useStyles = makeStyles({
 });
 
 interface Draft {
-  unselected: ReadonlySet<string>;
+  /** The fits ticked; null until the modeller changes the default of one fit per event. */
+  chosen: ReadonlySet<string> | null;
   poleSource: 'entered' | 'joint';
   raDeg: string;
   decDeg: string;
@@ -58,7 +61,7 @@ interface Draft {
 }
 
 const EMPTY: Draft = {
-  unselected: new Set(),
+  chosen: null,
   poleSource: 'entered',
   raDeg: '',
   decDeg: '',
@@ -87,7 +90,8 @@ function inputOf(
     if (n === null) errors[key] = 'enter a number';
     return n ?? 0;
   };
-  const fitIds = fits.filter((f) => !draft.unselected.has(f.fitId)).map((f) => f.fitId);
+  const chosen = draft.chosen ?? defaultShapeFitIds(fits);
+  const fitIds = fits.filter((f) => chosen.has(f.fitId)).map((f) => f.fitId);
   if (fitIds.length < 2) errors.fitIds = 'choose at least two events';
   const pole: FitShapeInput['pole'] =
     draft.poleSource === 'entered'
@@ -111,6 +115,17 @@ function inputOf(
   if (parsed.success) return { ok: true, input: parsed.data };
   for (const issue of parsed.error.issues) errors[issue.path.map(String).join('.')] ??= issue.message;
   return { ok: false, errors };
+}
+
+/** Two fits of one event read apart by when each finished and who ran it. */
+function fitLabel(r: ShapeFitRow): string {
+  const fit = r.finishedAt === null ? 'fit' : `fit of ${utcText(r.finishedAt)}`;
+  return [
+    r.eventTitle,
+    r.eventDateUtc === null ? 'event date unknown' : `event ${utcText(r.eventDateUtc)}`,
+    r.createdBy === undefined ? fit : `${fit} by ${r.createdBy.name}`,
+    r.reviewState === 'approved' ? 'approved' : 'not approved',
+  ].join(' · ');
 }
 
 const pm = (value: number, sigma: number, digits: number) =>
@@ -148,62 +163,66 @@ function Results({
   });
   return (
     <section aria-label="Shape result" className={styles.panel}>
-      <Table aria-label="Semi-axes" size="small" className={styles.table}>
-        <TableHeader>
-          <TableRow>
-            <TableHeaderCell>Model</TableHeaderCell>
-            <TableHeaderCell>a (km)</TableHeaderCell>
-            <TableHeaderCell>b (km)</TableHeaderCell>
-            <TableHeaderCell>c (km)</TableHeaderCell>
-            <TableHeaderCell>Phase at epoch (°)</TableHeaderCell>
-            <TableHeaderCell>χ² / dof</TableHeaderCell>
-          </TableRow>
-        </TableHeader>
-        <TableBody>
-          <TableRow>
-            <TableCell>{result.model}</TableCell>
-            <TableCell>{pm(result.semiAxesKm.aKm, u.aKm, 1)}</TableCell>
-            <TableCell>{pm(result.semiAxesKm.bKm, u.bKm, 1)}</TableCell>
-            <TableCell>{pm(result.semiAxesKm.cKm, u.cKm, 1)}</TableCell>
-            <TableCell>
-              {result.phaseDeg === null
-                ? '—'
-                : result.phaseFitted
-                  ? `${pm(result.phaseDeg, u.phaseDeg, 1)} (fitted)`
-                  : `${result.phaseDeg.toFixed(1)} (given)`}
-            </TableCell>
-            <TableCell>
-              {result.chi2.toFixed(2)} / {result.dof}
-            </TableCell>
-          </TableRow>
-        </TableBody>
-      </Table>
-      <Table aria-label="Residuals by event" size="small" className={styles.table}>
-        <TableHeader>
-          <TableRow>
-            <TableHeaderCell>Event</TableHeaderCell>
-            <TableHeaderCell>Rotation angle (°)</TableHeaderCell>
-            <TableHeaderCell>Aspect (°)</TableHeaderCell>
-            <TableHeaderCell>Δa′/σ</TableHeaderCell>
-            <TableHeaderCell>Δε/σ</TableHeaderCell>
-            <TableHeaderCell>ΔP/σ</TableHeaderCell>
-            <TableHeaderCell>RMS radial gap (km)</TableHeaderCell>
-          </TableRow>
-        </TableHeader>
-        <TableBody>
-          {result.events.map((e) => (
-            <TableRow key={e.id}>
-              <TableCell>{titleOf(e.id)}</TableCell>
-              <TableCell>{e.rotationAngleDeg.toFixed(1)}</TableCell>
-              <TableCell>{e.aspectAngleDeg.toFixed(1)}</TableCell>
-              <TableCell>{residual(e.normalizedResiduals.equatorialRadius)}</TableCell>
-              <TableCell>{residual(e.normalizedResiduals.oblateness)}</TableCell>
-              <TableCell>{residual(e.normalizedResiduals.positionAngle)}</TableCell>
-              <TableCell>{e.rmsRadialKm.toFixed(1)}</TableCell>
+      <ScrollArea label="Semi-axes table">
+        <Table aria-label="Semi-axes" size="small" className={styles.table}>
+          <TableHeader>
+            <TableRow>
+              <TableHeaderCell>Model</TableHeaderCell>
+              <TableHeaderCell>a (km)</TableHeaderCell>
+              <TableHeaderCell>b (km)</TableHeaderCell>
+              <TableHeaderCell>c (km)</TableHeaderCell>
+              <TableHeaderCell>Phase at epoch (°)</TableHeaderCell>
+              <TableHeaderCell>χ² / dof</TableHeaderCell>
             </TableRow>
-          ))}
-        </TableBody>
-      </Table>
+          </TableHeader>
+          <TableBody>
+            <TableRow>
+              <TableCell>{result.model}</TableCell>
+              <TableCell>{pm(result.semiAxesKm.aKm, u.aKm, 1)}</TableCell>
+              <TableCell>{pm(result.semiAxesKm.bKm, u.bKm, 1)}</TableCell>
+              <TableCell>{pm(result.semiAxesKm.cKm, u.cKm, 1)}</TableCell>
+              <TableCell>
+                {result.phaseDeg === null
+                  ? '—'
+                  : result.phaseFitted
+                    ? `${pm(result.phaseDeg, u.phaseDeg, 1)} (fitted)`
+                    : `${result.phaseDeg.toFixed(1)} (given)`}
+              </TableCell>
+              <TableCell>
+                {result.chi2.toFixed(2)} / {result.dof}
+              </TableCell>
+            </TableRow>
+          </TableBody>
+        </Table>
+      </ScrollArea>
+      <ScrollArea label="Residuals table">
+        <Table aria-label="Residuals by event" size="small" className={styles.table}>
+          <TableHeader>
+            <TableRow>
+              <TableHeaderCell>Event</TableHeaderCell>
+              <TableHeaderCell>Rotation angle (°)</TableHeaderCell>
+              <TableHeaderCell>Aspect (°)</TableHeaderCell>
+              <TableHeaderCell>Δa′/σ</TableHeaderCell>
+              <TableHeaderCell>Δε/σ</TableHeaderCell>
+              <TableHeaderCell>ΔP/σ</TableHeaderCell>
+              <TableHeaderCell>RMS radial gap (km)</TableHeaderCell>
+            </TableRow>
+          </TableHeader>
+          <TableBody>
+            {result.events.map((e) => (
+              <TableRow key={e.id}>
+                <TableCell>{titleOf(e.id)}</TableCell>
+                <TableCell>{e.rotationAngleDeg.toFixed(1)}</TableCell>
+                <TableCell>{e.aspectAngleDeg.toFixed(1)}</TableCell>
+                <TableCell>{residual(e.normalizedResiduals.equatorialRadius)}</TableCell>
+                <TableCell>{residual(e.normalizedResiduals.oblateness)}</TableCell>
+                <TableCell>{residual(e.normalizedResiduals.positionAngle)}</TableCell>
+                <TableCell>{e.rmsRadialKm.toFixed(1)}</TableCell>
+              </TableRow>
+            ))}
+          </TableBody>
+        </Table>
+      </ScrollArea>
       {result.equilibrium === null ? (
         <Body1>
           No equilibrium density: the fitted figure is on neither the Maclaurin nor the Jacobi sequence.
@@ -229,10 +248,10 @@ function Results({
 }
 
 /** The body's 3D shape from several events' limbs: pole, rotation and model in; semi-axes, residuals out. */
-export function ShapePanel({ teamId }: { teamId: string }) {
+export function ShapePanel({ bodyId }: { bodyId: string }) {
   const styles = useStyles();
-  const fits = useShapeFits(teamId);
-  const fit = useFitShape(teamId);
+  const fits = useShapeFits(bodyId);
+  const fit = useFitShape(bodyId);
   const [draft, setDraft] = useState<Draft>(EMPTY);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const set = <K extends keyof Draft>(key: K, value: Draft[K]) => setDraft((d) => ({ ...d, [key]: value }));
@@ -243,6 +262,7 @@ export function ShapePanel({ teamId }: { teamId: string }) {
       <RequestFailed what="the fits with a limb" error={fits.error} onRetry={() => void fits.refetch()} />
     );
   const rows = fits.data;
+  const chosen = draft.chosen ?? defaultShapeFitIds(rows);
 
   const onSubmit = (event: FormEvent) => {
     event.preventDefault();
@@ -271,22 +291,22 @@ export function ShapePanel({ teamId }: { teamId: string }) {
 
   return (
     <section aria-labelledby="shape-heading" className={styles.panel}>
-      <Subtitle2 as="h2" id="shape-heading">
+      <Subtitle1 as="h3" id="shape-heading">
         3D shape
-      </Subtitle2>
+      </Subtitle1>
       <form className={styles.form} onSubmit={onSubmit} aria-label="Shape fit">
         <fieldset className={styles.fits}>
-          <legend>Events (fits with a limb)</legend>
+          <legend>Fits with a limb (one per event is ticked: its latest approved, else latest solved)</legend>
           {rows.map((r) => (
             <Checkbox
               key={r.fitId}
-              label={`${r.eventTitle}${r.reviewState === 'approved' ? '' : ' (not approved)'}`}
-              checked={!draft.unselected.has(r.fitId)}
+              label={fitLabel(r)}
+              checked={chosen.has(r.fitId)}
               onChange={(_, data) => {
-                const next = new Set(draft.unselected);
-                if (data.checked === true) next.delete(r.fitId);
-                else next.add(r.fitId);
-                set('unselected', next);
+                const next = new Set(chosen);
+                if (data.checked === true) next.add(r.fitId);
+                else next.delete(r.fitId);
+                set('chosen', next);
               }}
             />
           ))}
@@ -362,7 +382,7 @@ export function ShapePanel({ teamId }: { teamId: string }) {
           view={fit.data}
           fits={rows}
           // The table is written from the input that gave the result on screen, not from the form's edits since.
-          fetchTable={(format) => fetchShapeTable(teamId, fit.variables, format)}
+          fetchTable={(format) => fetchShapeTable(bodyId, fit.variables, format)}
         />
       )}
     </section>
