@@ -1,6 +1,7 @@
 import {
   Badge,
   Body1,
+  Button,
   makeStyles,
   Subtitle1,
   Tab,
@@ -9,11 +10,16 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { ChordInput } from '@limbus/geometry';
-import { Suspense, useMemo } from 'react';
+import { Suspense, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useSignedIn } from './app-layout';
 import { EventDynamicsSection, EventLightCurvesSection } from './event-analysis';
 import { Loading, RequestFailed } from '@/components/request-state';
+import { RouterLink } from '@/components/router-link';
+import { ScrollArea } from '@/components/scroll-area';
+import { StaleFitBadge } from '@/components/stale-fit';
+import { paths } from '@/config/paths';
+import { AuditPanel } from '@/features/audit/components/audit-panel';
 import { useChords, type ChordRow } from '@/features/chords/api/get-chords';
 import { ChordTable } from '@/features/chords/components/chord-table';
 import { CsvImportDialog } from '@/features/chords/components/csv-import-dialog';
@@ -29,6 +35,7 @@ import { ReportsPanel } from '@/features/reports/components/reports-panel';
 import { ReviewPanel } from '@/features/review/components/review-panel';
 import { LazyResidualsPlot, LazySkyPlanePlot } from '@/features/sky-plane/lazy';
 import { StationsPanel } from '@/features/stations/components/stations-panel';
+import { utcText } from '@/lib/utc-text';
 
 const SECTIONS = [
   { id: 'setup', label: 'Setup' },
@@ -39,6 +46,8 @@ const SECTIONS = [
   { id: 'fits', label: 'Fits' },
   { id: 'review', label: 'Review' },
   { id: 'figures', label: 'Figures' },
+  // The audit log answers to coordinators only; the tab shows for them (and site admins) alone.
+  { id: 'audit', label: 'Audit' },
 ] as const;
 type SectionId = (typeof SECTIONS)[number]['id'];
 
@@ -46,14 +55,10 @@ const useStyles = makeStyles({
   page: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
   // Fluent's text components are inline; the heading and its summary line stack.
   header: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalXS },
-  tabs: { overflowX: 'auto' },
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
   plots: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '100%' },
+  note: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'center' },
 });
-
-function utcText(iso: string): string {
-  return `${iso.slice(0, 19).replace('T', ' ')} UTC`;
-}
 
 /** The plot shows times in its tooltips; it takes the chords in the event file's own shape. */
 function toChordInput(row: ChordRow): ChordInput | null {
@@ -92,19 +97,30 @@ export function EventRoute() {
   const chords = useChords(eventId);
 
   const requested = search.get('section');
-  const section: SectionId = SECTIONS.find((s) => s.id === requested)?.id ?? 'chords';
   const chosenFitId = search.get('fit');
-  const defaultFitId = useMemo(() => {
-    const list = fits.data ?? [];
-    const newest = [...list].sort((a, b) => b.createdAt.localeCompare(a.createdAt));
-    return (
-      newest.find((f) => f.reviewState === 'approved')?.id ??
-      newest.find((f) => f.state === 'solved')?.id ??
-      null
-    );
-  }, [fits.data]);
+  const newestFits = useMemo(
+    () => [...(fits.data ?? [])].sort((a, b) => b.createdAt.localeCompare(a.createdAt)),
+    [fits.data],
+  );
+  const defaultFitId =
+    newestFits.find((f) => f.reviewState === 'approved')?.id ??
+    newestFits.find((f) => f.state === 'solved')?.id ??
+    null;
   const fitId = chosenFitId ?? defaultFitId;
   const fit = useFit(fitId);
+  // The Review tab is about the fit in review (normally at most one), else the fit shown in Fits. When
+  // the two differ, the reviewer or modeller may pin the shown one instead, for as long as it is shown.
+  const [pinnedReviewFitId, setPinnedReviewFitId] = useState<string | null>(null);
+  const inReview = newestFits.filter((f) => f.reviewState === 'in_review');
+  const reviewFitId =
+    pinnedReviewFitId !== null && pinnedReviewFitId === fitId
+      ? pinnedReviewFitId
+      : ((inReview.find((f) => f.id === fitId) ?? inReview[0])?.id ?? fitId);
+  const reviewFit = useFit(reviewFitId);
+  const fitLabel = (id: string | null) => {
+    const found = newestFits.find((f) => f.id === id);
+    return found === undefined ? 'the chosen fit' : `the fit of ${utcText(found.createdAt)}`;
+  };
 
   const setParam = (key: string, value: string) =>
     setSearch(
@@ -121,9 +137,11 @@ export function EventRoute() {
     return <RequestFailed what="the event" error={event.error} onRetry={() => void event.refetch()} />;
 
   const e = event.data;
-  const roles = new Set(me.teams.find((t) => t.id === e.teamId)?.roles ?? []);
+  const roles = new Set<string>(me.teams.find((t) => t.id === e.teamId)?.roles ?? []);
   // Site admins pass every role check on the server; the desk offers them the same controls.
   const has = (...wanted: string[]) => me.isAdmin || wanted.some((r) => roles.has(r));
+  const sections = SECTIONS.filter((s) => s.id !== 'audit' || has('coordinator'));
+  const section: SectionId = sections.find((s) => s.id === requested)?.id ?? 'chords';
   const canEditChords = has('coordinator', 'modeller');
   const stationCodes = e.stations.map((s) => s.code);
   const ownStationIds = e.stations.filter((s) => s.observerId === me.id).map((s) => s.id);
@@ -141,26 +159,35 @@ export function EventRoute() {
       <header className={styles.header}>
         <Title3 as="h2">{e.title}</Title3>
         <Body1 as="p">
+          Body{' '}
+          <RouterLink to={paths.body(e.bodyId)}>
+            {e.bodyName}
+            {e.bodyDesignation === null ? '' : ` (${e.bodyDesignation})`}
+          </RouterLink>{' '}
+          · event time {utcText(e.eventTimeUtc, 'minutes')}
+        </Body1>
+        <Body1 as="p">
           Star RA {e.star.raDeg.toFixed(6)}°, Dec {e.star.decDeg.toFixed(6)}° · {e.stations.length} stations ·{' '}
-          {chords.data?.length ?? '…'} chords · your roles:{' '}
+          {chords.data?.length ?? '…'} chords · {fits.data?.length ?? '…'} fits · your roles:{' '}
           {me.isAdmin ? 'admin' : [...roles].join(', ') || 'none'}
         </Body1>
       </header>
-      <TabList
-        className={styles.tabs}
-        selectedValue={section}
-        onTabSelect={(_, data) => setParam('section', String(data.value))}
-        aria-label="Event sections"
-      >
-        {SECTIONS.map((s) => (
-          <Tab key={s.id} value={s.id}>
-            {s.label}
-          </Tab>
-        ))}
-      </TabList>
+      <ScrollArea label="Section tabs">
+        <TabList
+          selectedValue={section}
+          onTabSelect={(_, data) => setParam('section', String(data.value))}
+          aria-label="Event sections"
+        >
+          {sections.map((s) => (
+            <Tab key={s.id} value={s.id}>
+              {s.label}
+            </Tab>
+          ))}
+        </TabList>
+      </ScrollArea>
       <div
         role="tabpanel"
-        aria-label={SECTIONS.find((s) => s.id === section)?.label}
+        aria-label={sections.find((s) => s.id === section)?.label}
         className={styles.panel}
       >
         {section === 'setup' ? (
@@ -198,7 +225,8 @@ export function EventRoute() {
                 Showing the fit of {utcText(fit.data.createdAt)}{' '}
                 <Badge appearance="outline">
                   {fit.data.reviewState === 'approved' ? 'approved' : fit.data.state}
-                </Badge>
+                </Badge>{' '}
+                {fit.data.inputMatchesEvent ? null : <StaleFitBadge />}
               </Body1>
             ) : null}
             {solution !== null ? (
@@ -235,25 +263,59 @@ export function EventRoute() {
           />
         ) : null}
         {section === 'review' ? (
-          fit.data === undefined ? (
-            <Body1 as="p">Open a fit in the Fits section to review it.</Body1>
-          ) : (
-            <ReviewPanel
-              fitId={fit.data.id}
-              fitState={fit.data.state}
-              reviewState={fit.data.reviewState}
-              canRequest={has('modeller', 'coordinator')}
-              canDecide={has('reviewer')}
-            />
-          )
+          <>
+            {reviewFitId !== null && fitId !== null && reviewFitId !== fitId ? (
+              <div className={styles.note}>
+                <Body1>
+                  The Fits section shows {fitLabel(fitId)}; this tab shows {fitLabel(reviewFitId)}, which is
+                  in review.
+                </Body1>
+                <Button size="small" onClick={() => setPinnedReviewFitId(fitId)}>
+                  Show {fitLabel(fitId)} here
+                </Button>
+              </div>
+            ) : null}
+            {pinnedReviewFitId !== null &&
+            pinnedReviewFitId === fitId &&
+            inReview.some((f) => f.id !== fitId) ? (
+              <div className={styles.note}>
+                <Body1>Another fit of this event is in review.</Body1>
+                <Button size="small" onClick={() => setPinnedReviewFitId(null)}>
+                  Show the fit in review
+                </Button>
+              </div>
+            ) : null}
+            {reviewFitId === null ? (
+              <Body1 as="p">No fit yet: run one in the Fits section, then ask for its review here.</Body1>
+            ) : null}
+            {reviewFit.isError ? (
+              <RequestFailed
+                what="the fit"
+                error={reviewFit.error}
+                onRetry={() => void reviewFit.refetch()}
+              />
+            ) : null}
+            {reviewFitId !== null && reviewFit.isPending ? <Loading label="Loading the fit…" /> : null}
+            {reviewFit.data !== undefined ? (
+              <ReviewPanel
+                eventId={e.id}
+                fit={reviewFit.data}
+                userId={me.id}
+                canRequest={has('modeller', 'coordinator')}
+                canDecide={has('reviewer')}
+              />
+            ) : null}
+          </>
         ) : null}
         {section === 'figures' ? (
           <FiguresPanel
             fitId={solution === null ? null : (fit.data?.id ?? null)}
             solution={solution}
+            inputMatchesEvent={fit.data?.inputMatchesEvent ?? true}
             fileStem={e.title.replace(/[^\w-]+/g, '-')}
           />
         ) : null}
+        {section === 'audit' ? <AuditPanel eventId={e.id} /> : null}
       </div>
     </div>
   );
