@@ -69,6 +69,10 @@ export const fitStatusSchema = z.object({
 });
 export type FitStatus = z.output<typeof fitStatusSchema>;
 
+/** A one-time pass to a fit's progress stream (`GET /api/fits/:fitId/events?ticket=`), for EventSource. */
+export const streamTicketSchema = z.object({ ticket: z.string(), expiresInSeconds: z.number() });
+export type StreamTicket = z.output<typeof streamTicketSchema>;
+
 const measured = z.object({ value: z.number(), sigma: z.number() });
 
 export const bodySummarySchema = z.object({
