@@ -247,9 +247,9 @@ describe('authorization matrix of the event workspace', () => {
     }),
     'GET /api/events/:eventId/fits': async () => ({ method: 'get', url: `/api/events/${eventId}/fits` }),
     'GET /api/fits/:fitId': async () => ({ method: 'get', url: `/api/fits/${await readableFit()}` }),
-    'GET /api/fits/:fitId/events': async () => ({
-      method: 'get',
-      url: `/api/fits/${await readableFit()}/events`,
+    'POST /api/fits/:fitId/stream-ticket': async () => ({
+      method: 'post',
+      url: `/api/fits/${await readableFit()}/stream-ticket`,
     }),
     'POST /api/fits/:fitId/review-request': async () => ({
       method: 'post',

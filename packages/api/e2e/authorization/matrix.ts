@@ -78,7 +78,7 @@ export const MATRIX: MatrixRow[] = [
   { route: 'POST /api/events/:eventId/fits', ok: 202, cells: only(['admin', 'coordinator', 'modeller']) },
   { route: 'GET /api/events/:eventId/fits', ok: 200, cells: members('ok') },
   { route: 'GET /api/fits/:fitId', ok: 200, cells: members('ok') },
-  { route: 'GET /api/fits/:fitId/events', ok: 200, cells: members('ok') },
+  { route: 'POST /api/fits/:fitId/stream-ticket', ok: 201, cells: members('ok') },
   // The fit's author (here the modeller who submitted it) and nobody else.
   { route: 'POST /api/fits/:fitId/review-request', ok: 200, cells: only(['modeller']) },
   // Reviewers (and admins) other than the author.

@@ -140,10 +140,15 @@ describe('fit routes and the fit worker', () => {
     expect(done.solution).toBeNull();
   });
 
-  it('GET /api/fits/:fitId/events streams progress and state until solved, with the token in the query', async () => {
+  it('GET /api/fits/:fitId/events streams progress and state until solved, with a stream ticket in the query', async () => {
     const fitId = ((await submit().expect(202)).body as { id: string }).id;
+    const ticket = (
+      (await t.post(`/api/fits/${fitId}/stream-ticket`).set(w.auth('observer')).expect(201)).body as {
+        ticket: string;
+      }
+    ).ticket;
     const response = await t
-      .get(`/api/fits/${fitId}/events?access_token=${w.tokens.observer}`)
+      .get(`/api/fits/${fitId}/events?ticket=${ticket}`)
       .buffer(true)
       .parse((res, callback) => {
         let text = '';
@@ -166,7 +171,7 @@ describe('fit routes and the fit worker', () => {
       data: { progress: 100 },
     });
     await t.get(`/api/fits/${fitId}/events`).expect(401);
-    await t.get(`/api/fits/${fitId}/events?access_token=${w.tokens.outsider}`).expect(404);
+    await t.post(`/api/fits/${fitId}/stream-ticket`).set(w.auth('outsider')).expect(404);
   });
 
   it('GET /api/events/:eventId/fits lists the fits newest first without solutions', async () => {

@@ -6,24 +6,35 @@ import {
   HttpCode,
   Param,
   Post,
+  Query,
   Sse,
   type MessageEvent,
 } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiHeader, ApiQuery, ApiTags } from '@nestjs/swagger';
-import { type SubmitFitPayload, submitFitPayloadSchema } from '@limbus/schema';
+import { ApiBearerAuth, ApiBody, ApiCreatedResponse, ApiHeader, ApiQuery, ApiTags } from '@nestjs/swagger';
+import {
+  type StreamTicket,
+  streamTicketSchema,
+  type SubmitFitPayload,
+  submitFitPayloadSchema,
+} from '@limbus/schema';
 import type { Observable } from 'rxjs';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
+import { Public } from '../auth/public.decorator';
 import { ValidationError } from '../common/domain-errors';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { Roles, TeamMember } from '../teams/roles.decorator';
 import type { FitSummaryView, FitView } from './fit-view';
 import { FitsService } from './fits.service';
+import { StreamTickets } from './stream-tickets';
 
 @ApiTags('fits')
 @ApiBearerAuth()
 @Controller()
 export class FitsController {
-  constructor(private readonly fits: FitsService) {}
+  constructor(
+    private readonly fits: FitsService,
+    private readonly tickets: StreamTickets,
+  ) {}
 
   @Post('events/:eventId/fits')
   @Roles('modeller', 'coordinator')
@@ -57,11 +68,24 @@ export class FitsController {
     return this.fits.get(fitId);
   }
 
-  /** EventSource cannot send headers, so this route also takes the token as ?access_token=. */
-  @Sse('fits/:fitId/events')
+  /** A one-time ticket for the progress stream, which a browser's EventSource opens without headers. */
+  @Post('fits/:fitId/stream-ticket')
   @TeamMember()
-  @ApiQuery({ name: 'access_token', required: false, description: 'the access token, for EventSource' })
-  async events(@Param('fitId') fitId: string): Promise<Observable<MessageEvent>> {
+  @ApiCreatedResponse({ schema: openApiSchema(streamTicketSchema) })
+  async streamTicket(@Param('fitId') fitId: string, @CurrentUser() user: AuthUser): Promise<StreamTicket> {
+    await this.fits.find(fitId);
+    return this.tickets.issue(user.id, fitId);
+  }
+
+  /** Public: the ticket, issued to a member of the fit's team for this fit, is the credential. */
+  @Sse('fits/:fitId/events')
+  @Public()
+  @ApiQuery({ name: 'ticket', required: true, description: 'from POST /api/fits/:fitId/stream-ticket' })
+  async events(
+    @Param('fitId') fitId: string,
+    @Query('ticket') ticket: string | undefined,
+  ): Promise<Observable<MessageEvent>> {
+    await this.tickets.redeem(ticket, fitId);
     await this.fits.find(fitId);
     return this.fits.stream(fitId);
   }
