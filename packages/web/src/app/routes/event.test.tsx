@@ -160,6 +160,40 @@ describe('EventRoute', () => {
     );
   });
 
+  it('EventRoute fetches the fit again when the chords change, and then warns that it ran on older data', async () => {
+    let chordsServed = 0;
+    let stale = false;
+    const chord = {
+      id: 'c1',
+      station: 'kestrel-hill',
+      type: 'negative',
+      disappearance: null,
+      reappearance: null,
+      start: '2029-09-07T21:36:00Z',
+      end: '2029-09-07T21:40:00Z',
+      timeOffsetSeconds: 0,
+      source: 'report',
+    };
+    stubFetch(({ url }) => {
+      if (url === '/api/events/e1') return jsonResponse(200, EVENT);
+      if (url === '/api/events/e1/fits') return jsonResponse(200, FITS);
+      if (url === '/api/events/e1/chords') {
+        chordsServed += 1;
+        // A report accepted elsewhere on the desk adds a chord; from then on the fit is based on older data.
+        stale = chordsServed > 1;
+        return jsonResponse(200, chordsServed > 1 ? [chord] : []);
+      }
+      if (url === '/api/fits/f1')
+        return jsonResponse(200, { ...FITS[0], inputMatchesEvent: !stale, solution: TEST_SOLUTION });
+      return jsonResponse(404, { statusCode: 404, message: `no stub for ${url}` });
+    });
+    const { queryClient } = renderDesk(meWith(['coordinator']), '/events/e1?section=figures&fit=f1');
+    expect(await screen.findByRole('button', { name: 'Download fit figure' })).toBeInTheDocument();
+    expect(screen.queryByText('Based on older data')).not.toBeInTheDocument();
+    await queryClient.invalidateQueries({ queryKey: ['events', 'e1', 'chords'] });
+    expect(await screen.findByText('Based on older data')).toBeInTheDocument();
+  });
+
   it('EventRoute reviews the fit in review even when the Fits section shows another, and says so', async () => {
     stubDesk();
     renderDesk(meWith(['reviewer']), '/events/e1?section=review&fit=f1');

@@ -28,6 +28,7 @@ import { EventSetupForm } from '@/features/event-setup/components/event-setup-fo
 import { FiguresPanel } from '@/features/figures/components/figures-panel';
 import { useFit } from '@/features/fits/api/get-fit';
 import { useFits } from '@/features/fits/api/get-fits';
+import { useRefreshFitsOnDataChange } from '@/features/fits/api/refresh-fits';
 import { FitOptionsForm } from '@/features/fits/components/fit-options-form';
 import { FitView } from '@/features/fits/components/fit-view';
 import { FitsList } from '@/features/fits/components/fits-list';
@@ -95,6 +96,9 @@ export function EventRoute() {
   const event = useEvent(eventId);
   const fits = useFits(eventId);
   const chords = useChords(eventId);
+  // Chords come apart from the event detail (stations, star, ephemeris, DUT1); either changing may leave a
+  // fit based on older data.
+  useRefreshFitsOnDataChange(eventId, [event.data?.dataSha256, chords.data]);
 
   const requested = search.get('section');
   const chosenFitId = search.get('fit');
