@@ -1,34 +1,18 @@
+import { REPORT_RESULT_VALUES, reportViewSchema, type ReportView } from '@limbus/schema/views';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
 
-export const REPORT_RESULTS = ['positive', 'negative', 'clouded_out', 'technical_failure'] as const;
+export const REPORT_RESULTS = REPORT_RESULT_VALUES;
 export type ReportResult = (typeof REPORT_RESULTS)[number];
-
-const timedMarkSchema = z.object({ time: z.string(), sigmaSeconds: z.number() });
-
-export const reportSchema = z.object({
-  id: z.string(),
-  stationId: z.string(),
-  result: z.enum(REPORT_RESULTS),
-  state: z.string(),
-  disappearance: timedMarkSchema.nullable().optional(),
-  reappearance: timedMarkSchema.nullable().optional(),
-  observedFromUtc: z.string().nullable().optional(),
-  observedToUtc: z.string().nullable().optional(),
-  notes: z.string().nullable().optional(),
-  rejectReason: z.string().nullable().optional(),
-  authorName: z.string().nullable().optional(),
-  lightCurve: z.object({ id: z.string(), name: z.string().optional() }).nullable().optional(),
-});
-
-export type Report = z.infer<typeof reportSchema>;
+export type Report = ReportView;
+export type ReportCorrection = ReportView['corrections'][number];
 
 export const reportsQueryKey = (eventId: string) => ['events', eventId, 'reports'] as const;
 
 export function getReports(eventId: string, signal?: AbortSignal): Promise<Report[]> {
   return apiRequest(`/api/events/${encodeURIComponent(eventId)}/reports`, {
-    schema: z.array(reportSchema),
+    schema: z.array(reportViewSchema),
     signal,
   });
 }

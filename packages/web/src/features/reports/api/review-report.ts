@@ -1,23 +1,31 @@
+import { noteText, TEXT_LIMITS } from '@limbus/schema/text';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { reportsQueryKey } from './get-reports';
 import { apiRequest } from '@/lib/api-client';
 
 export const rejectInputSchema = z.object({
-  reason: z
-    .string()
-    .trim()
-    .min(1, 'a reason is required so the observer knows what to fix')
-    .max(2000, 'at most 2000 characters'),
+  reason: noteText(TEXT_LIMITS.reason).refine(
+    (s) => s.length > 0,
+    'a reason is required so the observer knows what to fix',
+  ),
 });
 
 export type ReportDecision =
-  { reportId: string; accept: true } | { reportId: string; accept: false; reason: string };
+  | { reportId: string; accept: true; replaceTimedChord?: boolean }
+  | { reportId: string; accept: false; reason: string };
 
+/**
+ * An accept that would overwrite better-timed chord values is refused with 409
+ * `replaces-better-timing` until it is repeated with `replaceTimedChord: true`.
+ */
 export function decideReport(decision: ReportDecision): Promise<void> {
   const base = `/api/reports/${encodeURIComponent(decision.reportId)}`;
   return decision.accept
-    ? apiRequest(`${base}/accept`, { method: 'POST' })
+    ? apiRequest(`${base}/accept`, {
+        method: 'POST',
+        body: { replaceTimedChord: decision.replaceTimedChord ?? false },
+      })
     : apiRequest(`${base}/reject`, { method: 'POST', body: { reason: decision.reason } });
 }
 

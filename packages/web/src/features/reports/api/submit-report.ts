@@ -1,8 +1,12 @@
+import { lineText, noteText, TEXT_LIMITS } from '@limbus/schema/text';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { REPORT_RESULTS, reportsQueryKey } from './get-reports';
+import { REPORT_RESULTS, reportsQueryKey, type Report } from './get-reports';
 import { apiRequest } from '@/lib/api-client';
 
+// The form checks only what each field is on its own (a UTC time, a σ, a text's length); what a result
+// needs as a whole (both times of a positive, in order) is the server's rule, and its 400 lands on the
+// fields it names.
 const UTC_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?Z$/;
 const utcTime = z.string().regex(UTC_TIME, 'expected a UTC time such as "2028-03-14T02:11:04.25Z"');
 const timedMark = z.object({
@@ -12,77 +16,54 @@ const timedMark = z.object({
     .positive('σ must be greater than zero (a 1-σ timing uncertainty)'),
 });
 
-const later = (a: string, b: string) => Date.parse(b) > Date.parse(a);
-
-/** What a result needs, as the server checks it: a positive both timings in order, a negative its span. */
-export const reportInputSchema = z
-  .object({
-    stationId: z.string().min(1, 'choose the station'),
-    result: z.enum(REPORT_RESULTS),
-    disappearance: timedMark.nullable(),
-    reappearance: timedMark.nullable(),
-    observedFromUtc: utcTime.nullable(),
-    observedToUtc: utcTime.nullable(),
-    notes: z.string().trim().max(10_000, 'at most 10 000 characters').nullable(),
-  })
-  .superRefine((report, ctx) => {
-    if (report.result === 'positive') {
-      if (report.disappearance === null)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['disappearance'],
-          message: 'a positive report needs the disappearance',
-        });
-      if (report.reappearance === null)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['reappearance'],
-          message: 'a positive report needs the reappearance',
-        });
-      if (
-        report.disappearance &&
-        report.reappearance &&
-        !later(report.disappearance.time, report.reappearance.time)
-      )
-        ctx.addIssue({
-          code: 'custom',
-          path: ['reappearance'],
-          message: 'reappearance must come after disappearance',
-        });
-    }
-    if (report.result === 'negative') {
-      if (report.observedFromUtc === null)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['observedFromUtc'],
-          message: 'a negative report needs the start of the span watched',
-        });
-      if (report.observedToUtc === null)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['observedToUtc'],
-          message: 'a negative report needs the end of the span watched',
-        });
-      if (
-        report.observedFromUtc &&
-        report.observedToUtc &&
-        !later(report.observedFromUtc, report.observedToUtc)
-      )
-        ctx.addIssue({
-          code: 'custom',
-          path: ['observedToUtc'],
-          message: 'the end must come after the start',
-        });
-    }
-  });
+export const reportInputSchema = z.object({
+  stationId: z.string().min(1, 'choose the station'),
+  result: z.enum(REPORT_RESULTS),
+  /** A positive whose times are to come from timing its light curve; the typed times are then optional. */
+  timesFromLightCurve: z.boolean(),
+  disappearance: timedMark.nullable(),
+  reappearance: timedMark.nullable(),
+  observedFromUtc: utcTime.nullable(),
+  observedToUtc: utcTime.nullable(),
+  ringDips: z.array(
+    z.object({ ring: lineText(TEXT_LIMITS.ringLabel, 'ring label'), start: timedMark, end: timedMark }),
+  ),
+  notes: noteText(TEXT_LIMITS.note).nullable(),
+});
 
 export type ReportInput = z.infer<typeof reportInputSchema>;
 
-/** Only the fields the result uses travel, so a report changed from positive to clouded out drops its times. */
+/** A stored report as the form's input, to compare an edit against. */
+export function inputOf(report: Report): ReportInput {
+  return {
+    stationId: report.stationId,
+    result: report.result,
+    timesFromLightCurve: report.timesFromLightCurve,
+    disappearance: report.disappearance,
+    reappearance: report.reappearance,
+    observedFromUtc: report.observedFromUtc,
+    observedToUtc: report.observedToUtc,
+    ringDips: report.ringDips,
+    notes: report.notes,
+  };
+}
+
+/**
+ * Only the fields the result uses travel, so a report changed from positive to clouded out drops its
+ * times. Ring dips belong to positives and negatives alike: a ring can hide the star either way.
+ */
 export function reportPayload(input: ReportInput): Record<string, unknown> {
   const { stationId, result, notes } = input;
   if (result === 'positive')
-    return { stationId, result, notes, disappearance: input.disappearance, reappearance: input.reappearance };
+    return {
+      stationId,
+      result,
+      notes,
+      timesFromLightCurve: input.timesFromLightCurve,
+      disappearance: input.disappearance,
+      reappearance: input.reappearance,
+      ringDips: input.ringDips,
+    };
   if (result === 'negative')
     return {
       stationId,
@@ -90,6 +71,7 @@ export function reportPayload(input: ReportInput): Record<string, unknown> {
       notes,
       observedFromUtc: input.observedFromUtc,
       observedToUtc: input.observedToUtc,
+      ringDips: input.ringDips,
     };
   return { stationId, result, notes };
 }

@@ -2,7 +2,6 @@ import {
   Badge,
   Body1,
   Button,
-  Field,
   makeStyles,
   Subtitle2,
   Table,
@@ -11,82 +10,70 @@ import {
   TableHeader,
   TableHeaderCell,
   TableRow,
-  Textarea,
   tokens,
 } from '@fluentui/react-components';
 import { useState } from 'react';
 import { useReports, type Report } from '../api/get-reports';
-import { rejectInputSchema, useDecideReport } from '../api/review-report';
+import { CorrectionCard } from './correction-card';
+import { DecideReport } from './decide-report';
+import { ReportDetails } from './report-details';
 import { ReportForm, type ReportStation } from './report-form';
-import { FormError } from '@/components/form-error';
-import { errorMessage } from '@/components/form-errors';
+import { pendingCorrection, RESULT_WORDS, stateText, waitingForTiming } from './report-text';
 import { Loading, RequestFailed } from '@/components/request-state';
+import { ScrollArea } from '@/components/scroll-area';
+import { markText, utcInstantText } from '@/components/timing-text';
 
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
-  actions: { display: 'flex', gap: tokens.spacingHorizontalS, flexWrap: 'wrap', alignItems: 'end' },
   time: { fontFamily: tokens.fontFamilyMonospace, overflowWrap: 'anywhere' },
-  scroll: { overflowX: 'auto' },
+  badges: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalXS },
   // Fluent tables share the width equally; the timings need more of it than the state does.
   table: { tableLayout: 'auto' },
+  list: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
 });
 
-/** One line per timing, so a long ISO time wraps between marks and never runs into the next column. */
+/** One line per timing, so a long time wraps between marks and never runs into the next column. */
 function timings(r: Report): string[] {
-  if (r.result === 'positive' && r.disappearance && r.reappearance)
-    return [
-      `D ${r.disappearance.time} ± ${r.disappearance.sigmaSeconds} s`,
-      `R ${r.reappearance.time} ± ${r.reappearance.sigmaSeconds} s`,
+  if (r.result === 'positive') {
+    const lines = [
+      ...(r.disappearance ? [`D ${markText(r.disappearance)}`] : []),
+      ...(r.reappearance ? [`R ${markText(r.reappearance)}`] : []),
     ];
+    if (r.timesFromLightCurve) lines.push('to be timed from the light curve');
+    return [...lines, ...r.ringDips.map((d) => `${d.ring} dip ${markText(d.start)} to ${markText(d.end)}`)];
+  }
   if (r.result === 'negative' && r.observedFromUtc && r.observedToUtc)
-    return [`from ${r.observedFromUtc}`, `to ${r.observedToUtc}`];
+    return [
+      `from ${utcInstantText(r.observedFromUtc)}`,
+      `to ${utcInstantText(r.observedToUtc)}`,
+      ...r.ringDips.map((d) => `${d.ring} dip ${markText(d.start)} to ${markText(d.end)}`),
+    ];
   return ['—'];
 }
 
-function Decide({ eventId, report }: { eventId: string; report: Report }) {
+function StateBadges({ report, canDecide }: { report: Report; canDecide: boolean }) {
   const styles = useStyles();
-  const decide = useDecideReport(eventId);
-  const [rejecting, setRejecting] = useState(false);
-  const [reason, setReason] = useState('');
-  const [reasonError, setReasonError] = useState<string | undefined>();
-  const name = `report of ${report.authorName ?? 'the observer'}`;
-  const reject = () => {
-    const parsed = rejectInputSchema.safeParse({ reason });
-    if (!parsed.success) {
-      setReasonError(parsed.error.issues[0]?.message);
-      return;
-    }
-    decide.mutate({ reportId: report.id, accept: false, reason: parsed.data.reason });
-  };
+  const r = report;
   return (
-    <div className={styles.actions}>
-      {rejecting ? (
-        <>
-          <Field label={`Reason for rejecting the ${name}`} validationMessage={reasonError}>
-            <Textarea value={reason} onChange={(_, d) => setReason(d.value)} />
-          </Field>
-          <Button onClick={reject} disabled={decide.isPending}>
-            Send rejection
-          </Button>
-          <Button onClick={() => setRejecting(false)}>Cancel</Button>
-        </>
-      ) : (
-        <>
-          <Button
-            appearance="primary"
-            aria-label={`Accept ${name}`}
-            disabled={decide.isPending}
-            onClick={() => decide.mutate({ reportId: report.id, accept: true })}
-          >
-            Accept
-          </Button>
-          <Button aria-label={`Reject ${name}`} onClick={() => setRejecting(true)}>
-            Reject…
-          </Button>
-        </>
-      )}
-      {decide.isError ? (
-        <FormError title="The decision was not saved" message={errorMessage(decide.error)} />
+    <div className={styles.badges}>
+      <Badge
+        appearance={r.state === 'accepted' ? 'filled' : 'outline'}
+        color={
+          r.state === 'rejected'
+            ? 'danger'
+            : r.state === 'accepted'
+              ? 'success'
+              : waitingForTiming(r)
+                ? 'warning'
+                : 'informative'
+        }
+      >
+        {stateText(r)}
+      </Badge>
+      {canDecide && pendingCorrection(r) !== null ? (
+        <Badge appearance="tint" color="warning">
+          correction requested
+        </Badge>
       ) : null}
     </div>
   );
@@ -98,13 +85,13 @@ export interface ReportsPanelProps {
   stations: ReportStation[];
   /** The stations the signed-in user observes from; they report only for these. */
   ownStationIds: string[];
-  /** Coordinators accept and reject; others only see. */
+  /** Coordinators accept and reject reports and corrections; others only see. */
   canDecide: boolean;
 }
 
 /**
  * Observer reports. The server already limits an observer to their own reports; this view also offers
- * the report form only for the user's own stations.
+ * the report form only for the user's own stations, and shows each of the user's reports in full.
  */
 export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: ReportsPanelProps) {
   const styles = useStyles();
@@ -113,8 +100,9 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
   if (reports.isPending) return <Loading label="Loading reports…" />;
   if (reports.isError)
     return <RequestFailed what="the reports" error={reports.error} onRetry={() => void reports.refetch()} />;
-  const codeOf = new Map(stations.map((s) => [s.id, s.code]));
   const own = stations.filter((s) => ownStationIds.includes(s.id));
+  const ownReports = reports.data.filter((r) => ownStationIds.includes(r.stationId));
+  const pending = canDecide ? reports.data.filter((r) => pendingCorrection(r) !== null) : [];
   const editedReport =
     editing === null || editing === 'new' ? null : (reports.data.find((r) => r.id === editing) ?? null);
 
@@ -123,14 +111,14 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
       {reports.data.length === 0 ? (
         <Body1 as="p">No reports yet.</Body1>
       ) : (
-        <div className={styles.scroll}>
+        <ScrollArea label="Reports table">
           <Table className={styles.table} aria-label="Reports" size="small">
             <TableHeader>
               <TableRow>
                 <TableHeaderCell>Station</TableHeaderCell>
                 <TableHeaderCell>Observer</TableHeaderCell>
                 <TableHeaderCell>Result</TableHeaderCell>
-                <TableHeaderCell>Timings</TableHeaderCell>
+                <TableHeaderCell>Timings (UTC, 1σ)</TableHeaderCell>
                 <TableHeaderCell>State</TableHeaderCell>
                 <TableHeaderCell>Actions</TableHeaderCell>
               </TableRow>
@@ -138,9 +126,9 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
             <TableBody>
               {reports.data.map((r) => (
                 <TableRow key={r.id}>
-                  <TableCell>{codeOf.get(r.stationId) ?? r.stationId}</TableCell>
-                  <TableCell>{r.authorName ?? '—'}</TableCell>
-                  <TableCell>{r.result.replace('_', ' ')}</TableCell>
+                  <TableCell>{r.station}</TableCell>
+                  <TableCell>{r.authorName}</TableCell>
+                  <TableCell>{RESULT_WORDS[r.result]}</TableCell>
                   <TableCell>
                     {timings(r).map((line) => (
                       <div key={line} className={styles.time}>
@@ -149,22 +137,21 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
                     ))}
                   </TableCell>
                   <TableCell>
-                    <Badge
-                      appearance={r.state === 'accepted' ? 'filled' : 'outline'}
-                      color={
-                        r.state === 'rejected' ? 'danger' : r.state === 'accepted' ? 'success' : 'informative'
-                      }
-                    >
-                      {r.state}
-                    </Badge>
+                    <StateBadges report={r} canDecide={canDecide} />
                     {r.state === 'rejected' && r.rejectReason ? (
                       <Body1 as="p">Reason: {r.rejectReason}</Body1>
                     ) : null}
                   </TableCell>
                   <TableCell>
-                    {canDecide && r.state !== 'accepted' ? <Decide eventId={eventId} report={r} /> : null}
+                    {canDecide && r.state !== 'accepted' ? (
+                      <DecideReport eventId={eventId} report={r} />
+                    ) : null}
                     {ownStationIds.includes(r.stationId) && r.state !== 'accepted' ? (
-                      <Button size="small" onClick={() => setEditing(r.id)}>
+                      <Button
+                        size="small"
+                        aria-label={`Edit the report for ${r.station}`}
+                        onClick={() => setEditing(r.id)}
+                      >
                         Edit
                       </Button>
                     ) : null}
@@ -173,7 +160,7 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
               ))}
             </TableBody>
           </Table>
-        </div>
+        </ScrollArea>
       )}
       {own.length > 0 && editing === null ? (
         <div>
@@ -191,6 +178,31 @@ export function ReportsPanel({ eventId, stations, ownStationIds, canDecide }: Re
             onSaved={() => setEditing(null)}
           />
           <Button onClick={() => setEditing(null)}>Close the form</Button>
+        </section>
+      ) : null}
+      {pending.length > 0 ? (
+        <section className={styles.list} aria-label="Corrections waiting for a decision">
+          <Subtitle2 as="h4">Corrections waiting for a decision</Subtitle2>
+          {pending.map((r) => {
+            const correction = pendingCorrection(r);
+            return correction === null ? null : (
+              <CorrectionCard
+                key={correction.id}
+                eventId={eventId}
+                report={r}
+                correction={correction}
+                canDecide
+              />
+            );
+          })}
+        </section>
+      ) : null}
+      {ownReports.length > 0 ? (
+        <section className={styles.list} aria-label="Your reports">
+          <Subtitle2 as="h4">Your reports</Subtitle2>
+          {ownReports.map((r) => (
+            <ReportDetails key={r.id} eventId={eventId} report={r} stations={own} />
+          ))}
         </section>
       ) : null}
     </section>
