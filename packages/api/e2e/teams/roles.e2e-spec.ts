@@ -1,9 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import type request from 'supertest';
+import type { Server } from 'node:http';
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Team } from '../../src/teams/entities/team.entity';
 import type { TeamRole } from '../../src/teams/roles';
 import { bootTestApp, type TestApp, uniqueEmail } from '../setup';
+import { del, patch } from '../events/workspace';
 
 describe('team routes and role guards', () => {
   let t: TestApp;
@@ -107,20 +109,25 @@ describe('team routes and role guards', () => {
     await t.get('/api/admin/outbox').expect(401);
   });
 
-  it('GET /api/admin/outbox returns the messages the catcher holds, newest last', async () => {
-    const email = uniqueEmail('outbox');
-    await t
-      .post(`/api/teams/${team.id}/invitations`)
-      .set('Authorization', bearer('coordinator'))
-      .send({ email, role: 'reviewer' })
-      .expect(201);
-    await t.mailTo(email);
+  it('GET /api/admin/outbox returns the messages the catcher holds, newest first, with their kind', async () => {
+    const first = uniqueEmail('outbox');
+    const second = uniqueEmail('outbox');
+    for (const email of [first, second]) {
+      await t
+        .post(`/api/teams/${team.id}/invitations`)
+        .set('Authorization', bearer('coordinator'))
+        .send({ email, role: 'reviewer' })
+        .expect(201);
+      await t.mailTo(email);
+    }
     const response = await t.get('/api/admin/outbox').set('Authorization', bearer('admin')).expect(200);
-    const mine = (response.body as Array<{ to: string[]; subject: string }>).filter((m) =>
-      m.to.join().includes(email),
+    const mine = (response.body as Array<{ to: string[]; subject: string; kind: string | null }>).filter(
+      (m) => [first, second].some((email) => m.to.includes(email)),
     );
-    expect(mine).toHaveLength(1);
-    expect(mine[0]?.subject).toBe(`You are invited to ${team.name} on Limbus`);
+    expect(mine.map((m) => [m.to, m.subject, m.kind])).toEqual([
+      [[second], `You are invited to ${team.name} on Limbus`, 'invitation'],
+      [[first], `You are invited to ${team.name} on Limbus`, 'invitation'],
+    ]);
   });
 
   // The matrix of docs/authorization.md, cell by cell ("anonymous" sends no token).
@@ -133,8 +140,38 @@ describe('team routes and role guards', () => {
     'otherCoordinator',
     'anonymous',
   ] as const;
-  const matrix: Array<{ route: string; send: () => request.Test; expected: number[] }> = [
-    { route: 'GET /api/me', send: () => t.get('/api/me'), expected: [200, 200, 200, 200, 200, 200, 401] },
+  const server = () => t.app.getHttpServer() as Server;
+  /** A member of the team to change or remove, new for each call so one caller's success cannot shape the next answer. */
+  const freshMember = async (): Promise<string> =>
+    (await t.createUser({ teams: [{ team, roles: ['observer'] }] })).user.id;
+  /** An open invitation of the team, new for each call. */
+  const freshInvitation = async (): Promise<string> =>
+    (
+      await t
+        .post(`/api/teams/${team.id}/invitations`)
+        .set('Authorization', bearer('coordinator'))
+        .send({ email: uniqueEmail('cell'), roles: ['observer'] })
+        .expect(201)
+    ).body.id as string;
+
+  /** `fresh` makes the object one call acts on (a member, an invitation), new for each caller. */
+  const matrix: Array<{
+    route: string;
+    fresh?: () => Promise<string>;
+    send: (id: string) => request.Test;
+    expected: number[];
+  }> = [
+    {
+      route: 'GET /api/me',
+      send: () => t.get('/api/me'),
+      expected: [200, 200, 200, 200, 200, 200, 401],
+    },
+    {
+      route: 'PUT /api/me/notices',
+      send: () =>
+        request(server()).put('/api/me/notices').set('X-Forwarded-For', t.address).send({ optOut: [] }),
+      expected: [200, 200, 200, 200, 200, 200, 401],
+    },
     {
       route: 'GET /api/teams',
       send: () => t.get('/api/teams'),
@@ -151,10 +188,39 @@ describe('team routes and role guards', () => {
       expected: [200, 200, 200, 200, 200, 404, 401],
     },
     {
+      route: 'PATCH /api/teams/:teamId/members/:userId',
+      fresh: freshMember,
+      send: (userId) => patch(t, `/api/teams/${team.id}/members/${userId}`).send({ roles: ['modeller'] }),
+      expected: [200, 200, 403, 403, 403, 404, 401],
+    },
+    {
+      route: 'DELETE /api/teams/:teamId/members/:userId',
+      fresh: freshMember,
+      send: (userId) => del(t, `/api/teams/${team.id}/members/${userId}`),
+      expected: [204, 204, 403, 403, 403, 404, 401],
+    },
+    {
+      route: 'GET /api/teams/:teamId/invitations',
+      send: () => t.get(`/api/teams/${team.id}/invitations`),
+      expected: [200, 200, 403, 403, 403, 404, 401],
+    },
+    {
       route: 'POST /api/teams/:teamId/invitations',
       send: () =>
         t.post(`/api/teams/${team.id}/invitations`).send({ email: uniqueEmail('cell'), role: 'observer' }),
       expected: [201, 201, 403, 403, 403, 404, 401],
+    },
+    {
+      route: 'POST /api/teams/:teamId/invitations/:invitationId/resend',
+      fresh: freshInvitation,
+      send: (invitationId) => t.post(`/api/teams/${team.id}/invitations/${invitationId}/resend`),
+      expected: [200, 200, 403, 403, 403, 404, 401],
+    },
+    {
+      route: 'DELETE /api/teams/:teamId/invitations/:invitationId',
+      fresh: freshInvitation,
+      send: (invitationId) => del(t, `/api/teams/${team.id}/invitations/${invitationId}`),
+      expected: [204, 204, 403, 403, 403, 404, 401],
     },
     {
       route: 'GET /api/admin/outbox',
@@ -168,14 +234,17 @@ describe('team routes and role guards', () => {
     },
   ];
 
-  it.each(matrix)('$route answers each role as docs/authorization.md says', async ({ send, expected }) => {
-    const actual: number[] = [];
-    for (const caller of who) {
-      const req = send();
-      actual.push(
-        (caller === 'anonymous' ? await req : await req.set('Authorization', bearer(caller))).status,
-      );
-    }
-    expect(actual).toEqual(expected);
-  });
+  it.each(matrix)(
+    '$route answers each role as docs/authorization.md says',
+    async ({ fresh, send, expected }) => {
+      const actual: number[] = [];
+      for (const caller of who) {
+        const req = send(fresh ? await fresh() : '');
+        actual.push(
+          (caller === 'anonymous' ? await req : await req.set('Authorization', bearer(caller))).status,
+        );
+      }
+      expect(actual).toEqual(expected);
+    },
+  );
 });
