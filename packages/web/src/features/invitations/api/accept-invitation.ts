@@ -1,21 +1,13 @@
+import type { AcceptInvitationPayload } from '@limbus/schema/team';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
 import { sessionResponseSchema, startSession } from '@/lib/session';
 
-export const MIN_PASSWORD_LENGTH = 10;
-
-export const acceptInvitationInputSchema = z.object({
-  name: z.string().trim().min(1, 'Enter your name'),
-  password: z.string().min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters`),
-});
-
-export type AcceptInvitationInput = z.infer<typeof acceptInvitationInputSchema>;
-
-export function acceptInvitation(token: string, input: AcceptInvitationInput) {
+/** Joins the team: a new address gets an account, an existing one proves itself with its password. */
+export function acceptInvitation(token: string, payload: AcceptInvitationPayload) {
   return apiRequest(`/api/invitations/${encodeURIComponent(token)}/accept`, {
     method: 'POST',
-    body: input,
+    body: payload,
     schema: sessionResponseSchema,
     anonymous: true,
   });
@@ -24,7 +16,7 @@ export function acceptInvitation(token: string, input: AcceptInvitationInput) {
 export function useAcceptInvitation(token: string, onAccepted: () => void) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: AcceptInvitationInput) => acceptInvitation(token, input),
+    mutationFn: (payload: AcceptInvitationPayload) => acceptInvitation(token, payload),
     onSuccess: (session) => {
       startSession(queryClient, session.accessToken);
       onAccepted();

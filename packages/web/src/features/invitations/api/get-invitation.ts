@@ -1,19 +1,13 @@
+import { publicInvitationViewSchema, type PublicInvitationView } from '@limbus/schema/views';
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
 
-export const invitationSchema = z.object({
-  email: z.string(),
-  teamName: z.string(),
-  role: z.string(),
-  expiresAt: z.string(),
-});
+export type Invitation = PublicInvitationView;
 
-export type Invitation = z.infer<typeof invitationSchema>;
-
+/** What the e-mailed link shows before accepting; open to anyone holding the token. */
 export function getInvitation(token: string, signal?: AbortSignal): Promise<Invitation> {
   return apiRequest(`/api/invitations/${encodeURIComponent(token)}`, {
-    schema: invitationSchema,
+    schema: publicInvitationViewSchema,
     signal,
     anonymous: true,
   });
