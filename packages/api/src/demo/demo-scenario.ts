@@ -6,12 +6,13 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { EntityManager } from '@mikro-orm/mariadb';
 import { solveEvent, ENGINE_VERSION } from '@limbus/geometry';
-import { validateEventFile } from '@limbus/schema';
+import { type ContextInputFile, validateContextInput, validateEventFile } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
 import { Body } from '../bodies/entities/body.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { OccultationEvent } from '../events/entities/occultation-event.entity';
-import { eventDataSha256 } from '../events/event-data';
+import { DynamicsContext } from '../dynamics/entities/dynamics-context.entity';
+import { defaultEventTimeUtc, eventDataSha256 } from '../events/event-data';
 import { chordRow, eventFileOf, loadEventRows, persistEventFile } from '../events/event-rows';
 import { FitRun } from '../fits/entities/fit-run.entity';
 import { sha256Hex } from '../fits/fits.service';
@@ -27,6 +28,39 @@ export const DEMO_EVENT_PATH = path.resolve(__dirname, '../../src/demo/quillon-e
 
 /** The invented body of the demo event. */
 export const DEMO_BODY = { name: 'Quillon', designation: '2027 QL88' } as const;
+
+/**
+ * Quillon's invented physical parameters (limbus-context-input/1), near what the demo event's limb gives
+ * (an equivalent radius of about 365 km); every source says it is invented.
+ */
+export const DEMO_BODY_CONTEXT: ContextInputFile = {
+  format: 'limbus-context-input/1',
+  body: {
+    densityKgM3: 1200,
+    densityKgM3Sigma: 300,
+    densityKgM3Source: 'invented for the demo: an icy-rock mix assumed',
+    radiusKm: 365,
+    radiusKmSigma: 8,
+    radiusKmSource: 'invented for the demo: equivalent radius of the 2029 limb',
+    spinPeriodHours: 7.8,
+    spinPeriodHoursSigma: 0.2,
+    spinPeriodHoursSource: 'invented for the demo: light-curve period',
+  },
+  particleDensityKgM3: 900,
+  particleDensityKgM3Source: 'invented for the demo: water ice',
+  heliocentricDistanceAu: 38.2,
+  heliocentricDistanceAuSigma: 0.01,
+  heliocentricDistanceAuSource: 'invented for the demo: ephemeris at the event',
+  satellites: [
+    {
+      name: 'Tessel',
+      semiMajorAxisKm: 6200,
+      semiMajorAxisKmSigma: 150,
+      semiMajorAxisKmSource: 'invented for the demo',
+    },
+  ],
+  rings: [],
+};
 
 /** Invented observers; observer@example.org (a demo user) holds the first two sites. */
 export const DEMO_OBSERVERS: ReadonlyArray<{
@@ -129,9 +163,12 @@ export async function seedDemoScenario(em: EntityManager, teamName: string): Pro
     const body = new Body(team, DEMO_BODY.name);
     body.designation = DEMO_BODY.designation;
     body.createdById = coordinator.id;
-    tx.persist(body);
+    const context = validateContextInput(DEMO_BODY_CONTEXT);
+    if (!context.ok) throw new Error(`demo body context: ${JSON.stringify(context.problems)}`);
+    tx.persist([body, new DynamicsContext(body, context.file, coordinator)]);
     const rows = persistEventFile(tx, team, body, { ...file, chords: [], ringEvents: [] }, coordinator.id);
     const event = rows.event;
+    event.eventTimeUtc = defaultEventTimeUtc(file);
     const observers = new Map<string, User>();
     for (const o of DEMO_OBSERVERS) {
       if (!o.email || observers.has(o.email)) continue;
