@@ -166,13 +166,15 @@ export async function apiJson<T>(
 export async function linkFromOutbox(adminToken: string, to: string, routePrefix: string): Promise<string> {
   const pattern = new RegExp(`https?://[^\\s"'<>]*${routePrefix.replace(/\//g, '\\/')}[^\\s"'<>]+`);
   for (let attempt = 0; attempt < 40; attempt++) {
-    const messages = await apiJson<Array<{ to: string[]; text?: string | null; html?: string | null }>>(
+    const messages = await apiJson<Array<{ to: string[]; text: string; html: string; date: string }>>(
       adminToken,
       '/api/admin/outbox',
     );
-    for (const message of [...messages].reverse()) {
+    // Newest first by date: a resent invitation's old link is dead.
+    const newestFirst = [...messages].sort((a, b) => Date.parse(b.date) - Date.parse(a.date));
+    for (const message of newestFirst) {
       if (!message.to.includes(to)) continue;
-      const found = pattern.exec(`${message.text ?? ''} ${message.html ?? ''}`);
+      const found = pattern.exec(`${message.text} ${message.html}`);
       if (found !== null) return found[0];
     }
     await new Promise((resolve) => setTimeout(resolve, 250));
