@@ -13,8 +13,8 @@ const DEFAULT_CHORDS = 7;
 const MAX_CHORDS = 1000;
 
 /**
- * The event desk's plots on an invented occultation, until events carry solutions: lets people (and the
- * browser benchmark, with ?chords=200) see the plots in the real build.
+ * The event desk's plots on an invented occultation, for working on the plots (?chords=200 draws that
+ * many). Development builds only: the router leaves it out of the product.
  */
 export function PlotsPreviewRoute() {
   const styles = useStyles();
