@@ -147,6 +147,14 @@ describe('authorization matrix of the event workspace', () => {
     },
     'GET /api/events/:eventId/export': async () => ({ method: 'get', url: `/api/events/${eventId}/export` }),
     'GET /api/events/:eventId/audit': async () => ({ method: 'get', url: `/api/events/${eventId}/audit` }),
+    'GET /api/events/:eventId/reviews': async () => ({
+      method: 'get',
+      url: `/api/events/${eventId}/reviews`,
+    }),
+    'GET /api/events?archived=true&teamId=:teamId': async () => ({
+      method: 'get',
+      url: `/api/events?archived=true&teamId=${w.team.id}`,
+    }),
     'POST /api/events/:eventId/stations': async () => ({
       method: 'post',
       url: `/api/events/${eventId}/stations`,

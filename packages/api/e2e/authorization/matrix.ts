@@ -35,6 +35,13 @@ export const MATRIX: MatrixRow[] = [
   { route: 'POST /api/events/:eventId/restore', ok: 200, cells: only(['admin', 'coordinator']) },
   { route: 'GET /api/events/:eventId/export', ok: 200, cells: members('ok') },
   { route: 'GET /api/events/:eventId/audit', ok: 200, cells: only(['admin', 'coordinator']) },
+  { route: 'GET /api/events/:eventId/reviews', ok: 200, cells: members('ok') },
+  {
+    // Lists show the caller's own teams only: a site admin or another team's member gets an empty page.
+    route: 'GET /api/events?archived=true&teamId=:teamId',
+    ok: 200,
+    cells: members('ok', { observer: 403, modeller: 403, reviewer: 403, outsider: 'ok' }),
+  },
   { route: 'POST /api/events/:eventId/stations', ok: 201, cells: only(['admin', 'coordinator']) },
   { route: 'PATCH /api/events/:eventId/stations/:stationId', ok: 200, cells: only(['admin', 'coordinator']) },
   {

@@ -85,9 +85,12 @@ export class EventsService {
     let teams = memberships.map((m) => ({ id: m.team.id, roles: m.roles }));
     if (query.teamId !== undefined) teams = teams.filter((t) => t.id === query.teamId);
     if (query.archived) {
-      // Deleted events are the coordinators' to restore; others do not see them.
-      teams = teams.filter((t) => user.isAdmin || t.roles.includes('coordinator'));
-      if (query.teamId !== undefined && teams.length === 0) throw new ForbiddenError();
+      // Deleted events are the coordinators' to restore: a member who is not is refused when naming the
+      // team, and otherwise sees none of that team's. Like every list, only the caller's own teams count.
+      const coordinated = teams.filter((t) => user.isAdmin || t.roles.includes('coordinator'));
+      if (query.teamId !== undefined && teams.length > 0 && coordinated.length === 0)
+        throw new ForbiddenError();
+      teams = coordinated;
     }
     const empty: EventsPage = { items: [], total: 0, page: query.page, pageSize: query.pageSize };
     if (teams.length === 0) return empty;
