@@ -6,7 +6,7 @@ import { paths } from '@/config/paths';
 import { EventDynamicsPanel } from '@/features/dynamics/components/dynamics-panel';
 import { useEvent } from '@/features/event-setup/api/get-event';
 import { LightCurvePanel } from '@/features/light-curves/components/light-curve-panel';
-import { useReports } from '@/features/reports/api/get-reports';
+import { useReports, waitingForTiming, type Report } from '@/features/reports/api/get-reports';
 
 // Composes the light-curve, dynamics and setup features into the event desk (event.tsx mounts these), so
 // no feature needs to know about reports, fits or bodies beyond the ids it is given.
@@ -21,7 +21,7 @@ export interface EventAnalysisProps {
   canEdit: boolean;
 }
 
-/** Reports that carry a light curve, one chosen at a time, with its timing view. */
+/** Reports that carry a light curve, those waiting for timing first, one chosen at a time, with its timing view. */
 export function EventLightCurvesSection({ eventId, stations, canEdit }: EventAnalysisProps) {
   const styles = useStyles();
   const reports = useReports(eventId);
@@ -30,19 +30,21 @@ export function EventLightCurvesSection({ eventId, stations, canEdit }: EventAna
   if (reports.isError)
     return <RequestFailed what="the reports" error={reports.error} onRetry={() => void reports.refetch()} />;
   const withCurve = reports.data.filter((r) => r.lightCurve != null);
-  const code = (stationId: string) => stations.find((s) => s.id === stationId)?.code ?? stationId;
-  const reportId = chosen ?? withCurve[0]?.id ?? null;
-  const report = withCurve.find((r) => r.id === reportId);
+  const ordered = [...withCurve.filter(waitingForTiming), ...withCurve.filter((r) => !waitingForTiming(r))];
+  const code = (r: Report) => stations.find((s) => s.id === r.stationId)?.code ?? r.station;
+  const reportId = chosen ?? ordered[0]?.id ?? null;
+  const report = ordered.find((r) => r.id === reportId);
   return (
     <section className={styles.section} aria-label="Light curves">
       <Subtitle1 as="h3">Light curves</Subtitle1>
-      {withCurve.length === 0 ? <Body1 as="p">No report has an uploaded light curve yet.</Body1> : null}
-      {withCurve.length > 1 ? (
+      {ordered.length === 0 ? <Body1 as="p">No report has an uploaded light curve yet.</Body1> : null}
+      {ordered.length > 1 ? (
         <Field label="Report">
           <Select value={reportId ?? ''} onChange={(_, d) => setChosen(d.value)}>
-            {withCurve.map((r) => (
+            {ordered.map((r) => (
               <option key={r.id} value={r.id}>
-                {code(r.stationId)}: {r.lightCurve?.name ?? 'light curve'}
+                {code(r)}: {r.lightCurve?.name ?? 'light curve'}
+                {waitingForTiming(r) ? ' (waiting for timing)' : ''}
               </option>
             ))}
           </Select>
@@ -53,7 +55,8 @@ export function EventLightCurvesSection({ eventId, stations, canEdit }: EventAna
           key={report.id}
           eventId={eventId}
           reportId={report.id}
-          stationLabel={code(report.stationId)}
+          stationLabel={code(report)}
+          chord={report.chord}
           canEdit={canEdit}
         />
       ) : null}

@@ -27,6 +27,8 @@ export const timingSummarySchema = z.object({
   error: z.string().nullable(),
   options: timingOptionsSchema,
   acceptedAt: z.string().nullable(),
+  /** True while the chord holds this timing's times; an accepted timing since replaced is false. */
+  inChord: z.boolean(),
   ringEventsCreatedAt: z.string().nullable(),
   createdAt: z.string(),
   finishedAt: z.string().nullable(),

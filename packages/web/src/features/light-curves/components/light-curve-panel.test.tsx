@@ -1,9 +1,9 @@
-import { screen } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { LightCurvePanel } from './light-curve-panel';
 import { TEST_TIMING } from './test-timing';
-import { jsonResponse, renderWithProviders, stubFetch } from '@/testing/test-utils';
+import { jsonResponse, renderWithProviders, stubFetch, type RecordedCall } from '@/testing/test-utils';
 
 afterEach(() => vi.unstubAllGlobals());
 
@@ -28,7 +28,9 @@ describe('LightCurvePanel', () => {
   it('LightCurvePanel shows the newest timing with its times and 1σ, and accepts it into the chord', async () => {
     const calls = api();
     const user = userEvent.setup();
-    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit />,
+    );
     await screen.findByRole('img', { name: /^Light curve of quillmoor/ });
     const table = screen.getByRole('table', { name: 'Fitted times' });
     expect(table).toHaveTextContent('2028-03-14T02:13:48.000250Z');
@@ -44,7 +46,9 @@ describe('LightCurvePanel', () => {
   it('LightCurvePanel turns the dips into ring events under the ring name given', async () => {
     const calls = api();
     const user = userEvent.setup();
-    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit />,
+    );
     await screen.findByRole('img', { name: /^Light curve/ });
     const ring = screen.getByRole('textbox', { name: 'Ring name' });
     await user.clear(ring);
@@ -59,7 +63,9 @@ describe('LightCurvePanel', () => {
   it('LightCurvePanel names the bad field of a new timing and of a hand-marked dip before sending', async () => {
     const calls = api();
     const user = userEvent.setup();
-    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit />,
+    );
     await screen.findByRole('img', { name: /^Light curve/ });
     await user.type(screen.getByRole('textbox', { name: 'Shadow speed (km/s)' }), '-3');
     await user.type(screen.getByRole('textbox', { name: 'Distance (km)' }), '6e9');
@@ -90,7 +96,9 @@ describe('LightCurvePanel', () => {
       return jsonResponse(404, { message: 'unexpected' });
     });
     const user = userEvent.setup();
-    renderWithProviders(<LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit />);
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit />,
+    );
     const speed = screen.getByRole('textbox', { name: 'Shadow speed (km/s)' });
     expect(
       await screen.findByText(/at 02:13:55 UTC \(the report's own times\), exposure from the station/),
@@ -112,10 +120,97 @@ describe('LightCurvePanel', () => {
   it('LightCurvePanel for a reader shows the plot without the actions', async () => {
     api();
     renderWithProviders(
-      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" canEdit={false} />,
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit={false} />,
     );
     await screen.findByRole('img', { name: /^Light curve/ });
     expect(screen.queryByRole('button', { name: 'Accept timing into chord' })).not.toBeInTheDocument();
     expect(screen.queryByRole('form', { name: 'Time this light curve' })).not.toBeInTheDocument();
+  });
+
+  it('LightCurvePanel says "In the chord" only while the chord holds the timing, and what replaced an accepted one', async () => {
+    const show = (timing: typeof TEST_TIMING, chord: Parameters<typeof LightCurvePanel>[0]['chord']) => {
+      const { result: _r, ...summary } = timing;
+      stubFetch((call) =>
+        call.url.endsWith('/timings') ? jsonResponse(200, [summary]) : jsonResponse(200, timing),
+      );
+      return renderWithProviders(
+        <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={chord} canEdit={false} />,
+      );
+    };
+    const first = show(TEST_TIMING, null);
+    expect(await screen.findByText('Not in the chord.')).toBeInTheDocument();
+    expect(screen.queryByText('In the chord')).not.toBeInTheDocument();
+    first.unmount();
+
+    const inChord = show(
+      { ...TEST_TIMING, acceptedAt: '2028-03-15T10:00:05.000Z', inChord: true },
+      {
+        source: 'timing',
+        timingId: 'tm1',
+      },
+    );
+    expect(await screen.findByText('In the chord')).toBeInTheDocument();
+
+    inChord.unmount();
+
+    show(
+      { ...TEST_TIMING, acceptedAt: '2028-03-15T10:00:05.000Z', inChord: false },
+      {
+        source: 'report',
+        timingId: null,
+      },
+    );
+    expect(
+      await screen.findByText(
+        "Accepted on 2028-03-15 10:00:05 UTC, since replaced by times typed in the observer's report.",
+      ),
+    ).toBeInTheDocument();
+    expect(screen.queryByText('In the chord')).not.toBeInTheDocument();
+  });
+
+  it('LightCurvePanel asks before the accept replaces better-timed chord values and repeats it with replaceTimedChord', async () => {
+    const accepts: RecordedCall[] = [];
+    stubFetch((call) => {
+      if (call.url === '/api/events/e1/reports/r1/timings') return jsonResponse(200, [SUMMARY]);
+      if (call.url === '/api/events/e1/timings/tm1') return jsonResponse(200, TEST_TIMING);
+      if (call.url === '/api/events/e1/timings/tm1/accept') {
+        accepts.push(call);
+        return (call.body as { replaceTimedChord: boolean }).replaceTimedChord
+          ? jsonResponse(200, { chordId: 'c1' })
+          : jsonResponse(409, {
+              message: 'Accepting would replace times with a smaller σ',
+              code: 'replaces-better-timing',
+              detail: {
+                chordId: 'c1',
+                station: 'quillmoor',
+                source: 'csv',
+                timingId: null,
+                current: {
+                  disappearance: { time: '2028-03-14T02:13:48.01Z', sigmaSeconds: 0.02 },
+                  reappearance: { time: '2028-03-14T02:13:52.02Z', sigmaSeconds: 0.02 },
+                },
+                incoming: {
+                  disappearance: TEST_TIMING.result?.disappearance ?? null,
+                  reappearance: TEST_TIMING.result?.reappearance ?? null,
+                },
+              },
+            });
+      }
+      return jsonResponse(404, { message: 'unexpected' });
+    });
+    const user = userEvent.setup();
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit />,
+    );
+    await user.click(await screen.findByRole('button', { name: 'Accept timing into chord' }));
+    const dialog = await screen.findByRole('alertdialog', { name: /quillmoor/ });
+    expect(dialog).toHaveTextContent('holds times from a CSV import');
+    expect(dialog).toHaveTextContent('2028-03-14 02:13:48.01 UTC ± 0.02 s');
+    expect(dialog).toHaveTextContent('2028-03-14 02:13:48.000250 UTC ± 0.12 s');
+    await user.click(within(dialog).getByRole('button', { name: 'Replace' }));
+    expect(await screen.findByText('Accepted into the chord.')).toBeInTheDocument();
+    await waitFor(() =>
+      expect(accepts.map((c) => c.body)).toEqual([{ replaceTimedChord: false }, { replaceTimedChord: true }]),
+    );
   });
 });

@@ -1,4 +1,6 @@
 import {
+  Badge,
+  Body1,
   Button,
   Field,
   Input,
@@ -14,7 +16,9 @@ import {
   TableHeaderCell,
   TableRow,
   tokens,
+  useRestoreFocusTarget,
 } from '@fluentui/react-components';
+import type { ChordSourceValue } from '@limbus/schema/views';
 import { useEffect, useState, type FormEvent } from 'react';
 import { useAcceptTiming } from '../api/accept-timing';
 import { createTimingInputSchema, useCreateTiming } from '../api/create-timing';
@@ -23,8 +27,7 @@ import { useTiming } from '../api/get-timing';
 import { type TimingDefaults, useTimingDefaults } from '../api/get-timing-defaults';
 import { useTimings } from '../api/get-timings';
 import { useMarkDip } from '../api/mark-dip';
-import type { TimingDetail, TimingResult } from '../api/timing-schema';
-import { LightCurvePlot } from '@/components/light-curve-plot';
+import type { TimingDetail, TimingResult, TimingSummary } from '../api/timing-schema';
 import { FormError } from '@/components/form-error';
 import {
   errorMessage,
@@ -32,17 +35,30 @@ import {
   fieldErrorsFromZod,
   type FieldErrors,
 } from '@/components/form-errors';
+import { LightCurvePlot } from '@/components/light-curve-plot';
+import { ReplaceTimingDialog, replacesBetterTimingOf } from '@/components/replace-timing-dialog';
 import { Loading, RequestFailed } from '@/components/request-state';
+import { ScrollArea } from '@/components/scroll-area';
+import { chordSourceText } from '@/components/timing-text';
+import { utcText } from '@/lib/utc-text';
 
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   row: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'end' },
 });
 
+/** Where the station's chord now takes its times from, to say what replaced an accepted timing. */
+export interface ChordProvenance {
+  source: ChordSourceValue;
+  timingId: string | null;
+}
+
 export interface LightCurvePanelProps {
   eventId: string;
   reportId: string;
   stationLabel: string;
+  /** The chord of the report, or null when it has none. */
+  chord: ChordProvenance | null;
   /** Coordinators and modellers may queue, accept and mark; everyone else reads. */
   canEdit: boolean;
 }
@@ -158,24 +174,66 @@ function TimesTable({ result }: { result: TimingResult }) {
     ]),
   ];
   return (
-    <Table aria-label="Fitted times" size="small">
-      <TableHeader>
-        <TableRow>
-          <TableHeaderCell>Edge</TableHeaderCell>
-          <TableHeaderCell>Time (UTC)</TableHeaderCell>
-          <TableHeaderCell>1σ (s)</TableHeaderCell>
-        </TableRow>
-      </TableHeader>
-      <TableBody>
-        {rows.map((r) => (
-          <TableRow key={r.label}>
-            <TableCell>{r.label}</TableCell>
-            <TableCell>{r.mark?.time ?? 'not found'}</TableCell>
-            <TableCell>{r.mark ? `± ${r.mark.sigmaSeconds.toFixed(4)}` : ''}</TableCell>
+    <ScrollArea label="Fitted times table">
+      <Table aria-label="Fitted times" size="small">
+        <TableHeader>
+          <TableRow>
+            <TableHeaderCell>Edge</TableHeaderCell>
+            <TableHeaderCell>Time (UTC)</TableHeaderCell>
+            <TableHeaderCell>1σ (s)</TableHeaderCell>
           </TableRow>
-        ))}
-      </TableBody>
-    </Table>
+        </TableHeader>
+        <TableBody>
+          {rows.map((r) => (
+            <TableRow key={r.label}>
+              <TableCell>{r.label}</TableCell>
+              <TableCell>{r.mark?.time ?? 'not found'}</TableCell>
+              <TableCell>{r.mark ? `± ${r.mark.sigmaSeconds.toFixed(4)}` : ''}</TableCell>
+            </TableRow>
+          ))}
+        </TableBody>
+      </Table>
+    </ScrollArea>
+  );
+}
+
+/**
+ * Whether the chord holds this timing's times; "In the chord" only while it does. A timing accepted
+ * earlier and since replaced says by what.
+ */
+function ChordStatus({
+  timing,
+  chord,
+  timings,
+}: {
+  timing: TimingSummary;
+  chord: ChordProvenance | null;
+  timings: TimingSummary[];
+}) {
+  if (timing.inChord)
+    return (
+      <Body1 as="p">
+        <Badge appearance="filled" color="success">
+          In the chord
+        </Badge>
+      </Body1>
+    );
+  if (timing.acceptedAt === null) return <Body1 as="p">Not in the chord.</Body1>;
+  const accepted = `Accepted on ${utcText(timing.acceptedAt)}`;
+  if (chord === null) return <Body1 as="p">{accepted}; the chord has since been deleted.</Body1>;
+  if (chord.source === 'timing') {
+    const other = timings.find((t) => t.id === chord.timingId);
+    return (
+      <Body1 as="p">
+        {accepted}, since replaced by{' '}
+        {other ? `the timing run of ${utcText(other.createdAt)}` : 'another timing of this light curve'}.
+      </Body1>
+    );
+  }
+  return (
+    <Body1 as="p">
+      {accepted}, since replaced by times {chordSourceText(chord.source)}.
+    </Body1>
   );
 }
 
@@ -192,6 +250,9 @@ function TimingActions({
 }) {
   const styles = useStyles();
   const accept = useAcceptTiming(eventId, timing.id);
+  const conflict = replacesBetterTimingOf(accept.error);
+  // The dialog opens from an answer, not a trigger: focus goes back to the accept button when it closes.
+  const restoreFocus = useRestoreFocusTarget();
   const toRings = useDipsToRingEvents(eventId, timing.id);
   const mark = useMarkDip(eventId, reportId, timing.id, onQueued);
   const [ring, setRing] = useState('R1');
@@ -232,18 +293,23 @@ function TimingActions({
       <div className={styles.row}>
         <Button
           appearance="primary"
-          disabled={!canAccept || accept.isPending}
-          onClick={() => accept.mutate()}
+          {...restoreFocus}
+          disabled={!canAccept || accept.isPending || timing.inChord}
+          onClick={() => accept.mutate({})}
         >
           Accept timing into chord
         </Button>
-        {(timing.acceptedAt !== null || accept.isSuccess) && (
-          <span role="status">Accepted into the chord.</span>
-        )}
+        {accept.isSuccess && <span role="status">Accepted into the chord.</span>}
       </div>
-      {accept.isError && (
+      {accept.isError && conflict === null && (
         <FormError title="Could not accept the timing" message={errorMessage(accept.error)} />
       )}
+      <ReplaceTimingDialog
+        conflict={conflict}
+        pending={accept.isPending}
+        onReplace={() => accept.mutate({ replaceTimedChord: true })}
+        onKeep={() => accept.reset()}
+      />
       <div className={styles.row}>
         <Field label="Ring name" validationMessage={ringError}>
           <Input value={ring} onChange={(_, d) => setRing(d.value)} />
@@ -281,7 +347,7 @@ function TimingActions({
 }
 
 /** One report's light curve: queue a timing, see it drawn with its times, and act on it. */
-export function LightCurvePanel({ eventId, reportId, stationLabel, canEdit }: LightCurvePanelProps) {
+export function LightCurvePanel({ eventId, reportId, stationLabel, chord, canEdit }: LightCurvePanelProps) {
   const styles = useStyles();
   const timings = useTimings(eventId, reportId);
   const [selected, setSelected] = useState<string | null>(null);
@@ -304,8 +370,9 @@ export function LightCurvePanel({ eventId, reportId, stationLabel, canEdit }: Li
           <Select value={selected ?? ''} onChange={(_, d) => setSelected(d.value)}>
             {timings.data.map((t) => (
               <option key={t.id} value={t.id}>
-                {t.createdAt} ({t.state}
-                {t.options.markedDips.length > 0 ? `, ${t.options.markedDips.length} marked dips` : ''})
+                {utcText(t.createdAt)} ({t.state}
+                {t.options.markedDips.length > 0 ? `, ${t.options.markedDips.length} marked dips` : ''}
+                {t.inChord ? ', in the chord' : ''})
               </option>
             ))}
           </Select>
@@ -317,6 +384,9 @@ export function LightCurvePanel({ eventId, reportId, stationLabel, canEdit }: Li
       )}
       {timing.data?.state === 'failed' && (
         <FormError title="The timing failed" message={timing.data.error ?? 'no reason given'} />
+      )}
+      {timing.data?.state === 'solved' && (
+        <ChordStatus timing={timing.data} chord={chord} timings={timings.data ?? []} />
       )}
       {timing.data?.result && (
         <>

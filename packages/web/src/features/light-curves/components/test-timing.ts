@@ -34,6 +34,7 @@ export const TEST_TIMING: TimingDetail = {
     markedDips: [],
   },
   acceptedAt: null,
+  inChord: false,
   ringEventsCreatedAt: null,
   createdAt: '2028-03-15T10:00:00.000Z',
   finishedAt: '2028-03-15T10:00:02.000Z',

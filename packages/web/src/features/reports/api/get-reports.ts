@@ -8,6 +8,11 @@ export type ReportResult = (typeof REPORT_RESULTS)[number];
 export type Report = ReportView;
 export type ReportCorrection = ReportView['corrections'][number];
 
+/** A positive report whose times are to come from timing its light curve, not yet accepted. */
+export function waitingForTiming(r: Report): boolean {
+  return r.result === 'positive' && r.timesFromLightCurve && r.state === 'submitted';
+}
+
 export const reportsQueryKey = (eventId: string) => ['events', eventId, 'reports'] as const;
 
 export function getReports(eventId: string, signal?: AbortSignal): Promise<Report[]> {

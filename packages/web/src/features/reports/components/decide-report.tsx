@@ -8,9 +8,8 @@ import {
   useRestoreFocusTarget,
 } from '@fluentui/react-components';
 import { useState } from 'react';
-import type { Report } from '../api/get-reports';
+import { waitingForTiming, type Report } from '../api/get-reports';
 import { rejectInputSchema, useDecideReport } from '../api/review-report';
-import { waitingForTiming } from './report-text';
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
 import { ReplaceTimingDialog, replacesBetterTimingOf } from '@/components/replace-timing-dialog';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Report, ReportResult } from '../api/get-reports';
+import { waitingForTiming, type Report, type ReportResult } from '../api/get-reports';
 import { inputOf, type ReportInput } from '../api/submit-report';
 import { chordSourceText, markText, utcInstantText } from '@/components/timing-text';
 
@@ -9,11 +9,6 @@ export const RESULT_WORDS: Record<ReportResult, string> = {
   clouded_out: 'clouded out',
   technical_failure: 'technical failure',
 };
-
-/** A positive report whose times are to come from timing its light curve, not yet accepted. */
-export function waitingForTiming(r: Report): boolean {
-  return r.result === 'positive' && r.timesFromLightCurve && r.state === 'submitted';
-}
 
 /** The report's state in words that agree with the chord: an accepted positive says where its times came from. */
 export function stateText(r: Report): string {

@@ -13,12 +13,12 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { useState } from 'react';
-import { useReports, type Report } from '../api/get-reports';
+import { useReports, waitingForTiming, type Report } from '../api/get-reports';
 import { CorrectionCard } from './correction-card';
 import { DecideReport } from './decide-report';
 import { ReportDetails } from './report-details';
 import { ReportForm, type ReportStation } from './report-form';
-import { pendingCorrection, RESULT_WORDS, stateText, waitingForTiming } from './report-text';
+import { pendingCorrection, RESULT_WORDS, stateText } from './report-text';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { ScrollArea } from '@/components/scroll-area';
 import { markText, utcInstantText } from '@/components/timing-text';
