@@ -1,3 +1,4 @@
+import { CHORD_SOURCE_VALUES, type ChordSourceValue } from '@limbus/schema/views';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
@@ -14,7 +15,7 @@ const chordResponseSchema = z.object({
   start: z.string().nullable(),
   end: z.string().nullable(),
   timeOffsetSeconds: z.number(),
-  source: z.string().nullable(),
+  source: z.enum(CHORD_SOURCE_VALUES).nullable(),
 });
 
 export interface TimedMark {
@@ -31,7 +32,8 @@ export interface ChordRow {
   start: string | null;
   end: string | null;
   timeOffsetSeconds: number;
-  source: string | null;
+  /** Where the chord's times came from (an import, a report, a timing, a hand edit, a CSV file). */
+  source: ChordSourceValue | null;
 }
 
 export const chordsQueryKey = (eventId: string) => ['events', eventId, 'chords'] as const;

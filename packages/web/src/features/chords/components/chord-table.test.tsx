@@ -31,7 +31,7 @@ const CHORDS = [
     start: null,
     end: null,
     timeOffsetSeconds: 0.12,
-    source: 'report',
+    source: 'timing',
   },
   {
     id: 'c3',
@@ -62,6 +62,19 @@ describe('ChordTable', () => {
     expect(within(grid).getByText('2029-05-17T03:12:31.250Z')).toBeInTheDocument();
     expect(within(grid).getByText('0.040')).toBeInTheDocument();
     expect(within(grid).getByText('negative')).toBeInTheDocument();
+  });
+
+  it("ChordTable says where each chord's times came from, and filters by it", async () => {
+    stubFetch(() => jsonResponse(200, CHORDS));
+    renderWithProviders(<ChordTable eventId="e1" stationCodes={STATIONS} canEdit />);
+    const grid = await screen.findByRole('grid', { name: 'Chord table' });
+    expect(within(grid).getByRole('columnheader', { name: /Times from/ })).toBeInTheDocument();
+    const row = (station: string) => grid.querySelector(`[data-chord-row="${station}"]`);
+    expect(row('kestrel-hill')).toHaveTextContent('from the event file');
+    expect(row('brackenmoor')).toHaveTextContent('from a light-curve timing');
+    await userEvent.setup().click(screen.getByRole('textbox', { name: 'Filter chords' }));
+    await userEvent.setup().paste('light-curve timing');
+    expect(stationsInOrder()).toEqual(['brackenmoor']);
   });
 
   it('ChordTable sorts by station when its header is clicked, and filters by text', async () => {

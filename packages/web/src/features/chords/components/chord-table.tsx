@@ -29,12 +29,13 @@ import { draftOf, emptyDraft, parseDraft, type ChordDraft, type DraftField } fro
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
 import { Loading, RequestFailed } from '@/components/request-state';
+import { ScrollArea } from '@/components/scroll-area';
+import { chordSourceText } from '@/components/timing-text';
 
 const useStyles = makeStyles({
   section: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
   toolbar: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'end' },
   addChord: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS, alignItems: 'center' },
-  scroll: { overflowX: 'auto' },
   time: { fontFamily: tokens.fontFamilyMonospace, whiteSpace: 'nowrap' },
   number: { fontFamily: tokens.fontFamilyMonospace, textAlign: 'end' },
   actions: { display: 'flex', gap: tokens.spacingHorizontalXS },
@@ -53,6 +54,7 @@ const COLUMN_WIDTHS = {
   to: { minWidth: 230, defaultWidth: 240 },
   toSigma: { minWidth: 70, defaultWidth: 80 },
   offset: { minWidth: 90, defaultWidth: 110 },
+  source: { minWidth: 160, defaultWidth: 200 },
   actions: { minWidth: 150, defaultWidth: 160 },
 };
 
@@ -81,10 +83,12 @@ function sigmaText(mark: { sigmaSeconds: number } | null): string {
   return mark === null ? '—' : mark.sigmaSeconds.toFixed(3);
 }
 
+const sourceText = (c: ChordRow | null) => (c?.source == null ? '' : chordSourceText(c.source));
+
 function matches(chord: ChordRow, filter: string): boolean {
   const needle = filter.trim().toLowerCase();
   if (needle === '') return true;
-  return [chord.station, chord.type, fromTime(chord), toTime(chord), chord.source ?? ''].some((text) =>
+  return [chord.station, chord.type, fromTime(chord), toTime(chord), sourceText(chord)].some((text) =>
     text.toLowerCase().includes(needle),
   );
 }
@@ -254,6 +258,12 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
           ),
       }),
       createTableColumn<GridRow>({
+        columnId: 'source',
+        compare: (a, b) => sourceText(a.chord).localeCompare(sourceText(b.chord)),
+        renderHeaderCell: () => 'Times from',
+        renderCell: (row) => (editing(row) ? null : sourceText(row.chord)),
+      }),
+      createTableColumn<GridRow>({
         columnId: 'actions',
         renderHeaderCell: () => 'Actions',
         renderCell: (row) => {
@@ -356,7 +366,7 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
       {chords.data.length === 0 && editingId === null ? (
         <Body1 as="p">No chords yet. Add one, import a CSV file, or accept an observer&apos;s report.</Body1>
       ) : (
-        <div className={styles.scroll}>
+        <ScrollArea label="Chords table">
           <DataGrid
             aria-label="Chord table"
             items={rows}
@@ -380,7 +390,7 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
               )}
             </DataGridBody>
           </DataGrid>
-        </div>
+        </ScrollArea>
       )}
       {filter !== '' && shown.length === 0 && chords.data.length > 0 ? (
         <Body1 as="p">No chord matches “{filter}”.</Body1>
