@@ -1,10 +1,15 @@
 import { Body1, Field, makeStyles, Select, Subtitle1, tokens } from '@fluentui/react-components';
+import type { TeamRole } from '@limbus/schema/team';
 import { useState } from 'react';
+import { useNavigate } from 'react-router-dom';
+import { useSignedIn } from './app-layout';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { RouterLink } from '@/components/router-link';
 import { paths } from '@/config/paths';
 import { EventDynamicsPanel } from '@/features/dynamics/components/dynamics-panel';
-import { useEvent } from '@/features/event-setup/api/get-event';
+import { useBodies } from '@/features/bodies/api/get-bodies';
+import { type EventDetail, useEvent } from '@/features/event-setup/api/get-event';
+import { EventSetupForm } from '@/features/event-setup/components/event-setup-form';
 import { LightCurvePanel } from '@/features/light-curves/components/light-curve-panel';
 import { useReports, waitingForTiming, type Report } from '@/features/reports/api/get-reports';
 
@@ -81,6 +86,28 @@ export function EventDynamicsSection({ eventId, canEdit }: Omit<EventAnalysisPro
           </RouterLink>
         )
       }
+    />
+  );
+}
+
+/**
+ * The Setup section: the event's form with the team's bodies to move it between; coordinators and
+ * modellers edit, coordinators delete (archive) it and land on the events list.
+ */
+export function EventSetupSection({ event }: { event: EventDetail }) {
+  const { me } = useSignedIn();
+  const navigate = useNavigate();
+  const bodies = useBodies(event.teamId);
+  const roles = me.teams.find((t) => t.id === event.teamId)?.roles ?? [];
+  // Site admins pass every role check on the server; the desk offers them the same controls.
+  const has = (...wanted: TeamRole[]) => me.isAdmin || wanted.some((r) => roles.includes(r));
+  return (
+    <EventSetupForm
+      event={event}
+      canEdit={has('coordinator', 'modeller')}
+      canDelete={has('coordinator')}
+      bodies={bodies.data ?? null}
+      onDeleted={() => navigate(paths.events, { replace: true })}
     />
   );
 }

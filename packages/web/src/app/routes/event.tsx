@@ -13,7 +13,7 @@ import type { ChordInput } from '@limbus/geometry';
 import { Suspense, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useSignedIn } from './app-layout';
-import { EventDynamicsSection, EventLightCurvesSection } from './event-analysis';
+import { EventDynamicsSection, EventLightCurvesSection, EventSetupSection } from './event-analysis';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { RouterLink } from '@/components/router-link';
 import { ScrollArea } from '@/components/scroll-area';
@@ -24,7 +24,6 @@ import { useChords, type ChordRow } from '@/features/chords/api/get-chords';
 import { ChordTable } from '@/features/chords/components/chord-table';
 import { CsvImportDialog } from '@/features/chords/components/csv-import-dialog';
 import { useEvent } from '@/features/event-setup/api/get-event';
-import { EventSetupForm } from '@/features/event-setup/components/event-setup-form';
 import { FiguresPanel } from '@/features/figures/components/figures-panel';
 import { useFit } from '@/features/fits/api/get-fit';
 import { useFits } from '@/features/fits/api/get-fits';
@@ -195,7 +194,7 @@ export function EventRoute() {
         className={styles.panel}
       >
         {section === 'setup' ? (
-          <EventSetupForm key={e.id} event={e} canEdit={has('coordinator', 'modeller')} />
+          <EventSetupSection key={e.id} event={e} />
         ) : null}
         {section === 'stations' ? (
           <>

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { patchEventPayloadSchema } from '@limbus/schema';
 import { z } from 'zod';
-import { eventQueryKey, TIME_SCALES } from './get-event';
+import { TIME_SCALES } from './get-event';
 import { apiRequest } from '@/lib/api-client';
 
 // Same limits as the event file (docs/file-formats.md, "Event file"), so the form refuses what the
@@ -20,6 +21,9 @@ const zonelessTime = z
 
 export const updateEventInputSchema = z.object({
   title: z.string().trim().min(1, 'title must not be empty').max(300, 'at most 300 characters'),
+  bodyId: z.string().min(1).optional(),
+  /** ISO 8601 UTC ending in Z, read from what was typed (parseUtcInput). */
+  eventTimeUtc: z.string().optional(),
   star: z.object({
     raDeg: degreesIn(0, 360, 'right ascension'),
     decDeg: degreesIn(-90, 90, 'declination'),
@@ -27,6 +31,10 @@ export const updateEventInputSchema = z.object({
     pmRaCosDecMasPerYear: z.number({ error: 'proper motion must be a number' }),
     pmDecMasPerYear: z.number({ error: 'proper motion must be a number' }),
     parallaxMas: z.number({ error: 'parallax must be a number' }),
+    angularDiameterMas: z
+      .number({ error: 'angular diameter must be a number' })
+      .min(0, 'angular diameter must not be negative')
+      .optional(),
   }),
   ephemeris: z.object({
     timeScale: z.enum(TIME_SCALES),
@@ -54,13 +62,19 @@ export const updateEventInputSchema = z.object({
 export type UpdateEventInput = z.infer<typeof updateEventInputSchema>;
 
 export function updateEvent(eventId: string, input: UpdateEventInput): Promise<void> {
-  return apiRequest(`/api/events/${encodeURIComponent(eventId)}`, { method: 'PATCH', body: input });
+  // Checked against the server's own schema at compile time, without loading it (it pulls geometry).
+  const body: z.input<typeof patchEventPayloadSchema> = input;
+  return apiRequest(`/api/events/${encodeURIComponent(eventId)}`, { method: 'PATCH', body });
 }
 
 export function useUpdateEvent(eventId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: UpdateEventInput) => updateEvent(eventId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: eventQueryKey(eventId) }),
+    // The event moves between bodies and lists with its body and time; every view of it is refreshed.
+    onSuccess: () =>
+      queryClient.invalidateQueries({
+        predicate: ({ queryKey: [scope] }) => scope === 'events' || scope === 'bodies',
+      }),
   });
 }
