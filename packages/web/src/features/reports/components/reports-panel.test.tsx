@@ -95,14 +95,18 @@ describe('ReportsPanel', () => {
     expect(row('kestrel-hill')).not.toHaveTextContent('correction requested');
   });
 
-  it('ReportsPanel asks before an accept replaces better-timed chord values, and Replace repeats it with replaceTimedChord', async () => {
-    const calls = stubFetch((call) => {
+  function conflictingApi() {
+    return stubFetch((call) => {
       if (call.method === 'GET') return jsonResponse(200, [testReport()]);
       const body = call.body as { replaceTimedChord?: boolean };
       return body.replaceTimedChord
         ? jsonResponse(200, testReport({ state: 'accepted' }))
         : jsonResponse(409, CONFLICT);
     });
+  }
+
+  it('ReportsPanel shows both sets of times before an accept replaces better-timed chord values, and Keep sends nothing more', async () => {
+    const calls = conflictingApi();
     renderWithProviders(<ReportsPanel eventId="e1" stations={STATIONS} ownStationIds={[]} canDecide />);
     const user = userEvent.setup();
     await user.click(await screen.findByRole('button', { name: 'Accept report of Wren Ashby' }));
@@ -114,20 +118,28 @@ describe('ReportsPanel', () => {
     const d = within(times).getByRole('cell', { name: 'Disappearance (D)' }).closest('tr');
     expect(d).toHaveTextContent('2029-05-17 03:12:31.2140 UTC ± 0.012 s');
     expect(d).toHaveTextContent('2029-05-17 03:12:31.25 UTC ± 0.04 s');
-
+    const r = within(times).getByRole('cell', { name: 'Reappearance (R)' }).closest('tr');
+    expect(r).toHaveTextContent('2029-05-17 03:12:49.8710 UTC ± 0.015 s');
+    expect(r).toHaveTextContent('2029-05-17 03:12:49.9 UTC ± 0.05 s');
     await user.click(within(dialog).getByRole('button', { name: 'Keep the current times' }));
     await waitFor(() => expect(screen.queryByRole('alertdialog')).not.toBeInTheDocument());
-    expect(posts(calls)).toHaveLength(1);
+    expect(await screen.findByRole('button', { name: 'Accept report of Wren Ashby' })).toBeEnabled();
+    expect(posts(calls).map((c) => c.body)).toEqual([{ replaceTimedChord: false }]);
+  });
 
+  it('ReportsPanel repeats the accept with replaceTimedChord when the coordinator chooses Replace', async () => {
+    const calls = conflictingApi();
+    renderWithProviders(<ReportsPanel eventId="e1" stations={STATIONS} ownStationIds={[]} canDecide />);
+    const user = userEvent.setup();
     await user.click(await screen.findByRole('button', { name: 'Accept report of Wren Ashby' }));
-    const again = await screen.findByRole('alertdialog');
-    await user.click(within(again).getByRole('button', { name: 'Replace' }));
-    await waitFor(() => expect(posts(calls)).toHaveLength(3));
+    const dialog = await screen.findByRole('alertdialog');
+    await user.click(within(dialog).getByRole('button', { name: 'Replace' }));
+    await waitFor(() => expect(posts(calls)).toHaveLength(2));
     expect(posts(calls).map((c) => [c.url, c.body])).toEqual([
-      ['/api/reports/r1/accept', { replaceTimedChord: false }],
       ['/api/reports/r1/accept', { replaceTimedChord: false }],
       ['/api/reports/r1/accept', { replaceTimedChord: true }],
     ]);
+    await waitFor(() => expect(screen.queryByRole('alertdialog')).not.toBeInTheDocument());
   });
 
   it("ReportsPanel shows the observer's own report: the raw light curve, the timing in the chord and where the chord's times came from", async () => {
