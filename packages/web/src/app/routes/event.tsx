@@ -199,7 +199,13 @@ export function EventRoute() {
         {section === 'stations' ? (
           <>
             <Subtitle1 as="h3">Stations</Subtitle1>
-            <StationsPanel eventId={e.id} stations={visibleStations} canEdit={has('coordinator')} />
+            <StationsPanel
+              eventId={e.id}
+              teamId={e.teamId}
+              stations={visibleStations}
+              eventStationCount={e.stations.length}
+              canEdit={has('coordinator')}
+            />
             <Subtitle1 as="h3">Observer reports</Subtitle1>
             <ReportsPanel
               eventId={e.id}
