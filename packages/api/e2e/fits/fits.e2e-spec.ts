@@ -3,7 +3,7 @@ import { solveEvent, type Solution } from '@limbus/geometry';
 import { validateEventFile } from '@limbus/schema';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FitRun } from '../../src/fits/entities/fit-run.entity';
-import { sha256Hex } from '../../src/fits/fits.service';
+import { sha256Hex } from '../../src/common/tokens';
 import { bootTestApp, type TestApp } from '../setup';
 import { createWorkspace, exampleEvent, importExample, patch, type Workspace } from '../events/workspace';
 import { bootWorker } from './worker';

@@ -5,7 +5,10 @@ export function newOpaqueToken(): string {
   return randomBytes(32).toString('base64url');
 }
 
-/** Tokens are random, not passwords, so a fast unsalted hash is enough to make a stolen table useless. */
-export function sha256Hex(token: string): string {
-  return createHash('sha256').update(token).digest('hex');
+/**
+ * SHA-256 in hex of a UTF-8 text: stored tokens (random, not passwords, so a fast unsalted hash is enough
+ * to make a stolen table useless), fit inputs and event data.
+ */
+export function sha256Hex(text: string): string {
+  return createHash('sha256').update(text, 'utf8').digest('hex');
 }

@@ -15,7 +15,7 @@ import { DynamicsContext } from '../dynamics/entities/dynamics-context.entity';
 import { defaultEventTimeUtc, eventDataSha256 } from '../events/event-data';
 import { chordRow, eventFileOf, loadEventRows, persistEventFile } from '../events/event-rows';
 import { FitRun } from '../fits/entities/fit-run.entity';
-import { sha256Hex } from '../fits/fits.service';
+import { sha256Hex } from '../common/tokens';
 import { Report, type ReportResult } from '../reports/entities/report.entity';
 import { chordOfReport } from '../reports/reports.service';
 import { Review } from '../reviews/entities/review.entity';

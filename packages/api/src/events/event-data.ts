@@ -1,7 +1,7 @@
 // Two facts derived from an event's data, each in one place: the hash that tells whether a fit was run
 // on the data the event holds now, and the event time a new event starts with.
-import { createHash } from 'node:crypto';
 import { isoToTtSeconds, ttSecondsToUtcIso, type EventInput } from '@limbus/geometry';
+import { sha256Hex } from '../common/tokens';
 
 /** The parts of an event file that a fit's result depends on; the title and the fit options are not. */
 export type EventData = Pick<
@@ -35,7 +35,7 @@ export function eventDataSha256(file: EventData): string {
     chords: file.chords,
     ringEvents: file.ringEvents,
   };
-  return createHash('sha256').update(canonicalJson(data), 'utf8').digest('hex');
+  return sha256Hex(canonicalJson(data));
 }
 
 /**

@@ -11,7 +11,7 @@ import { NoticesService } from '../mail/notices.service';
 import { fitLinkPath } from './fit-link';
 import { fitWorkerOptions } from './fit-worker-options';
 import type { FitJobData } from './fit-queue';
-import { sha256Hex } from './fits.service';
+import { sha256Hex } from '../common/tokens';
 
 const options = fitWorkerOptions(process.env);
 

@@ -1,4 +1,3 @@
-import { createHash } from 'node:crypto';
 import { EntityManager, MikroORM, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
 import { InjectQueue } from '@nestjs/bullmq';
 import { Injectable, Logger, type MessageEvent } from '@nestjs/common';
@@ -9,6 +8,7 @@ import { Observable } from 'rxjs';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
 import { ValidationError, NotFoundError } from '../common/domain-errors';
+import { sha256Hex } from '../common/tokens';
 import { eventDataSha256 } from '../events/event-data';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { EventsService } from '../events/events.service';
@@ -22,10 +22,6 @@ import { fitSummaryView, type FitSummaryView, type FitView, fitView } from './fi
 
 /** How often the progress stream looks at the fit row; the row, not this process, is the truth. */
 const STREAM_POLL_MS = 150;
-
-export function sha256Hex(text: string): string {
-  return createHash('sha256').update(text, 'utf8').digest('hex');
-}
 
 @Injectable()
 export class FitsService {
