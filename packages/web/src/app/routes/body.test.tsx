@@ -35,8 +35,11 @@ describe('BodyRoute', () => {
   it('BodyRoute shows the body, its events with approved limbs ± 1σ, and asks the body routes for the comparison, shape and parameters', async () => {
     const calls = stubFetch(({ url }) => {
       if (url === '/api/bodies/b1') return jsonResponse(200, QUILLON);
-      if (url === '/api/bodies/b1/comparison?fits=approved' || url === '/api/bodies/b1/comparison?fits=all')
-        return jsonResponse(200, { selection: 'approved', ringLabels: [], fits: [] });
+      if (
+        url === '/api/bodies/b1/comparison?fits=latest-approved' ||
+        url === '/api/bodies/b1/comparison?fits=all'
+      )
+        return jsonResponse(200, { selection: 'latest-approved', ringLabels: [], fits: [] });
       if (url === '/api/bodies/b1/dynamics')
         return jsonResponse(200, { bodyId: 'b1', input: null, result: null, ringFits: [], updatedAt: null });
       return jsonResponse(404, { statusCode: 404, message: `no stub for ${url}` });
@@ -55,7 +58,7 @@ describe('BodyRoute', () => {
     expect(new Set(calls.map((c) => c.url))).toEqual(
       new Set([
         '/api/bodies/b1',
-        '/api/bodies/b1/comparison?fits=approved',
+        '/api/bodies/b1/comparison?fits=latest-approved',
         '/api/bodies/b1/comparison?fits=all',
         '/api/bodies/b1/dynamics',
       ]),

@@ -47,9 +47,14 @@ export function BodyRoute() {
         </Subtitle1>
         <BodyEventsTable events={b.events} />
       </section>
-      <ComparisonView bodyId={b.id} canFitJointPole={has('modeller', 'coordinator')} />
-      <ShapePanel bodyId={b.id} />
-      <DynamicsPanel bodyId={b.id} canEdit={has('coordinator', 'modeller')} />
+      {/* Keyed by the body, so going from one body's page to another's starts every form afresh. */}
+      <ComparisonView
+        key={`comparison-${b.id}`}
+        bodyId={b.id}
+        canFitJointPole={has('modeller', 'coordinator')}
+      />
+      <ShapePanel key={`shape-${b.id}`} bodyId={b.id} />
+      <DynamicsPanel key={`dynamics-${b.id}`} bodyId={b.id} canEdit={has('coordinator', 'modeller')} />
     </div>
   );
 }

@@ -11,10 +11,10 @@ describe('comparisonFigureUrl', () => {
         format: 'png',
         widthMm: 88,
         dpi: 600,
-        selection: 'approved',
+        selection: 'latest-approved',
         jointId: 'j1',
       }),
-    ).toBe('/api/bodies/b1/comparison/figure?format=png&widthMm=88&fits=approved&dpi=600&jointId=j1');
+    ).toBe('/api/bodies/b1/comparison/figure?format=png&widthMm=88&fits=latest-approved&dpi=600&jointId=j1');
     expect(
       comparisonFigureFileName({ format: 'png', widthMm: 88, dpi: 600, selection: 'all', jointId: null }),
     ).toBe('limbus-comparison-88mm-600dpi.png');

@@ -1,11 +1,12 @@
 import { figureQuery } from '@/components/figure-download';
 import { z } from 'zod';
+import { FIT_SELECTIONS } from './get-comparison';
 
 export const comparisonFigureInputSchema = z.object({
   format: z.enum(['svg', 'pdf', 'png']),
   widthMm: z.number().min(40).max(300),
   dpi: z.union([z.literal(300), z.literal(600)]),
-  selection: z.enum(['approved', 'all']),
+  selection: z.enum(FIT_SELECTIONS),
   jointId: z.string().nullable(),
 });
 export type ComparisonFigureInput = z.infer<typeof comparisonFigureInputSchema>;

@@ -51,14 +51,22 @@ function fit(
   };
 }
 
-// Event a has two approved fits: an older one (a0, run on data that has changed since) and the latest (a).
+// The latest approved fit of each event; b ran on data that has changed since. Event a also has an
+// older approved fit (a0), which "every approved fit" adds.
+const LATEST: Comparison = {
+  selection: 'latest-approved',
+  ringLabels: ['R1'],
+  fits: [
+    { ...fit('a', '2028-03-14T02:11:00.000Z', true), finishedAt: '2028-04-02T00:00:00.000Z' },
+    { ...fit('b', '2031-07-02T20:00:00.000Z', true), inputMatchesEvent: false },
+  ],
+};
 const APPROVED: Comparison = {
   selection: 'approved',
   ringLabels: ['R1'],
   fits: [
     { ...fit('a0', '2028-03-14T02:11:00.000Z', true, true, 'e-a'), finishedAt: '2028-03-20T00:00:00.000Z' },
-    { ...fit('a', '2028-03-14T02:11:00.000Z', true), finishedAt: '2028-04-02T00:00:00.000Z' },
-    { ...fit('b', '2031-07-02T20:00:00.000Z', true), inputMatchesEvent: false },
+    ...LATEST.fits,
   ],
 };
 const ALL: Comparison = {
@@ -90,6 +98,7 @@ const JOB: JointPoleJob = {
 
 function server() {
   return stubFetch((call) => {
+    if (call.url === '/api/bodies/b1/comparison?fits=latest-approved') return jsonResponse(200, LATEST);
     if (call.url === '/api/bodies/b1/comparison?fits=approved') return jsonResponse(200, APPROVED);
     if (call.url === '/api/bodies/b1/comparison?fits=all') return jsonResponse(200, ALL);
     if (call.url === '/api/bodies/b1/joint-poles' && call.method === 'POST')
@@ -113,7 +122,7 @@ describe('ComparisonView', () => {
     expect(rows[1]).toHaveTextContent('1080.0 ± 2.3');
     expect(rows[1]).not.toHaveTextContent('based on older data');
     expect(rows[2]).toHaveTextContent('based on older data');
-    expect(calls[0]?.url).toBe('/api/bodies/b1/comparison?fits=approved');
+    expect(calls[0]?.url).toBe('/api/bodies/b1/comparison?fits=latest-approved');
     expect(
       screen.getByRole('img', { name: 'Centred overlay of 2 limb and 2 ring ellipses' }),
     ).toBeInTheDocument();
@@ -124,9 +133,9 @@ describe('ComparisonView', () => {
   it('ComparisonView shows every approved fit, then every solved fit, on request; an event without a limb shows dashes', async () => {
     server();
     renderWithProviders(<ComparisonView bodyId="b1" canFitJointPole />);
-    const table = await screen.findByRole('table', { name: 'Parameters by event' });
+    await screen.findByRole('table', { name: 'Parameters by event' });
     await userEvent.click(screen.getByRole('radio', { name: 'Every approved fit' }));
-    await waitFor(() => expect(within(table).getAllByRole('row')).toHaveLength(4));
+    await waitFor(() => expect(screen.getAllByRole('row')).toHaveLength(4));
     await userEvent.click(screen.getByRole('radio', { name: 'Every solved fit, approved or not' }));
     await waitFor(() => expect(screen.getAllByRole('row')).toHaveLength(5));
     const last = screen.getAllByRole('row')[4];

@@ -16,7 +16,7 @@ import {
 } from '@fluentui/react-components';
 import { useState } from 'react';
 import { comparisonFigureFileName, comparisonFigureUrl } from '../api/download-comparison-figure';
-import { comparedFits, type FitSelection, routeSelection, useComparison } from '../api/get-comparison';
+import { FIT_SELECTIONS, type FitSelection, useComparison } from '../api/get-comparison';
 import { type JointPoleDocument, useJointPole, useSubmitJointPole } from '../api/joint-pole';
 import { EllipseOverlay } from './ellipse-overlay';
 import { ParameterTable } from './parameter-table';
@@ -53,13 +53,14 @@ export interface ComparisonViewProps {
 }
 
 const SELECTIONS: Record<FitSelection, string> = {
-  latest: 'Latest approved fit of each event',
+  'latest-approved': 'Latest approved fit of each event',
   approved: 'Every approved fit',
   all: 'Every solved fit, approved or not',
 };
 
 const EMPTY_TEXT: Record<FitSelection, string> = {
-  latest: 'No approved fits of this body yet. Choose "Every solved fit" to compare fits before review.',
+  'latest-approved':
+    'No approved fits of this body yet. Choose "Every solved fit" to compare fits before review.',
   approved: 'No approved fits of this body yet. Choose "Every solved fit" to compare fits before review.',
   all: 'No solved fits of this body yet.',
 };
@@ -67,7 +68,7 @@ const EMPTY_TEXT: Record<FitSelection, string> = {
 /** A body's fits side by side: parameters against date, centred ellipses, pole candidates and the joint pole. */
 export function ComparisonView({ bodyId, canFitJointPole }: ComparisonViewProps) {
   const styles = useStyles();
-  const [selection, setSelection] = useState<FitSelection>('latest');
+  const [selection, setSelection] = useState<FitSelection>('latest-approved');
   const comparison = useComparison(bodyId, selection);
   const [unselected, setUnselected] = useState<ReadonlySet<string>>(new Set());
   const [ring, setRing] = useState<string | null>(null);
@@ -85,7 +86,7 @@ export function ComparisonView({ bodyId, canFitJointPole }: ComparisonViewProps)
       />
     );
 
-  const data = comparedFits(comparison.data, selection);
+  const data = comparison.data;
   const activeRing = ring ?? data.ringLabels[0] ?? null;
   const selected = new Set(
     data.fits
@@ -100,8 +101,6 @@ export function ComparisonView({ bodyId, canFitJointPole }: ComparisonViewProps)
       return next;
     });
   const job = jointJob.data;
-  // The figure route knows "approved" and "all"; it cannot pick the latest approved fit per event.
-  const hasOlderApproved = data.fits.length < comparison.data.fits.length;
   const joint = job?.state === 'solved' ? job.result : null;
 
   return (
@@ -114,11 +113,9 @@ export function ComparisonView({ bodyId, canFitJointPole }: ComparisonViewProps)
           <RadioGroup
             layout="horizontal"
             value={selection}
-            onChange={(_, d) =>
-              setSelection(d.value === 'all' ? 'all' : d.value === 'approved' ? 'approved' : 'latest')
-            }
+            onChange={(_, d) => setSelection(FIT_SELECTIONS.find((f) => f === d.value) ?? 'latest-approved')}
           >
-            {(Object.keys(SELECTIONS) as FitSelection[]).map((key) => (
+            {FIT_SELECTIONS.map((key) => (
               <Radio key={key} value={key} label={SELECTIONS[key]} />
             ))}
           </RadioGroup>
@@ -205,18 +202,12 @@ export function ComparisonView({ bodyId, canFitJointPole }: ComparisonViewProps)
             figure={(spec) => {
               const input = {
                 ...spec,
-                selection: routeSelection(selection),
+                selection,
                 jointId: joint === null ? null : (job?.id ?? null),
               };
               return { url: comparisonFigureUrl(bodyId, input), fileName: comparisonFigureFileName(input) };
             }}
           />
-          {selection === 'latest' && hasOlderApproved ? (
-            <Caption1>
-              The figure draws every approved fit; some events above have an older approved fit besides the
-              latest one.
-            </Caption1>
-          ) : null}
         </>
       )}
     </section>
