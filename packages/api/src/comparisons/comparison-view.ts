@@ -34,6 +34,8 @@ export interface ComparisonFit {
   eventTitle: string;
   /** False when the event's data changed since the fit ran (it is based on older data). */
   inputMatchesEvent: boolean;
+  /** Who ran the fit. */
+  createdBy: { id: string; name: string };
   /** The astrometry reference time, else the earliest timing in the event (ISO UTC). */
   eventDateUtc: string | null;
   reviewState: ReviewState;
@@ -60,7 +62,12 @@ function earliestTimingUtc(event: EventInput): string | null {
 }
 
 export function comparisonFit(
-  fit: { id: string; reviewState: ReviewState; finishedAt: Date | null },
+  fit: {
+    id: string;
+    reviewState: ReviewState;
+    finishedAt: Date | null;
+    createdBy: { id: string; name: string };
+  },
   eventRow: { id: string; title: string },
   event: EventInput,
   solution: Solution,
@@ -73,6 +80,7 @@ export function comparisonFit(
     eventId: eventRow.id,
     eventTitle: eventRow.title,
     inputMatchesEvent,
+    createdBy: { id: fit.createdBy.id, name: fit.createdBy.name },
     eventDateUtc: solution.astrometry?.referenceTimeUtc ?? earliestTimingUtc(event),
     reviewState: fit.reviewState,
     finishedAt: fit.finishedAt?.toISOString() ?? null,

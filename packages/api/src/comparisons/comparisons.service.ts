@@ -69,7 +69,7 @@ export class ComparisonsService {
         },
       },
       {
-        populate: ['event', 'event.body', 'solution', 'input'],
+        populate: ['event', 'event.body', 'createdBy', 'solution', 'input'],
         orderBy: { createdAt: 'desc', id: 'desc' },
       },
     );

@@ -7,7 +7,7 @@ import { comparisonCaptionDraft, renderComparisonFigureSvg } from './comparison-
 
 function twoFits() {
   const a = comparisonFit(
-    { id: 'fit-a', reviewState: 'approved', finishedAt: null },
+    { id: 'fit-a', reviewState: 'approved', finishedAt: null, createdBy: { id: 'u1', name: 'A. Modeller' } },
     { id: 'ev-a', title: 'Event A' },
     exampleEvent(),
     exampleSolution(),
@@ -15,7 +15,7 @@ function twoFits() {
   );
   const noLimb = { ...exampleSolution(), limb: null };
   const b = comparisonFit(
-    { id: 'fit-b', reviewState: 'none', finishedAt: null },
+    { id: 'fit-b', reviewState: 'none', finishedAt: null, createdBy: { id: 'u1', name: 'A. Modeller' } },
     { id: 'ev-b', title: 'Event <B>' },
     exampleEvent(),
     noLimb,
