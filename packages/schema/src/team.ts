@@ -46,8 +46,13 @@ export const passwordSchema = z
   .min(10, 'must be at least 10 characters')
   .max(200, 'at most 200 characters');
 
+/**
+ * A new address gives the new account's name and password; an address that already has an account
+ * gives only that account's password (a name sent then is ignored), and the server asks for the name
+ * when it is missing for a new account.
+ */
 export const acceptInvitationPayloadSchema = z.strictObject({
-  name: lineText(TEXT_LIMITS.personName, 'name'),
+  name: lineText(TEXT_LIMITS.personName, 'name').optional(),
   password: passwordSchema,
 });
 export type AcceptInvitationPayload = z.output<typeof acceptInvitationPayloadSchema>;

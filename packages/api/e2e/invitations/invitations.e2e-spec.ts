@@ -92,10 +92,7 @@ describe('invitations', () => {
       .post(`/api/invitations/${token}/accept`)
       .send({ name: 'ignored', password: 'not-their-password' })
       .expect(401);
-    await t
-      .post(`/api/invitations/${token}/accept`)
-      .send({ name: 'ignored', password: existing.password })
-      .expect(200);
+    await t.post(`/api/invitations/${token}/accept`).send({ password: existing.password }).expect(200);
     const membership = await t.orm.em
       .fork()
       .findOneOrFail(Membership, { team: team.id, user: existing.user.id });
@@ -123,6 +120,16 @@ describe('invitations', () => {
       .send({ name: 'Bo', password: 'short' })
       .expect(400);
     expect(response.body.issues).toEqual([{ path: 'password', message: 'must be at least 10 characters' }]);
+  });
+
+  it('POST /api/invitations/:token/accept asks a new address for its name, and keeps the invitation open', async () => {
+    const { token } = await invite(uniqueEmail('nameless'), 'observer');
+    const response = await t
+      .post(`/api/invitations/${token}/accept`)
+      .send({ password: 'a-fine-long-password' })
+      .expect(400);
+    expect(response.body.issues).toEqual([{ path: 'name', message: 'a new account needs your name' }]);
+    await t.get(`/api/invitations/${token}`).expect(200);
   });
 
   const coordinator = () => ({ Authorization: `Bearer ${coordinatorToken}` });

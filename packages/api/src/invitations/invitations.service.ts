@@ -2,7 +2,13 @@ import { EntityManager, UniqueConstraintViolationException } from '@mikro-orm/ma
 import { Injectable } from '@nestjs/common';
 import type { InvitationView, PublicInvitationView } from '@limbus/schema';
 import { AuthService, type Session } from '../auth/auth.service';
-import { ConflictError, NotFoundError, UnauthorizedError, UnavailableError } from '../common/domain-errors';
+import {
+  ConflictError,
+  NotFoundError,
+  UnauthorizedError,
+  UnavailableError,
+  ValidationError,
+} from '../common/domain-errors';
 import { newOpaqueToken, sha256Hex } from '../common/tokens';
 import { escapeHtml, MailService, utcText } from '../mail/mail.service';
 import { Membership } from '../teams/entities/membership.entity';
@@ -139,7 +145,7 @@ export class InvitationsService {
    * A new address gets an account with the given name and password; an existing account must
    * prove it owns the address by its current password, and then gains every role of the invitation.
    */
-  async accept(token: string, name: string, password: string): Promise<Session> {
+  async accept(token: string, name: string | undefined, password: string): Promise<Session> {
     const invitation = await this.open(token);
     let user = await this.users.findByEmail(invitation.email);
     if (user) {
@@ -147,6 +153,8 @@ export class InvitationsService {
         throw new UnauthorizedError('This address already has an account: enter its current password');
       }
     } else {
+      if (name === undefined)
+        throw new ValidationError([{ path: 'name', message: 'a new account needs your name' }]);
       user = new User(invitation.email, name, await this.passwords.hash(password));
       this.em.persist(user);
     }

@@ -1,9 +1,8 @@
 import { Body1, Button, Field, Input, makeStyles, tokens } from '@fluentui/react-components';
-import { acceptInvitationPayloadSchema, type AcceptInvitationPayload } from '@limbus/schema/team';
-import { TEXT_LIMITS } from '@limbus/schema/text';
+import { acceptInvitationPayloadSchema } from '@limbus/schema/team';
 import { useState, type FormEvent, type ReactNode } from 'react';
 import { useAcceptInvitation } from '../api/accept-invitation';
-import { useInvitation, type Invitation } from '../api/get-invitation';
+import { useInvitation } from '../api/get-invitation';
 import { FormError } from '@/components/form-error';
 import {
   errorMessage,
@@ -23,14 +22,6 @@ const useStyles = makeStyles({
 export function rolesText(roles: readonly string[]): string {
   if (roles.length <= 1) return roles.join('');
   return `${roles.slice(0, -1).join(', ')} and ${roles.at(-1) ?? ''}`;
-}
-
-/**
- * The payload for an address that already has an account. The contract asks for a name even then; the
- * server keeps the account's own name and checks only the password, so the address stands in for it.
- */
-function existingAccountPayload(invitation: Invitation, password: string): AcceptInvitationPayload {
-  return { name: invitation.email.slice(0, TEXT_LIMITS.personName), password };
 }
 
 export interface AcceptInvitationProps {
@@ -77,7 +68,7 @@ export function AcceptInvitation({ token, onAccepted, forgotPasswordLink }: Acce
         return;
       }
       setClientErrors({});
-      accept.mutate(existingAccountPayload(data, password));
+      accept.mutate({ password });
       return;
     }
     const parsed = acceptInvitationPayloadSchema.safeParse({ name, password });
