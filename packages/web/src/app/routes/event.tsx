@@ -193,9 +193,7 @@ export function EventRoute() {
         aria-label={sections.find((s) => s.id === section)?.label}
         className={styles.panel}
       >
-        {section === 'setup' ? (
-          <EventSetupSection key={e.id} event={e} />
-        ) : null}
+        {section === 'setup' ? <EventSetupSection key={e.id} event={e} /> : null}
         {section === 'stations' ? (
           <>
             <Subtitle1 as="h3">Stations</Subtitle1>
