@@ -19,10 +19,13 @@ const EVENT_FILES = ['docs/examples/event-example.json', 'tools/cli/test/fixture
 let session: BrowserSession;
 let modellerToken = '';
 const fitIds: string[] = [];
+// A body of this test's own, so that its comparison holds exactly the two fits made here.
+const BODY = `Comparison body ${Date.now().toString(36)}`;
 
 async function importEvent(token: string, teamId: string, file: string): Promise<string> {
   const form = new FormData();
   form.append('teamId', teamId);
+  form.append('bodyName', BODY);
   form.append(
     'file',
     new Blob([readFileSync(resolve(ROOT, file))], { type: 'application/json' }),
@@ -70,23 +73,19 @@ afterAll(async () => {
 });
 
 describe('comparison in the browser', () => {
-  it('the comparison page shows the parameter table and the pole chart, and fits the joint pole of two events', async () => {
+  it("the body page compares its events' fits, shows the pole chart and fits the joint pole of two events", async () => {
     const { page } = session;
-    await page.getByRole('link', { name: 'Comparison' }).click();
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Bodies' }).click();
+    await page.getByRole('link', { name: BODY }).click();
     await page.getByRole('heading', { name: /^Comparison of fits/ }).waitFor();
-    // The demo's fits are not reviewed; the comparison shows approved fits unless asked for all.
-    await page.getByRole('switch', { name: 'Include fits that are not approved' }).check();
+    // These fits are not reviewed; the comparison shows the latest approved fit of each event unless asked.
+    await page.getByRole('radio', { name: 'Every solved fit, approved or not' }).check();
     const table = page.getByRole('table', { name: 'Parameters by event' });
     for (const id of fitIds) await table.locator(`[data-fit="${id}"]`).waitFor();
     await expect(table.locator(`[data-fit="${fitIds[0]}"]`).textContent()).resolves.toMatch(
       /\d+\.\d+ ± \d+\.\d+/,
     );
-    // Other tests may have left fits in the demo team: the joint pole here uses only this test's two.
-    for (const row of await table.locator('[data-fit]').all()) {
-      const id = await row.getAttribute('data-fit');
-      const box = row.getByRole('checkbox');
-      if (!fitIds.includes(id ?? '') && (await box.isChecked())) await box.uncheck();
-    }
+    await expect(table.locator('[data-fit]').count()).resolves.toBe(2);
     const chart = page.getByRole('img', { name: /^Pole candidates of ring R1/ });
     await chart.waitFor();
     await expect(chart.locator('[data-pole]').count()).resolves.toBeGreaterThanOrEqual(4);

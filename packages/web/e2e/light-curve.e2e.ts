@@ -44,6 +44,7 @@ beforeAll(async () => {
   const form = new FormData();
   form.append('file', new Blob([readFileSync(EXAMPLE_EVENT)], { type: 'application/json' }), 'event.json');
   form.append('teamId', teamId);
+  form.append('bodyName', 'Quillon');
   eventId = (await coordinator<{ id: string }>('POST', '/api/events/import', form)).id;
   const members = await coordinator<Array<{ userId: string; email: string }>>(
     'GET',
