@@ -212,9 +212,6 @@ export const acceptIntoChordPayloadSchema = z
   .prefault({});
 export type AcceptIntoChordPayload = z.output<typeof acceptIntoChordPayloadSchema>;
 
-/** The 409 code (and `detail`) of an accept that would replace better-timed chord values. */
-export const REPLACES_BETTER_TIMING = 'replaces-better-timing';
-
 /** An observer asks to correct their accepted report; a coordinator sees the change and decides. */
 export const reportCorrectionPayloadSchema = z.strictObject({
   changes: z

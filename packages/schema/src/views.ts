@@ -221,6 +221,9 @@ export const reportViewSchema = z.object({
 });
 export type ReportView = z.output<typeof reportViewSchema>;
 
+/** The 409 code (with `detail`) of an accept that would replace better-timed chord values. */
+export const REPLACES_BETTER_TIMING = 'replaces-better-timing';
+
 /** The `detail` of a 409 `replaces-better-timing`: what the accept would overwrite, and with what. */
 export const replacesBetterTimingSchema = z.object({
   chordId: z.string(),

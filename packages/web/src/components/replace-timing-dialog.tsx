@@ -16,18 +16,20 @@ import {
   TableRow,
   tokens,
 } from '@fluentui/react-components';
-import type { REPLACES_BETTER_TIMING } from '@limbus/schema';
-import { replacesBetterTimingSchema, type ReplacesBetterTiming } from '@limbus/schema/views';
+import {
+  REPLACES_BETTER_TIMING,
+  replacesBetterTimingSchema,
+  type ReplacesBetterTiming,
+} from '@limbus/schema/views';
 import { z } from 'zod';
 import { ScrollArea } from './scroll-area';
 import { chordSourceText, markText } from './timing-text';
 import { ApiError } from '@/lib/api-client';
 
-// The code is typed against the contract's constant, so a renamed code fails the type check; the value
-// itself cannot be imported here without pulling the geometry runtime into the bundle.
-const CODE: typeof REPLACES_BETTER_TIMING = 'replaces-better-timing';
-
-const conflictBodySchema = z.object({ code: z.literal(CODE), detail: replacesBetterTimingSchema });
+const conflictBodySchema = z.object({
+  code: z.literal(REPLACES_BETTER_TIMING),
+  detail: replacesBetterTimingSchema,
+});
 
 /** What an accept would overwrite, when the server refused it with 409 `replaces-better-timing`. */
 export function replacesBetterTimingOf(error: unknown): ReplacesBetterTiming | null {
@@ -38,7 +40,10 @@ export function replacesBetterTimingOf(error: unknown): ReplacesBetterTiming | n
 
 const useStyles = makeStyles({
   content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
-  time: { fontFamily: tokens.fontFamilyMonospace, whiteSpace: 'nowrap' },
+  surface: { maxWidth: 'min(760px, 95vw)' },
+  // Times with all their decimals are long: the columns take the width they need and wrap when narrow.
+  table: { tableLayout: 'auto' },
+  time: { fontFamily: tokens.fontFamilyMonospace, overflowWrap: 'anywhere' },
 });
 
 /**
@@ -80,7 +85,7 @@ export function ReplaceTimingDialog({
         if (!data.open) onKeep();
       }}
     >
-      <DialogSurface>
+      <DialogSurface className={styles.surface}>
         <DialogBody>
           <DialogTitle>Replace the better-timed chord of {conflict.station}?</DialogTitle>
           <DialogContent className={styles.content}>
@@ -89,7 +94,11 @@ export function ReplaceTimingDialog({
               Accepting would replace them with the incoming times below.
             </Body1>
             <ScrollArea label="Current and incoming times">
-              <Table aria-label={`Times of the chord of ${conflict.station}`} size="small">
+              <Table
+                className={styles.table}
+                aria-label={`Times of the chord of ${conflict.station}`}
+                size="small"
+              >
                 <TableHeader>
                   <TableRow>
                     <TableHeaderCell>Edge</TableHeaderCell>
