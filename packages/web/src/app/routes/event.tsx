@@ -83,6 +83,11 @@ function toChordInput(row: ChordRow): ChordInput | null {
     : null;
 }
 
+/** "1 fit", "3 fits", "… fits" while loading. */
+function count(n: number | undefined, noun: string): string {
+  return n === undefined ? `… ${noun}s` : `${n} ${noun}${n === 1 ? '' : 's'}`;
+}
+
 /**
  * One event's desk. The section and the fit shown live in the URL, so a link (or a reload) opens the
  * same view; without a chosen fit the plot shows the approved fit, else the newest solved one.
@@ -170,8 +175,9 @@ export function EventRoute() {
           · event time {utcText(e.eventTimeUtc, 'minutes')}
         </Body1>
         <Body1 as="p">
-          Star RA {e.star.raDeg.toFixed(6)}°, Dec {e.star.decDeg.toFixed(6)}° · {e.stations.length} stations ·{' '}
-          {chords.data?.length ?? '…'} chords · {fits.data?.length ?? '…'} fits · your roles:{' '}
+          Star RA {e.star.raDeg.toFixed(6)}°, Dec {e.star.decDeg.toFixed(6)}° ·{' '}
+          {count(e.stations.length, 'station')} · {count(chords.data?.length, 'chord')} ·{' '}
+          {count(fits.data?.length, 'fit')} · your roles:{' '}
           {me.isAdmin ? 'admin' : [...roles].join(', ') || 'none'}
         </Body1>
       </header>

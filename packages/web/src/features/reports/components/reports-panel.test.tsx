@@ -83,6 +83,10 @@ describe('ReportsPanel', () => {
     const table = await screen.findByRole('table', { name: 'Reports' });
     const row = (station: string) => within(table).getByRole('cell', { name: station }).closest('tr');
     expect(row('kestrel-hill')).toHaveTextContent('accepted — times from a light-curve timing');
+    // The timed chord's times, not the report's typed ones, once the curve is timed into the chord.
+    expect(row('kestrel-hill')).toHaveTextContent('03:12:31.2140');
+    expect(row('kestrel-hill')).not.toHaveTextContent('03:12:31.25 ');
+    expect(row('kestrel-hill')).toHaveTextContent('timed from the light curve');
     expect(row('brackenmoor')).toHaveTextContent('waiting for timing');
     expect(row('brackenmoor')).toHaveTextContent('to be timed from the light curve');
     expect(

@@ -27,6 +27,14 @@ const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalL },
   time: { fontFamily: tokens.fontFamilyMonospace, overflowWrap: 'anywhere' },
   badges: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalXS },
+  // A state such as "accepted — times from a light-curve timing" wraps inside its badge, not out of it.
+  stateBadge: {
+    height: 'auto',
+    minHeight: '20px',
+    whiteSpace: 'normal',
+    paddingTop: '2px',
+    paddingBottom: '2px',
+  },
   // Fluent tables share the width equally; the timings need more of it than the state does.
   table: { tableLayout: 'auto' },
   list: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
@@ -34,20 +42,21 @@ const useStyles = makeStyles({
 
 /** One line per timing, so a long time wraps between marks and never runs into the next column. */
 function timings(r: Report): string[] {
+  const dips = r.ringDips.map((d) => `${d.ring} dip ${markText(d.start)} to ${markText(d.end)}`);
   if (r.result === 'positive') {
+    // Once its curve is timed into the chord, the report shows the chord's times, not the rough typed ones.
+    const timed = r.chord?.source === 'timing' ? r.chord : null;
+    const marks = timed ?? r;
     const lines = [
-      ...(r.disappearance ? [`D ${markText(r.disappearance)}`] : []),
-      ...(r.reappearance ? [`R ${markText(r.reappearance)}`] : []),
+      ...(marks.disappearance ? [`D ${markText(marks.disappearance)}`] : []),
+      ...(marks.reappearance ? [`R ${markText(marks.reappearance)}`] : []),
     ];
-    if (r.timesFromLightCurve) lines.push('to be timed from the light curve');
-    return [...lines, ...r.ringDips.map((d) => `${d.ring} dip ${markText(d.start)} to ${markText(d.end)}`)];
+    if (timed !== null) lines.push('timed from the light curve');
+    else if (r.timesFromLightCurve) lines.push('to be timed from the light curve');
+    return [...lines, ...dips];
   }
   if (r.result === 'negative' && r.observedFromUtc && r.observedToUtc)
-    return [
-      `from ${utcInstantText(r.observedFromUtc)}`,
-      `to ${utcInstantText(r.observedToUtc)}`,
-      ...r.ringDips.map((d) => `${d.ring} dip ${markText(d.start)} to ${markText(d.end)}`),
-    ];
+    return [`from ${utcInstantText(r.observedFromUtc)}`, `to ${utcInstantText(r.observedToUtc)}`, ...dips];
   return ['—'];
 }
 
@@ -57,6 +66,7 @@ function StateBadges({ report, canDecide }: { report: Report; canDecide: boolean
   return (
     <div className={styles.badges}>
       <Badge
+        className={styles.stateBadge}
         appearance={r.state === 'accepted' ? 'filled' : 'outline'}
         color={
           r.state === 'rejected'
