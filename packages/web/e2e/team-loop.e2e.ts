@@ -81,6 +81,13 @@ function clean(session: BrowserSession, expected: Array<{ status: number; path: 
   expect(unexpectedFailures(failed, [])).toEqual([]);
 }
 
+/** Finds this run's event through the list's search, however many events the team has by now. */
+async function openEventFromList(page: Page): Promise<void> {
+  await page.getByRole('searchbox', { name: 'Search title or body' }).fill(`loop ${RUN}`);
+  await page.getByRole('button', { name: 'Search', exact: true }).click();
+  await page.getByRole('link', { name: eventTitle }).click();
+}
+
 async function openSection(page: Page, name: string): Promise<void> {
   await page.getByRole('tab', { name }).click();
 }
@@ -180,7 +187,7 @@ describe('the team loop in the browser', () => {
   it('the observer sends a light curve without typed times', async () => {
     const s = await browserAs(OBSERVER_EMAIL, OBSERVER_PASSWORD);
     const { page } = s;
-    await page.getByRole('link', { name: eventTitle }).click();
+    await openEventFromList(page);
     await openSection(page, 'Stations & reports');
     await page
       .getByRole('table', { name: 'Stations' })
@@ -290,7 +297,7 @@ describe('the team loop in the browser', () => {
   it('a modeller fits the event and asks for review', async () => {
     const s = await browserAs('modeller@example.org');
     const { page } = s;
-    await page.getByRole('link', { name: eventTitle }).click();
+    await openEventFromList(page);
     await openSection(page, 'Fits');
     await page.getByRole('button', { name: 'Run fit' }).click();
     await page.waitForURL(/[?&]fit=/);
