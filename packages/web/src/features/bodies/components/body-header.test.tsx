@@ -43,7 +43,7 @@ describe('BodyHeader', () => {
     const user = userEvent.setup();
     renderWithProviders(<BodyHeader body={EMPTY_BODY} canEdit onDeleted={onDeleted} />);
     await user.click(screen.getByRole('button', { name: 'Delete body' }));
-    const dialog = await screen.findByRole('dialog', { name: 'Delete Brask?' });
+    const dialog = await screen.findByRole('alertdialog', { name: 'Delete Brask?' });
     expect(dialog).toHaveTextContent('only while no event, active or archived, observes it');
     await user.click(within(dialog).getByRole('button', { name: 'Delete' }));
     expect(await screen.findByRole('alert')).toHaveTextContent(

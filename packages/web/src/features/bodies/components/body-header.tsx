@@ -1,24 +1,10 @@
-import {
-  Body1,
-  Button,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  DialogTrigger,
-  Field,
-  Input,
-  makeStyles,
-  Title2,
-  tokens,
-} from '@fluentui/react-components';
+import { Body1, Button, Field, Input, makeStyles, Title2, tokens } from '@fluentui/react-components';
 import { patchBodyPayloadSchema } from '@limbus/schema/bodies';
 import { useState, type FormEvent } from 'react';
 import { useDeleteBody } from '../api/delete-body';
 import type { BodyDetail } from '../api/get-body';
 import { useUpdateBody } from '../api/update-body';
+import { ConfirmButton } from '@/components/confirm-button';
 import { FormError } from '@/components/form-error';
 import {
   errorMessage,
@@ -90,40 +76,21 @@ function EditBodyForm({ body, onDone }: { body: BodyDetail; onDone: () => void }
 }
 
 function DeleteBodyButton({ body, onDeleted }: { body: BodyDetail; onDeleted: () => void }) {
-  const [open, setOpen] = useState(false);
   const remove = useDeleteBody(body.id, body.teamId, onDeleted);
   return (
-    <>
-      <Dialog open={open} onOpenChange={(_, d) => setOpen(d.open)}>
-        <DialogTrigger disableButtonEnhancement>
-          <Button>Delete body</Button>
-        </DialogTrigger>
-        <DialogSurface>
-          <DialogBody>
-            <DialogTitle>Delete {body.name}?</DialogTitle>
-            <DialogContent>
-              A body can be deleted only while no event, active or archived, observes it. Its physical
-              parameters go with it.
-            </DialogContent>
-            <DialogActions>
-              <DialogTrigger disableButtonEnhancement>
-                <Button>Keep it</Button>
-              </DialogTrigger>
-              <Button
-                appearance="primary"
-                disabled={remove.isPending}
-                onClick={() => remove.mutate(undefined, { onSettled: () => setOpen(false) })}
-              >
-                Delete
-              </Button>
-            </DialogActions>
-          </DialogBody>
-        </DialogSurface>
-      </Dialog>
-      {remove.isError ? (
-        <FormError title={`${body.name} was not deleted`} message={errorMessage(remove.error)} />
-      ) : null}
-    </>
+    <ConfirmButton
+      size="medium"
+      text="Delete body"
+      name="Delete body"
+      title={`Delete ${body.name}?`}
+      description="A body can be deleted only while no event, active or archived, observes it. Its physical parameters go with it."
+      confirmText="Delete"
+      cancelText="Keep it"
+      pending={remove.isPending}
+      error={remove.error}
+      onOpen={() => remove.reset()}
+      onConfirm={(close) => remove.mutate(undefined, { onSuccess: close })}
+    />
   );
 }
 

@@ -133,7 +133,9 @@ describe('EventSetupForm', () => {
     renderWithProviders(<EventSetupForm {...PROPS} canDelete onDeleted={onDeleted} />);
     const user = userEvent.setup();
     await user.click(screen.getByRole('button', { name: 'Delete event' }));
-    const dialog = await screen.findByRole('dialog', { name: 'Delete Invented occultation, night one?' });
+    const dialog = await screen.findByRole('alertdialog', {
+      name: 'Delete Invented occultation, night one?',
+    });
     expect(dialog).toHaveTextContent('A coordinator can restore it from Archived events on the events list.');
     expect(calls).toHaveLength(0);
     await user.click(within(dialog).getByRole('button', { name: 'Delete' }));
@@ -149,9 +151,9 @@ describe('EventSetupForm', () => {
     renderWithProviders(<EventSetupForm {...PROPS} canDelete />);
     const user = userEvent.setup();
     await user.click(screen.getByRole('button', { name: 'Delete event' }));
-    const dialog = await screen.findByRole('dialog', { name: /^Delete / });
+    const dialog = await screen.findByRole('alertdialog', { name: /^Delete / });
     await user.click(within(dialog).getByRole('button', { name: 'Keep it' }));
-    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+    await waitFor(() => expect(screen.queryByRole('alertdialog')).not.toBeInTheDocument());
     expect(calls).toHaveLength(0);
   });
 });

@@ -1,12 +1,5 @@
 import {
   Button,
-  Dialog,
-  DialogActions,
-  DialogBody,
-  DialogContent,
-  DialogSurface,
-  DialogTitle,
-  DialogTrigger,
   Field,
   Input,
   makeStyles,
@@ -27,6 +20,7 @@ import { useState, type FormEvent } from 'react';
 import { useDeleteEvent } from '../api/delete-event';
 import { TIME_SCALES, type EventDetail } from '../api/get-event';
 import { updateEventInputSchema, useUpdateEvent } from '../api/update-event';
+import { ConfirmButton } from '@/components/confirm-button';
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
 import { ScrollArea } from '@/components/scroll-area';
@@ -80,40 +74,21 @@ function angleHint(text: string, parsed: AngleParse): string | undefined {
 }
 
 function DeleteEventButton({ event, onDeleted }: { event: EventDetail; onDeleted: () => void }) {
-  const [open, setOpen] = useState(false);
   const remove = useDeleteEvent(event.id, onDeleted);
   return (
-    <>
-      <Dialog open={open} onOpenChange={(_, d) => setOpen(d.open)}>
-        <DialogTrigger disableButtonEnhancement>
-          <Button>Delete event</Button>
-        </DialogTrigger>
-        <DialogSurface>
-          <DialogBody>
-            <DialogTitle>Delete {event.title}?</DialogTitle>
-            <DialogContent>
-              The event leaves the list with its stations, reports, chords and fits. A coordinator can restore
-              it from Archived events on the events list.
-            </DialogContent>
-            <DialogActions>
-              <DialogTrigger disableButtonEnhancement>
-                <Button>Keep it</Button>
-              </DialogTrigger>
-              <Button
-                appearance="primary"
-                disabled={remove.isPending}
-                onClick={() => remove.mutate(undefined, { onSettled: () => setOpen(false) })}
-              >
-                Delete
-              </Button>
-            </DialogActions>
-          </DialogBody>
-        </DialogSurface>
-      </Dialog>
-      {remove.isError ? (
-        <FormError title="The event was not deleted" message={errorMessage(remove.error)} />
-      ) : null}
-    </>
+    <ConfirmButton
+      size="medium"
+      text="Delete event"
+      name="Delete event"
+      title={`Delete ${event.title}?`}
+      description="The event leaves the list with its stations, reports, chords and fits. A coordinator can restore it from Archived events on the events list."
+      confirmText="Delete"
+      cancelText="Keep it"
+      pending={remove.isPending}
+      error={remove.error}
+      onOpen={() => remove.reset()}
+      onConfirm={(close) => remove.mutate(undefined, { onSuccess: close })}
+    />
   );
 }
 

@@ -10,7 +10,7 @@ import {
   TableRow,
   tokens,
 } from '@fluentui/react-components';
-import { ConfirmButton } from './confirm-button';
+import { ConfirmButton } from '@/components/confirm-button';
 import type { Invitation } from '../api/get-invitations';
 import { useResendInvitation } from '../api/resend-invitation';
 import { useRevokeInvitation } from '../api/revoke-invitation';

@@ -13,7 +13,7 @@ import {
 } from '@fluentui/react-components';
 import { updateMemberPayloadSchema, type TeamRole } from '@limbus/schema/team';
 import { useState } from 'react';
-import { ConfirmButton } from './confirm-button';
+import { ConfirmButton } from '@/components/confirm-button';
 import { RoleCheckboxes } from './role-checkboxes';
 import type { Member } from '../api/get-members';
 import { useRemoveMember } from '../api/remove-member';

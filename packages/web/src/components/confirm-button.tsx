@@ -11,8 +11,8 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { useRef, useState } from 'react';
-import { FormError } from '@/components/form-error';
-import { errorMessage } from '@/components/form-errors';
+import { FormError } from './form-error';
+import { errorMessage } from './form-errors';
 
 const useStyles = makeStyles({
   content: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
@@ -33,11 +33,15 @@ export interface ConfirmButtonProps {
   onOpen: () => void;
   /** Runs the action; `close` is called once it has succeeded. */
   onConfirm: (close: () => void) => void;
+  /** The label of the button that closes the dialog without acting ("Cancel"). */
+  cancelText?: string;
+  /** Small in a table row (the default), medium on its own under a form. */
+  size?: 'small' | 'medium';
 }
 
 /**
- * A row action that asks first, naming whom it affects, and shows the server's refusal where it was
- * asked. The dialog is mounted only while open: a Fluent dialog switched open in place stayed
+ * An action that asks first, naming what it affects, and shows the server's refusal where it was
+ * asked (removing a member, revoking an invitation, deleting a body or an event). The dialog is mounted only while open: a Fluent dialog switched open in place stayed
  * aria-hidden under jsdom, out of the tests' reach, while one mounted open does not.
  */
 export function ConfirmButton(props: ConfirmButtonProps) {
@@ -52,7 +56,7 @@ export function ConfirmButton(props: ConfirmButtonProps) {
     <>
       <Button
         ref={buttonRef}
-        size="small"
+        size={props.size ?? 'small'}
         aria-label={props.name}
         aria-haspopup="dialog"
         onClick={() => {
@@ -84,7 +88,7 @@ export function ConfirmButton(props: ConfirmButtonProps) {
                   {props.confirmText}
                 </Button>
                 <Button disabled={props.pending} onClick={close}>
-                  Cancel
+                  {props.cancelText ?? 'Cancel'}
                 </Button>
               </DialogActions>
             </DialogBody>
