@@ -1,8 +1,6 @@
 import {
   Badge,
   Body1,
-  Button,
-  Field,
   makeStyles,
   Table,
   TableBody,
@@ -10,17 +8,12 @@ import {
   TableHeader,
   TableHeaderCell,
   TableRow,
-  Textarea,
   tokens,
 } from '@fluentui/react-components';
-import { useState } from 'react';
 import { useDecideCorrection } from '../api/decide-correction';
 import type { Report, ReportCorrection } from '../api/get-reports';
-import { rejectInputSchema } from '../api/review-report';
+import { AcceptOrReject } from './accept-or-reject';
 import { CORRECTION_FIELDS, currentValue, fieldValueText } from './report-text';
-import { FormError } from '@/components/form-error';
-import { errorMessage } from '@/components/form-errors';
-import { ReplaceTimingDialog, replacesBetterTimingOf } from '@/components/replace-timing-dialog';
 import { ScrollArea } from '@/components/scroll-area';
 import { utcText } from '@/lib/utc-text';
 
@@ -48,59 +41,17 @@ function Decide({
   report: Report;
   correction: ReportCorrection;
 }) {
-  const styles = useStyles();
   const decide = useDecideCorrection(eventId);
-  const [rejecting, setRejecting] = useState(false);
-  const [reason, setReason] = useState('');
-  const [reasonError, setReasonError] = useState<string | undefined>();
-  const conflict = replacesBetterTimingOf(decide.error);
   const ids = { reportId: report.id, correctionId: correction.id };
-  const who = `correction of ${correction.author.name}`;
-  const reject = () => {
-    const parsed = rejectInputSchema.safeParse({ reason });
-    if (!parsed.success) {
-      setReasonError(parsed.error.issues[0]?.message);
-      return;
-    }
-    decide.mutate({ ...ids, accept: false, reason: parsed.data.reason });
-  };
   return (
-    <div className={styles.actions}>
-      {rejecting ? (
-        <>
-          <Field label={`Reason for rejecting the ${who}`} validationMessage={reasonError}>
-            <Textarea value={reason} onChange={(_, d) => setReason(d.value)} />
-          </Field>
-          <Button onClick={reject} disabled={decide.isPending}>
-            Send rejection
-          </Button>
-          <Button onClick={() => setRejecting(false)}>Cancel</Button>
-        </>
-      ) : (
-        <>
-          <Button
-            appearance="primary"
-            aria-label={`Accept ${who}`}
-            disabled={decide.isPending}
-            onClick={() => decide.mutate({ ...ids, accept: true })}
-          >
-            Accept
-          </Button>
-          <Button aria-label={`Reject ${who}`} onClick={() => setRejecting(true)}>
-            Reject…
-          </Button>
-        </>
-      )}
-      {decide.isError && conflict === null ? (
-        <FormError title="The decision was not saved" message={errorMessage(decide.error)} />
-      ) : null}
-      <ReplaceTimingDialog
-        conflict={conflict}
-        pending={decide.isPending}
-        onReplace={() => decide.mutate({ ...ids, accept: true, replaceTimedChord: true })}
-        onKeep={() => decide.reset()}
-      />
-    </div>
+    <AcceptOrReject
+      who={`correction of ${correction.author.name}`}
+      pending={decide.isPending}
+      error={decide.error}
+      onAccept={(replaceTimedChord) => decide.mutate({ ...ids, accept: true, replaceTimedChord })}
+      onReject={(reason) => decide.mutate({ ...ids, accept: false, reason })}
+      onKeep={() => decide.reset()}
+    />
   );
 }
 
