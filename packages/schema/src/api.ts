@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { bodyNameSchema, createBodyPayloadSchema } from './bodies.js';
 import { eventFileSchema } from './event-file.js';
 import { parseUtcTime } from './iso-time.js';
+import { coordinatorStationStatusSchema, siteFields } from './planning.js';
 import { messageText } from './team.js';
 import { lineText, noteText, TEXT_LIMITS } from './text.js';
 import { REPORT_RESULT_VALUES } from './views.js';
@@ -93,13 +94,9 @@ export const eventsQuerySchema = z.strictObject({
 export type EventsQuery = z.output<typeof eventsQuerySchema>;
 
 const stationFields = {
-  code: lineText(TEXT_LIMITS.stationCode, 'station id'),
-  latDeg: z.number().min(-90, 'latitude must be within ±90°').max(90, 'latitude must be within ±90°'),
-  lonDeg: z
-    .number()
-    .min(-180, 'longitude must be within ±180° (east positive)')
-    .max(180, 'longitude must be within ±180° (east positive)'),
-  heightM: z.number(),
+  ...siteFields,
+  /** `observing` unless given; `planned` for a site placed ahead of the event (planning.ts). */
+  status: coordinatorStationStatusSchema.optional(),
   observerId: id.nullable().optional(),
   observerName: lineText(TEXT_LIMITS.stationDetail, 'observer name').nullable().optional(),
   apertureMm: z.number().positive('apertureMm must be greater than zero').nullable().optional(),

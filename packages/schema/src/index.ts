@@ -21,3 +21,4 @@ export * from './team.js';
 export * from './bodies.js';
 export * from './angles.js';
 export * from './views.js';
+export * from './planning.js';
