@@ -69,13 +69,21 @@ export const LIMB_PARAMETERS = [
 ] as const;
 export type LimbParameter = (typeof LIMB_PARAMETERS)[number];
 
+/**
+ * Where a ring's centre comes from: the limb fit's centre (concentric), its own dips ("free"), or one
+ * least-squares problem with the limb and every ring sharing one centre ("joint"; docs/method.md,
+ * "Joint limb and ring fit").
+ */
+export const RING_CENTER_SOURCES = ['limb', 'free', 'joint'] as const;
+export type RingCenterFrom = (typeof RING_CENTER_SOURCES)[number];
+
 export interface FitOptions {
   limb: {
     fixed: Partial<Record<LimbParameter, number>>;
     modelErrorKm: number;
     fitTimeOffsets: string[];
   };
-  ring: { centerFrom: 'limb' | 'free' };
+  ring: { centerFrom: RingCenterFrom };
   seed?: number;
 }
 
@@ -117,6 +125,19 @@ export interface SolutionChord {
   velocityKmPerS: VelocityKmPerS;
 }
 
+/**
+ * A covariance matrix in the solution's own units (km, degrees, seconds, none), rows and columns in the
+ * order of `parameters`. A parameter held fixed has a row and column of zeros. Solutions stored before
+ * covariances were added lack it, hence optional where it appears.
+ */
+export interface ParameterCovariance {
+  parameters: string[];
+  matrix: number[][];
+}
+
+/** How the limb's 1-sigma were obtained (docs/method.md, "Uncertainties" and "Joint limb and ring fit"). */
+export type SigmaMethod = 'sampled' | 'linearised';
+
 export interface LimbSolution extends LimbEllipse {
   equivalentRadiusKm: number;
   uncertainty: LimbEllipse & { equivalentRadiusKm: number };
@@ -126,17 +147,49 @@ export interface LimbSolution extends LimbEllipse {
   negativeChordsClear: boolean;
   timeOffsets: Array<{ station: string; seconds: number; sigma: number }>;
   band: LimbEllipse[];
+  /**
+   * Order: centerFKm, centerGKm, equatorialRadiusKm, oblateness, positionAngleDeg, then
+   * `timeOffsetSeconds <station>` for each fitted clock offset. Absent in solutions stored before it.
+   */
+  covariance?: ParameterCovariance;
+  /** Absent in solutions stored before it (they were all sampled). */
+  sigmaMethod?: SigmaMethod;
+}
+
+/**
+ * A ring pole and, where the solution has it, its 1-sigma: RA in degrees of RA (not multiplied by
+ * cos Dec), Dec in degrees, and the correlation of the two, propagated to first order from the ring's
+ * (B, P) covariance.
+ */
+export interface RingPole {
+  raDeg: number;
+  decDeg: number;
+  uncertainty?: { raDeg: number; decDeg: number; correlation: number };
 }
 
 export interface RingSolution {
   ring: string;
+  /** Where the centre came from; "joint" without a positive chord is reported as "free". */
+  centerFrom?: RingCenterFrom;
   centerFKm: number;
   centerGKm: number;
   radiusKm: number;
   openingAngleDeg: number;
   positionAngleDeg: number;
-  uncertainty: { radiusKm: number; openingAngleDeg: number; positionAngleDeg: number };
-  poles: [{ raDeg: number; decDeg: number }, { raDeg: number; decDeg: number }];
+  /**
+   * 1-sigma. centerFKm/centerGKm: the fitted 1-sigma when the centre is free or joint, the limb centre's
+   * 1-sigma when it is taken from the limb (absent in solutions stored before they were added).
+   */
+  uncertainty: {
+    radiusKm: number;
+    openingAngleDeg: number;
+    positionAngleDeg: number;
+    centerFKm?: number;
+    centerGKm?: number;
+  };
+  /** Order: centerFKm, centerGKm, radiusKm, openingAngleDeg, positionAngleDeg. */
+  covariance?: ParameterCovariance;
+  poles: [RingPole, RingPole];
   crossings: Array<SkyPointKm & { station: string; radialWidthKm: number }>;
   chi2: number;
   dof: number;

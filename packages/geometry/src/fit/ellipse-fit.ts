@@ -5,7 +5,7 @@
 // Parameter vector (internal units): [centerFKm, centerGKm, semiMajorKm, oblateness, positionAngleRad,
 // clock offsets in seconds...]. Only the free entries are handed to the minimiser and the sampler.
 
-import { CholeskyDecomposition, Matrix, SingularValueDecomposition, inverse } from 'ml-matrix';
+import { CholeskyDecomposition, Matrix } from 'ml-matrix';
 import { DEG, PI, RAD, wrap } from '../math.js';
 import { GeometryInputError } from '../types.js';
 import type { LimbEllipse, SkyPointKm } from '../types.js';
@@ -17,6 +17,7 @@ import {
   frameResidualKm,
   pathClearance,
 } from './ellipse.js';
+import { normalMatrixCovariance } from './covariance.js';
 import { runEnsemble } from './ensemble-sampler.js';
 import { type LeastSquaresProblem, jacobian, levenbergMarquardt } from './levenberg-marquardt.js';
 import { gaussian, mulberry32 } from './prng.js';
@@ -34,14 +35,14 @@ const SAMPLER_BURN_IN_STEPS = 150;
 const SAMPLER_STEPS = 250;
 const BAND_SIZE = 64;
 /** Fraction of a normal distribution within ±1σ. */
-const ONE_SIGMA_MASS = 0.6826894921370859;
+export const ONE_SIGMA_MASS = 0.6826894921370859;
 /** Standard deviation of an angle spread evenly over 180°: the most P can be uncertain. */
-const UNIFORM_HALF_TURN_SIGMA_RAD = PI / Math.sqrt(12);
+export const UNIFORM_HALF_TURN_SIGMA_RAD = PI / Math.sqrt(12);
 /** Below this oblateness the linearised fit cannot see P (∂ρ/∂P vanishes at ε = 0). */
-const ROUND_OBLATENESS = 1e-3;
+export const ROUND_OBLATENESS = 1e-3;
 /** Negative paths are pushed this far (in units of the ellipse's own radius) outside so that the best fit clears. */
-const NEGATIVE_MARGIN = 1e-5;
-const PENALTY_WEIGHTS = [1e2, 1e4, 1e6];
+export const NEGATIVE_MARGIN = 1e-5;
+export const PENALTY_WEIGHTS = [1e2, 1e4, 1e6];
 
 export interface FitPoint {
   fKm: number;
@@ -165,7 +166,7 @@ export function residualsKmOf(problem: EllipseFitProblem, full: Float64Array): n
   });
 }
 
-function minClearance(problem: EllipseFitProblem, fr: EllipseFrame): number {
+export function minClearance(problem: EllipseFitProblem, fr: EllipseFrame): number {
   let q = Infinity;
   for (const path of problem.negatives) q = Math.min(q, pathClearance(path, fr));
   return q;
@@ -282,7 +283,7 @@ export function fitEllipse(problem: EllipseFitProblem): EllipseFitOutcome {
   };
 }
 
-function maxSpeed(problem: EllipseFitProblem): number {
+export function maxSpeed(problem: EllipseFitProblem): number {
   let v = 0;
   for (const p of problem.points) v = Math.max(v, Math.hypot(p.velocityFKmPerS, p.velocityGKmPerS));
   return v > 0 ? v : 1;
@@ -356,50 +357,17 @@ function linearisedCovariance(
   free: number[],
   best: Float64Array,
 ): Matrix {
-  const k = free.length;
   const jac = jacobian(lsq, bestFree);
   const pIndex = free.indexOf(IX_P);
   const dropP = pIndex >= 0 && (best[IX_EPS] as number) < ROUND_OBLATENESS;
-  const kept = free.map((_, i) => i).filter((i) => !(dropP && i === pIndex));
-  const alpha = new Matrix(kept.length, kept.length);
-  kept.forEach((ci, r) =>
-    kept.forEach((cj, c) => {
-      let s = 0;
-      for (let row = 0; row < jac.rows; row++) s += jac.get(row, ci) * jac.get(row, cj);
-      alpha.set(r, c, s);
-    }),
+  return normalMatrixCovariance(
+    jac,
+    new Map(dropP ? [[pIndex, UNIFORM_HALF_TURN_SIGMA_RAD ** 2]] : []),
+    (column) => notConstrained(problem, free[column] as number),
   );
-  // Scaling to a correlation-like matrix makes the singularity test independent of units.
-  const scale = kept.map((_, i) => Math.sqrt(alpha.get(i, i)));
-  const unconstrained = scale.findIndex((s) => !(s > 0));
-  if (unconstrained >= 0) throw notConstrained(problem, free[kept[unconstrained] as number] as number);
-  const corr = new Matrix(kept.length, kept.length);
-  for (let r = 0; r < kept.length; r++)
-    for (let c = 0; c < kept.length; c++)
-      corr.set(r, c, alpha.get(r, c) / ((scale[r] as number) * (scale[c] as number)));
-  const svd = new SingularValueDecomposition(corr);
-  const sv = svd.diagonal;
-  const smallest = Math.min(...sv);
-  if (smallest < 1e-12 * Math.max(...sv)) {
-    const nullVector = svd.rightSingularVectors.getColumn(sv.indexOf(smallest));
-    const worst = nullVector.reduce(
-      (w, v, i) => (Math.abs(v) > Math.abs(nullVector[w] as number) ? i : w),
-      0,
-    );
-    throw notConstrained(problem, free[kept[worst] as number] as number);
-  }
-  const corrInv = inverse(corr);
-  const cov = new Matrix(k, k);
-  kept.forEach((ci, r) =>
-    kept.forEach((cj, c) =>
-      cov.set(ci, cj, corrInv.get(r, c) / ((scale[r] as number) * (scale[c] as number))),
-    ),
-  );
-  if (dropP) cov.set(pIndex, pIndex, UNIFORM_HALF_TURN_SIGMA_RAD ** 2);
-  return cov;
 }
 
-function notConstrained(problem: EllipseFitProblem, fullIndex: number): GeometryInputError {
+export function notConstrained(problem: EllipseFitProblem, fullIndex: number): GeometryInputError {
   const name =
     fullIndex < SHAPE_PARAMETER_COUNT
       ? SHAPE_NAMES[fullIndex as 0]

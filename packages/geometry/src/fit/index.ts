@@ -11,3 +11,7 @@ export type { LimbFitInput, LimbFitResult, LimbPoint, NegativePath } from './lim
 export { fitRing, ringPlaneRadiusKm } from './ring-fit.js';
 export type { RingFitInput, RingFitResult, RingPoint } from './ring-fit.js';
 export { mulberry32 } from './prng.js';
+export { fitLimbAndRings } from './joint-limb-ring.js';
+export type { JointLimbRingInput, JointLimbRingResult, JointRingResult } from './joint-limb-ring.js';
+export { ringPolesWithUncertainty } from './pole-uncertainty.js';
+export { normalMatrixCovariance, propagateCovariance, sampledCovariance } from './covariance.js';

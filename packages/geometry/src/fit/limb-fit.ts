@@ -3,7 +3,14 @@
 
 import { DEG, RAD } from '../math.js';
 import { GeometryInputError, LIMB_PARAMETERS } from '../types.js';
-import type { LimbEllipse, LimbParameter, SkyPointKm, VelocityKmPerS } from '../types.js';
+import type {
+  LimbEllipse,
+  LimbParameter,
+  ParameterCovariance,
+  SkyPointKm,
+  VelocityKmPerS,
+} from '../types.js';
+import { sampledCovariance } from './covariance.js';
 import {
   type EllipseFitProblem,
   type FitPoint,
@@ -51,6 +58,13 @@ export interface LimbFitResult {
   timeOffsets: Array<{ station: string; seconds: number; sigma: number }>;
   band: LimbEllipse[];
   linearisedSigma: LimbEllipse;
+  /** Sample correlations scaled by the reported 1-sigma; order as limbCovarianceParameters. */
+  covariance: ParameterCovariance;
+}
+
+/** Names of the limb covariance's rows: the five shape parameters, then each fitted clock offset. */
+export function limbCovarianceParameters(fitTimeOffsets: readonly string[]): string[] {
+  return [...LIMB_PARAMETERS, ...fitTimeOffsets.map((station) => `timeOffsetSeconds ${station}`)];
 }
 
 export function fitLimb(input: LimbFitInput): LimbFitResult {
@@ -78,6 +92,23 @@ export function fitLimb(input: LimbFitInput): LimbFitResult {
         : 0,
   };
   const lin = outcome.linearisedSigma;
+  const offsetSigmas = input.fitTimeOffsets.map((_, i) => sigmaOf(SHAPE_PARAMETER_COUNT + i));
+  const columns = [0, 1, 2, 3, 4, ...input.fitTimeOffsets.map((_, i) => SHAPE_PARAMETER_COUNT + i)].map((j) =>
+    sampleMap(outcome.samples, (v, o) =>
+      j === 4 ? ((v[o + 4] as number) - bestP) * RAD : (v[o + j] as number),
+    ),
+  );
+  const covariance: ParameterCovariance = {
+    parameters: limbCovarianceParameters(input.fitTimeOffsets),
+    matrix: sampledCovariance(columns, [
+      uncertainty.centerFKm,
+      uncertainty.centerGKm,
+      uncertainty.equatorialRadiusKm,
+      uncertainty.oblateness,
+      uncertainty.positionAngleDeg,
+      ...offsetSigmas,
+    ]),
+  };
   return {
     ellipse,
     equivalentRadiusKm: equivalentRadiusKm(ellipse),
@@ -93,7 +124,7 @@ export function fitLimb(input: LimbFitInput): LimbFitResult {
     timeOffsets: input.fitTimeOffsets.map((station, i) => ({
       station,
       seconds: best[SHAPE_PARAMETER_COUNT + i] as number,
-      sigma: sigmaOf(SHAPE_PARAMETER_COUNT + i),
+      sigma: offsetSigmas[i] as number,
     })),
     band: bandSamples(outcome.samples).map(ellipseOf),
     linearisedSigma: {
@@ -103,6 +134,7 @@ export function fitLimb(input: LimbFitInput): LimbFitResult {
       oblateness: lin[3] as number,
       positionAngleDeg: (lin[4] as number) * RAD,
     },
+    covariance,
   };
 }
 
@@ -127,7 +159,7 @@ export function limbChi2(e: LimbEllipse, input: LimbFitInput): number {
   return limbChi2Function(input)(e);
 }
 
-function limbProblem(input: LimbFitInput): EllipseFitProblem {
+export function limbProblem(input: LimbFitInput): EllipseFitProblem {
   if (!(Number.isFinite(input.modelErrorKm) && input.modelErrorKm >= 0)) {
     throw new GeometryInputError(
       'fit.limb.modelErrorKm',

@@ -5,7 +5,8 @@
 
 import { DEG, RAD, asin, wrap } from '../math.js';
 import { GeometryInputError } from '../types.js';
-import type { SkyPointKm, VelocityKmPerS } from '../types.js';
+import type { ParameterCovariance, SkyPointKm, VelocityKmPerS } from '../types.js';
+import { sampledCovariance } from './covariance.js';
 import { SHAPE_PARAMETER_COUNT, centralSigma, fitEllipse, sampleMap } from './ellipse-fit.js';
 import { checkPoint } from './limb-fit.js';
 
@@ -40,7 +41,18 @@ export interface RingFitResult {
   };
   chi2: number;
   dof: number;
+  /** Sample correlations scaled by the reported 1-sigma; order RING_COVARIANCE_PARAMETERS. */
+  covariance: ParameterCovariance;
 }
+
+/** Rows of a ring's covariance, in the solution's units (km, km, km, degrees, degrees). */
+export const RING_COVARIANCE_PARAMETERS = [
+  'centerFKm',
+  'centerGKm',
+  'radiusKm',
+  'openingAngleDeg',
+  'positionAngleDeg',
+] as const;
 
 export function fitRing(input: RingFitInput): RingFitResult {
   if (input.center && !(Number.isFinite(input.center.fKm) && Number.isFinite(input.center.gKm))) {
@@ -87,23 +99,40 @@ export function fitRing(input: RingFitInput): RingFitResult {
   const best = outcome.best;
   const bestP = best[4] as number;
   const set = outcome.samples;
-  const spread = (fn: (v: Float64Array, o: number) => number): number => centralSigma(sampleMap(set, fn));
   const centreFree = input.center === null;
+  const columns = [
+    sampleMap(set, (v, o) => v[o] as number),
+    sampleMap(set, (v, o) => v[o + 1] as number),
+    sampleMap(set, (v, o) => v[o + 2] as number),
+    sampleMap(set, (v, o) => asin(1 - (v[o + 3] as number)) * RAD),
+    sampleMap(set, (v, o) => ((v[o + 4] as number) - bestP) * RAD),
+  ];
+  const uncertainty = {
+    radiusKm: centralSigma(columns[2] as Float64Array),
+    openingAngleDeg: centralSigma(columns[3] as Float64Array),
+    positionAngleDeg: centralSigma(columns[4] as Float64Array),
+    centerFKm: centreFree ? centralSigma(columns[0] as Float64Array) : 0,
+    centerGKm: centreFree ? centralSigma(columns[1] as Float64Array) : 0,
+  };
   return {
     centerFKm: best[0] as number,
     centerGKm: best[1] as number,
     radiusKm: best[2] as number,
     openingAngleDeg: asin(1 - (best[3] as number)) * RAD,
     positionAngleDeg: wrap(bestP * RAD, 180),
-    uncertainty: {
-      radiusKm: spread((v, o) => v[o + 2] as number),
-      openingAngleDeg: spread((v, o) => asin(1 - (v[o + 3] as number)) * RAD),
-      positionAngleDeg: spread((v, o) => ((v[o + 4] as number) - bestP) * RAD),
-      centerFKm: centreFree ? spread((v, o) => v[o] as number) : 0,
-      centerGKm: centreFree ? spread((v, o) => v[o + 1] as number) : 0,
-    },
+    uncertainty,
     chi2: outcome.chi2,
     dof: outcome.dof,
+    covariance: {
+      parameters: [...RING_COVARIANCE_PARAMETERS],
+      matrix: sampledCovariance(columns, [
+        uncertainty.centerFKm,
+        uncertainty.centerGKm,
+        uncertainty.radiusKm,
+        uncertainty.openingAngleDeg,
+        uncertainty.positionAngleDeg,
+      ]),
+    },
   };
 }
 

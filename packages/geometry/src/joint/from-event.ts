@@ -1,6 +1,8 @@
 // From one validated event to what the joint pole fit needs: its sky-plane triad at its own reference
 // time, the crossings of one ring there, and the centre the ring is held to (the event's limb centre,
 // or none when the event has no positive chord or asks for a free ring centre, as the single-event fit).
+// An event that asks for a joint limb and ring centre is held at its limb fit's centre too: its own ring
+// dips belong to the pole fit here, and are not used a second time to place the centre.
 
 import { fitLimb } from '../fit/limb-fit.js';
 import { projectEvent } from '../project.js';
@@ -31,7 +33,7 @@ export function jointEventFromInput(event: EventInput, ring: string, errorPath: 
   let projected = projectEvent(event);
   let center: SkyPointKm | null = null;
   const hasPositive = event.chords.some((c) => c.type === 'positive');
-  if (hasPositive && event.fit.ring.centerFrom === 'limb') {
+  if (hasPositive && event.fit.ring.centerFrom !== 'free') {
     const limb = fitLimb({
       points: projected.limbPoints,
       negatives: projected.negatives,
