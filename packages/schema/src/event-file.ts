@@ -4,7 +4,7 @@
 
 import { z } from 'zod';
 
-import { LIMB_PARAMETERS, type EventInput } from '@limbus/geometry';
+import { LIMB_PARAMETERS, RING_CENTER_SOURCES, type EventInput } from '@limbus/geometry';
 
 import { bodyDesignationSchema, bodyNameSchema } from './bodies.js';
 import { parseUtcTime, parseZonelessTime } from './iso-time.js';
@@ -148,7 +148,7 @@ const fitOptions = z.strictObject({
       fitTimeOffsets: z.array(label('station')).default([]),
     })
     .prefault({}),
-  ring: z.strictObject({ centerFrom: z.enum(['limb', 'free']).default('limb') }).prefault({}),
+  ring: z.strictObject({ centerFrom: z.enum(RING_CENTER_SOURCES).default('limb') }).prefault({}),
   seed: z.int('seed must be a whole number').optional(),
 });
 

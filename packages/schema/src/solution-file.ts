@@ -4,7 +4,7 @@
 
 import { z } from 'zod';
 
-import type { Solution } from '@limbus/geometry';
+import type { RingCenterFrom, Solution } from '@limbus/geometry';
 
 import { plainErrorMap, problemsFromIssues, type Problem } from './problems.js';
 
@@ -32,6 +32,16 @@ const chord = z.object({
   velocityKmPerS: z.object({ f: z.number(), g: z.number() }),
 });
 
+/** A covariance in the solution's units, rows and columns in the order of `parameters` (square). */
+const covariance = z
+  .object({ parameters: z.array(z.string()), matrix: z.array(z.array(z.number())) })
+  .refine(
+    (c) =>
+      c.matrix.length === c.parameters.length && c.matrix.every((row) => row.length === c.parameters.length),
+    { message: 'matrix must be square, one row and column per parameter' },
+  );
+
+// Fields added after solutions were first stored are optional, so that every stored fit still reads.
 const limb = z.object({
   ...limbEllipseShape,
   equivalentRadiusKm: z.number(),
@@ -48,18 +58,37 @@ const limb = z.object({
   negativeChordsClear: z.boolean(),
   timeOffsets: z.array(z.object({ station: z.string(), seconds: z.number(), sigma: z.number() })),
   band: z.array(limbEllipse),
+  covariance: covariance.optional(),
+  sigmaMethod: z.enum(['sampled', 'linearised']).optional(),
 });
 
-const pole = z.object({ raDeg: z.number(), decDeg: z.number() });
+const pole = z.object({
+  raDeg: z.number(),
+  decDeg: z.number(),
+  uncertainty: z.object({ raDeg: z.number(), decDeg: z.number(), correlation: z.number() }).optional(),
+});
+
+// Spelled out rather than imported: the client loads this module, and geometry's runtime must stay out of
+// it (DEVELOPERS.md, "The client imports @limbus/schema through subpaths"). The type check below keeps the
+// list equal to geometry's RING_CENTER_SOURCES.
+const RING_CENTER_SOURCES = ['limb', 'free', 'joint'] as const satisfies readonly RingCenterFrom[];
 
 const ring = z.object({
   ring: z.string(),
+  centerFrom: z.enum(RING_CENTER_SOURCES).optional(),
   centerFKm: z.number(),
   centerGKm: z.number(),
   radiusKm: z.number(),
   openingAngleDeg: z.number(),
   positionAngleDeg: z.number(),
-  uncertainty: z.object({ radiusKm: z.number(), openingAngleDeg: z.number(), positionAngleDeg: z.number() }),
+  uncertainty: z.object({
+    radiusKm: z.number(),
+    openingAngleDeg: z.number(),
+    positionAngleDeg: z.number(),
+    centerFKm: z.number().optional(),
+    centerGKm: z.number().optional(),
+  }),
+  covariance: covariance.optional(),
   poles: z.tuple([pole, pole]),
   crossings: z.array(z.object({ ...skyPoint, station: z.string(), radialWidthKm: z.number() })),
   chi2: z.number(),

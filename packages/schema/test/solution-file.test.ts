@@ -78,6 +78,63 @@ describe('validateSolutionFile()', () => {
     ]);
   });
 
+  it('validateSolutionFile() reads a ring stored before centre sigmas, covariances and pole sigmas', () => {
+    const ring = {
+      ring: 'R1',
+      centerFKm: 3.2,
+      centerGKm: -11.5,
+      radiusKm: 1080,
+      openingAngleDeg: 31,
+      positionAngleDeg: 70,
+      uncertainty: { radiusKm: 2.3, openingAngleDeg: 0.2, positionAngleDeg: 0.4 },
+      poles: [
+        { raDeg: 41, decDeg: 27 },
+        { raDeg: 345, decDeg: 8 },
+      ],
+      crossings: [],
+      chi2: 1.2,
+      dof: 3,
+    };
+    const result = validateSolutionFile({ ...sampleSolution(), rings: [ring] });
+    expect(result.ok).toBe(true);
+    if (result.ok) expect(result.solution.rings[0]?.uncertainty.centerFKm).toBeUndefined();
+  });
+
+  it('validateSolutionFile() keeps covariances, centre and pole sigmas, and refuses a non-square covariance', () => {
+    const names = ['centerFKm', 'centerGKm', 'radiusKm', 'openingAngleDeg', 'positionAngleDeg'];
+    const matrix = names.map((_, i) => names.map((__, j) => (i === j ? 1 : 0)));
+    const ring = {
+      ring: 'R1',
+      centerFrom: 'joint',
+      centerFKm: 3.2,
+      centerGKm: -11.5,
+      radiusKm: 1080,
+      openingAngleDeg: 31,
+      positionAngleDeg: 70,
+      uncertainty: {
+        radiusKm: 2.3,
+        openingAngleDeg: 0.2,
+        positionAngleDeg: 0.4,
+        centerFKm: 0.3,
+        centerGKm: 0.4,
+      },
+      covariance: { parameters: names, matrix },
+      poles: [
+        { raDeg: 41, decDeg: 27, uncertainty: { raDeg: 0.3, decDeg: 0.2, correlation: -0.5 } },
+        { raDeg: 345, decDeg: 8, uncertainty: { raDeg: 0.4, decDeg: 0.1, correlation: 0.5 } },
+      ],
+      crossings: [],
+      chi2: 1.2,
+      dof: 3,
+    };
+    const good = { ...sampleSolution(), rings: [ring] };
+    expect(validateSolutionFile(JSON.parse(JSON.stringify(good)))).toEqual({ ok: true, solution: good });
+    const bad = { ...good, rings: [{ ...ring, covariance: { parameters: names, matrix: matrix.slice(1) } }] };
+    const result = validateSolutionFile(bad);
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.problems.map((p) => p.path)).toEqual(['rings[0].covariance']);
+  });
+
   it('validateSolutionFile() schema output type is geometry Solution, both ways', () => {
     expectTypeOf<z.output<typeof solutionFileSchema>>().toExtend<Solution>();
     expectTypeOf<Solution>().toExtend<z.output<typeof solutionFileSchema>>();
