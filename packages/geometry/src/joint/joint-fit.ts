@@ -46,11 +46,22 @@ export interface JointEvent {
 
 export interface JointPoleFit {
   pole: { raDeg: number; decDeg: number };
+  /** 1-sigma, multiplied by sigmaScale; RA in degrees of RA (not multiplied by cos Dec). */
   uncertainty: { raDeg: number; decDeg: number };
+  /** Correlation of the pole's RA and Dec (unchanged by the scaling). */
+  raDecCorrelation: number;
   radiusKm: number;
   radiusSigmaKm: number;
   chi2: number;
   dof: number;
+  /** χ²/dof, null without degrees of freedom. */
+  reducedChi2: number | null;
+  /** √(χ²/dof) when that exceeds 1, else 1: the factor the linearised 1-sigma were multiplied by. */
+  sigmaScale: number;
+  /** The other family's best χ² minus this one's (a tie of one event may leave it a hair below 0). */
+  familyDeltaChi2: number;
+  /** What a reader must know about these numbers, in words (scaling, the family comparison). */
+  notes: string[];
   events: Array<{ title: string; openingAngleDeg: number; positionAngleDeg: number; center: SkyPointKm }>;
   ambiguityResolved: boolean;
   /** Best fit in the other pole family, for saying which pole the data leave standing. */
@@ -216,7 +227,7 @@ function linearisedSigma(
   events: readonly JointEvent[],
   layout: Layout,
   fit: FamilyFit,
-): { raRad: number; decRad: number; radiusKm: number } {
+): { raRad: number; decRad: number; radiusKm: number; raDecCorrelation: number } {
   const n = countPoints(events);
   const { raRad, decRad } = raDecFromUnit(fit.pole);
   const x0 = new Float64Array(fit.x);
@@ -245,10 +256,13 @@ function linearisedSigma(
       'the ring crossings do not constrain the pole and radius (the normal matrix is singular)',
     );
   const covariance: Matrix = svd.inverse();
+  const sigmaRa = Math.sqrt(covariance.get(0, 0));
+  const sigmaDec = Math.sqrt(covariance.get(1, 1));
   return {
-    raRad: Math.sqrt(covariance.get(0, 0)),
-    decRad: Math.sqrt(covariance.get(1, 1)),
+    raRad: sigmaRa,
+    decRad: sigmaDec,
     radiusKm: Math.sqrt(covariance.get(2, 2)),
+    raDecCorrelation: Math.max(-1, Math.min(1, covariance.get(0, 1) / (sigmaRa * sigmaDec))),
   };
 }
 
@@ -297,13 +311,31 @@ export function fitJointPole(events: readonly JointEvent[]): JointPoleFit {
   const [best, other] = tie || plus.chi2 < minus.chi2 ? [plus, minus] : [minus, plus];
   const sigma = linearisedSigma(events, layout, best);
   const pole = reportedEnd(best.pole, first);
+  const dof = countPoints(events) - layout.size;
+  const reducedChi2 = dof > 0 ? best.chi2 / dof : null;
+  // Residuals scattering more than their timing sigmas allow: the usual remedy is to take the scatter as
+  // the truth and multiply the linearised 1-sigma by √(χ²/dof) (Bevington & Robinson, Data Reduction and
+  // Error Analysis, 3rd ed., §8.1; Press et al., Numerical Recipes, 3rd ed., §15.1), and to measure the
+  // family difference in the same inflated units.
+  const sigmaScale = reducedChi2 !== null && reducedChi2 > 1 ? Math.sqrt(reducedChi2) : 1;
+  const familyDeltaChi2 = other.chi2 - best.chi2;
+  const scaledDelta = familyDeltaChi2 / (sigmaScale * sigmaScale);
+  const ambiguityResolved = scaledDelta > AMBIGUITY_DELTA_CHI2;
   return {
     pole: toRaDecDeg(pole),
-    uncertainty: { raDeg: sigma.raRad * RAD, decDeg: sigma.decRad * RAD },
+    uncertainty: {
+      raDeg: sigma.raRad * RAD * sigmaScale,
+      decDeg: sigma.decRad * RAD * sigmaScale,
+    },
+    raDecCorrelation: sigma.raDecCorrelation,
     radiusKm: best.radiusKm,
-    radiusSigmaKm: sigma.radiusKm,
+    radiusSigmaKm: sigma.radiusKm * sigmaScale,
     chi2: best.chi2,
-    dof: countPoints(events) - layout.size,
+    dof,
+    reducedChi2,
+    sigmaScale,
+    familyDeltaChi2,
+    notes: jointPoleNotes(best.chi2, dof, reducedChi2, sigmaScale, familyDeltaChi2, ambiguityResolved),
     events: events.map((e, k) => {
       const { openingRad, positionRad } = poleAspect(pole, e.triad);
       return {
@@ -313,11 +345,53 @@ export function fitJointPole(events: readonly JointEvent[]): JointPoleFit {
         center: centerOf(events, layout, best.x, k),
       };
     }),
-    ambiguityResolved: other.chi2 - best.chi2 > AMBIGUITY_DELTA_CHI2,
+    ambiguityResolved,
     alternative: {
       pole: toRaDecDeg(reportedEnd(other.pole, first)),
       radiusKm: other.radiusKm,
       chi2: other.chi2,
     },
   };
+}
+
+/**
+ * A χ² difference as text: signed (+ when the other family is worse, "−" when better), one decimal below
+ * 1000 and whole numbers above, and "0.0" rather than "−0.0" for a difference that rounds to zero.
+ */
+export function formatDeltaChi2(delta: number): string {
+  const decimals = Math.abs(delta) < 1000 ? 1 : 0;
+  const text = Math.abs(delta).toFixed(decimals);
+  if (Number(text) === 0) return (0).toFixed(decimals);
+  return `${delta > 0 ? '+' : '−'}${text}`;
+}
+
+function jointPoleNotes(
+  chi2: number,
+  dof: number,
+  reducedChi2: number | null,
+  sigmaScale: number,
+  delta: number,
+  resolved: boolean,
+): string[] {
+  const notes: string[] = [];
+  const fit = `χ² = ${chi2.toFixed(1)} for ${dof} degrees of freedom`;
+  if (reducedChi2 === null)
+    notes.push(`${fit}: no degrees of freedom are left, the 1-sigma rest on the timing sigmas alone.`);
+  else if (sigmaScale > 1)
+    notes.push(
+      `${fit} (χ²/dof = ${reducedChi2.toFixed(2)}): the dips scatter more than their timing sigmas allow, ` +
+        `so the 1-sigma are multiplied by √(χ²/dof) = ${sigmaScale.toFixed(2)} and the family difference is ` +
+        `divided by χ²/dof before it is compared with ${AMBIGUITY_DELTA_CHI2}.`,
+    );
+  else notes.push(`${fit} (χ²/dof = ${reducedChi2.toFixed(2)}): the 1-sigma are not rescaled.`);
+  const scaled =
+    sigmaScale > 1 ? ` (${formatDeltaChi2(delta / (sigmaScale * sigmaScale))} after scaling)` : '';
+  notes.push(
+    resolved
+      ? `The other pole family's best χ² differs by ${formatDeltaChi2(delta)}${scaled}, more than ` +
+          `${AMBIGUITY_DELTA_CHI2}: it is ruled out.`
+      : `The other pole family's best χ² differs by ${formatDeltaChi2(delta)}${scaled}, not more than ` +
+          `${AMBIGUITY_DELTA_CHI2}: both poles remain possible.`,
+  );
+  return notes;
 }
