@@ -14,4 +14,4 @@ export { mulberry32 } from './prng.js';
 export { fitLimbAndRings } from './joint-limb-ring.js';
 export type { JointLimbRingInput, JointLimbRingResult, JointRingResult } from './joint-limb-ring.js';
 export { ringPolesWithUncertainty } from './pole-uncertainty.js';
-export { normalMatrixCovariance, propagateCovariance, sampledCovariance } from './covariance.js';
+export { normalMatrixCovariance, propagateCovariance, sampledCovariance, subMatrix } from './covariance.js';

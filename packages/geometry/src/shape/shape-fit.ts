@@ -5,8 +5,8 @@
 //
 // Each event gives three measurements: the apparent semi-major axis a′ and the pair
 // (ε cos 2P, ε sin 2P) of oblateness and semi-minor-axis position angle, which stays continuous as the
-// ellipse turns round (P is undefined at ε = 0). Their residuals are whitened with the limb fit's 1-sigma
-// of a′, ε and P taken as independent (the limb fit's correlations are not carried through the files).
+// ellipse turns round (P is undefined at ε = 0). Their residuals are whitened with the limb fit's
+// covariance of a′, ε and P (L⁻¹r with LLᵀ the covariance; its 1-sigma alone for solutions without one).
 // Parameters: ln a, ln b, ln c (positivity without bounds), the rotation phase W₀ when it is fitted, and
 // the period when its 1-sigma is given (with a prior residual). Levenberg–Marquardt; 1-sigma from the
 // linearised covariance (JᵀJ)⁻¹ at the minimum (Press et al., Numerical Recipes, 3rd ed., 2007, §15.5).
@@ -31,6 +31,11 @@ export interface ShapeEventInput {
   limb: Pick<LimbEllipse, 'equatorialRadiusKm' | 'oblateness' | 'positionAngleDeg'>;
   /** 1-sigma of the limb fit; 0 marks a parameter held fixed there, which then measures nothing here. */
   sigma: { equatorialRadiusKm: number; oblateness: number; positionAngleDeg: number };
+  /**
+   * The limb fit's covariance of (equatorialRadiusKm, oblateness, positionAngleDeg), km and degrees, in
+   * that order (the solution's limb.covariance rows 2–4). Without it the 1-sigma are taken as independent.
+   */
+  covariance?: number[][];
 }
 
 export interface ShapeFitInput {
@@ -90,6 +95,14 @@ export interface ShapeFitResult {
   events: ShapeEventResult[];
   equilibrium: EquilibriumDensity | null;
   warnings: string[];
+  /**
+   * The order a ≥ b ≥ c is enforced: `constraints` lists the equalities held to keep it ("b = a",
+   * "c = b"; "c = a" for a spheroid), empty when the fit was in order; `unconstrainedSemiAxesKm` is the
+   * fit before any was held.
+   */
+  axisOrder: { constraints: string[]; unconstrainedSemiAxesKm: SemiAxesKm };
+  /** What a reader must know before using the axes: χ²/dof above 3, an order constraint that was held. */
+  cautions: string[];
 }
 
 const CAUTION =
@@ -106,10 +119,10 @@ interface PreparedEvent {
   yObs: number;
   cos2P: number;
   sin2P: number;
-  sigmaAKm: number;
-  sigmaEps: number;
-  /** 2·ε·σ_P: the 1-sigma across the (ε cos 2P, ε sin 2P) plane. */
-  sigmaTurn: number;
+  /** Which of (a′, ε along, 2εΔP across) this event measures (a parameter held fixed measures nothing). */
+  measured: number[];
+  /** Cholesky factor L of the measured components' covariance: residuals are whitened as L⁻¹r. */
+  whiten: number[][];
   observed: ShapeEventResult['model'];
 }
 
@@ -133,6 +146,26 @@ function prepare(input: ShapeFitInput): PreparedEvent[] {
         throw new GeometryInputError(`${path}.sigma.${key}`, 'must be 0 or more');
     }
     const p2 = 2 * pDeg * DEG;
+    // (a′, ε, P) → (a′, ε along, 2ε·P across): the across component of (ε cos 2P, ε sin 2P) moves by 2ε·δP.
+    const scale = [1, 1, 2 * eps * DEG];
+    const sig = [event.sigma.equatorialRadiusKm, event.sigma.oblateness, event.sigma.positionAngleDeg];
+    const cov = event.covariance;
+    if (
+      cov !== undefined &&
+      !(cov.length === 3 && cov.every((row) => row.length === 3 && row.every(Number.isFinite)))
+    )
+      throw new GeometryInputError(`${path}.covariance`, 'must be a 3 × 3 matrix of finite numbers');
+    const measured = [0, 1, 2].filter((k) => (sig[k] as number) > 0 && (scale[k] as number) > 0);
+    const entry = (i: number, j: number): number =>
+      (scale[i] as number) *
+      (scale[j] as number) *
+      (cov ? ((cov[i] as number[])[j] as number) : i === j ? (sig[i] as number) ** 2 : 0);
+    const whiten =
+      cholesky(measured.map((i) => measured.map((j) => entry(i, j)))) ??
+      // A covariance that rounding left not quite positive definite: fall back to the 1-sigma alone.
+      measured.map((i, r) =>
+        measured.map((_, c) => (r === c ? (scale[i] as number) * (sig[i] as number) : 0)),
+      );
     return {
       id: event.id,
       path,
@@ -143,28 +176,67 @@ function prepare(input: ShapeFitInput): PreparedEvent[] {
       yObs: eps * Math.sin(p2),
       cos2P: Math.cos(p2),
       sin2P: Math.sin(p2),
-      sigmaAKm: event.sigma.equatorialRadiusKm,
-      sigmaEps: event.sigma.oblateness,
-      sigmaTurn: 2 * eps * event.sigma.positionAngleDeg * DEG,
+      measured,
+      whiten,
       observed: { ...event.limb },
     };
   });
 }
 
-/** Parameter layout for one model. */
+/** Axes held equal to keep the order a ≥ b ≥ c (docs/method.md, "Shape from several events"). */
+interface Ties {
+  /** b held equal to a (triaxial only; the spheroid has it by construction). */
+  bToA: boolean;
+  /** c held equal to b (to a for the spheroid). */
+  cToB: boolean;
+}
+
+/** Parameter layout for one model: ln a, then ln b and ln c unless tied, the phase, the period. */
 interface Layout {
   count: number;
+  lnB: number | null;
+  lnC: number | null;
   phase: number | null;
   period: number | null;
   triaxial: boolean;
 }
 
+function layoutFor(triaxial: boolean, ties: Ties, phaseFitted: boolean, periodFitted: boolean): Layout {
+  let count = 1;
+  const lnB = triaxial && !ties.bToA ? count++ : null;
+  const lnC = ties.cToB ? null : count++;
+  // With b = a the equator is a circle and the rotation phase has no effect on any silhouette.
+  const phase = phaseFitted && !ties.bToA ? count++ : null;
+  const period = periodFitted ? count++ : null;
+  return { count, lnB, lnC, phase, period, triaxial };
+}
+
 function axesOf(x: Float64Array, layout: Layout): SemiAxesKm {
   const a = Math.exp(x[0] as number);
-  return layout.triaxial
-    ? { aKm: a, bKm: Math.exp(x[1] as number), cKm: Math.exp(x[2] as number) }
-    : { aKm: a, bKm: a, cKm: Math.exp(x[1] as number) };
+  const b = layout.lnB === null ? a : Math.exp(x[layout.lnB] as number);
+  const c = layout.lnC === null ? b : Math.exp(x[layout.lnC] as number);
+  return { aKm: a, bKm: b, cKm: c };
 }
+
+/** Lower-triangular L with LLᵀ = C (Cholesky–Banachiewicz), or null when C is not positive definite. */
+function cholesky(c: number[][]): number[][] | null {
+  const n = c.length;
+  const l = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j <= i; j++) {
+      let sum = (c[i] as number[])[j] as number;
+      for (let k = 0; k < j; k++)
+        sum -= ((l[i] as number[])[k] as number) * ((l[j] as number[])[k] as number);
+      if (i === j) {
+        if (!(sum > 0)) return null;
+        (l[i] as number[])[i] = Math.sqrt(sum);
+      } else (l[i] as number[])[j] = sum / ((l[j] as number[])[j] as number);
+    }
+  }
+  return l;
+}
+
+export const REDUCED_CHI2_CAUTION_LIMIT = 3;
 
 export function fitShape(input: ShapeFitInput): ShapeFitResult {
   const events = prepare(input);
@@ -174,62 +246,59 @@ export function fitShape(input: ShapeFitInput): ShapeFitResult {
   const periodSigmaH = rotation.periodHoursSigma ?? 0;
   if (!(periodSigmaH >= 0)) throw new GeometryInputError('rotation.periodHoursSigma', 'must be 0 or more');
   const triaxial = model === 'triaxial';
-  const phaseFitted = triaxial && rotation.phaseDeg === undefined;
+  const phaseRequested = triaxial && rotation.phaseDeg === undefined;
+  const periodFitted = triaxial && periodSigmaH > 0;
   const fixedPhaseRad = (rotation.phaseDeg ?? 0) * DEG;
-
-  let count = triaxial ? 3 : 2;
-  const layout: Layout = {
-    triaxial,
-    phase: phaseFitted ? count++ : null,
-    period: triaxial && periodSigmaH > 0 ? count++ : null,
-    count: 0,
-  };
-  layout.count = count;
 
   const poleRa = pole.raDeg * DEG;
   const poleDec = pole.decDeg * DEG;
   const spinAxis = unitVector(poleRa, poleDec);
-  const phaseOf = (x: Float64Array): number =>
+  const phaseOf = (x: Float64Array, layout: Layout): number =>
     layout.phase === null ? fixedPhaseRad : (x[layout.phase] as number);
-  const periodOf = (x: Float64Array): number =>
+  const periodOf = (x: Float64Array, layout: Layout): number =>
     layout.period === null ? rotation.periodHours : rotation.periodHours + (x[layout.period] as number);
-  const rotationAngle = (x: Float64Array, e: PreparedEvent): number =>
-    phaseOf(x) + (TAU * e.dtSeconds) / (periodOf(x) * SECONDS_PER_HOUR);
+  const rotationAngle = (x: Float64Array, layout: Layout, e: PreparedEvent): number =>
+    phaseOf(x, layout) + (TAU * e.dtSeconds) / (periodOf(x, layout) * SECONDS_PER_HOUR);
 
-  const measurementCount = events.reduce(
-    (n, e) => n + (e.sigmaAKm > 0 ? 1 : 0) + (e.sigmaEps > 0 ? 1 : 0) + (e.sigmaTurn > 0 ? 1 : 0),
-    0,
-  );
-  const freeCount = layout.count - (layout.period === null ? 0 : 1);
-  if (measurementCount < freeCount) {
+  const measurementCount = events.reduce((n, e) => n + e.measured.length, 0);
+  const firstLayout = layoutFor(triaxial, { bToA: false, cToB: false }, phaseRequested, periodFitted);
+  const firstFreeCount = firstLayout.count - (firstLayout.period === null ? 0 : 1);
+  if (measurementCount < firstFreeCount) {
     throw new GeometryInputError(
       'events',
-      `fewer measured limb parameters (${measurementCount}) than free shape parameters (${freeCount})`,
+      `fewer measured limb parameters (${measurementCount}) than free shape parameters (${firstFreeCount})`,
     );
   }
 
-  const apparent = (x: Float64Array, e: PreparedEvent) =>
-    projectEllipsoid(axesOf(x, layout), bodyToEquatorial(poleRa, poleDec, rotationAngle(x, e)), e.basis);
+  const apparent = (x: Float64Array, layout: Layout, e: PreparedEvent) =>
+    projectEllipsoid(
+      axesOf(x, layout),
+      bodyToEquatorial(poleRa, poleDec, rotationAngle(x, layout, e)),
+      e.basis,
+    );
 
-  const eventResiduals = (
-    x: Float64Array,
-    e: PreparedEvent,
-  ): [number | null, number | null, number | null] => {
-    const m = apparent(x, e);
+  /** Whitened residuals L⁻¹r of the measured components (a′, ε along, 2εΔP across), in that order. */
+  const eventResiduals = (x: Float64Array, layout: Layout, e: PreparedEvent): number[] => {
+    const m = apparent(x, layout, e);
     const eps = 1 - m.semiMinorKm / m.semiMajorKm;
     const dx = eps * Math.cos(2 * m.positionAngleRad) - e.xObs;
     const dy = eps * Math.sin(2 * m.positionAngleRad) - e.yObs;
-    return [
-      e.sigmaAKm > 0 ? (m.semiMajorKm - e.aKm) / e.sigmaAKm : null,
-      e.sigmaEps > 0 ? (e.cos2P * dx + e.sin2P * dy) / e.sigmaEps : null,
-      e.sigmaTurn > 0 ? (-e.sin2P * dx + e.cos2P * dy) / e.sigmaTurn : null,
-    ];
+    const full = [m.semiMajorKm - e.aKm, e.cos2P * dx + e.sin2P * dy, -e.sin2P * dx + e.cos2P * dy];
+    const r = e.measured.map((k) => full[k] as number);
+    // Forward substitution: w = L⁻¹ r.
+    const w: number[] = [];
+    for (let i = 0; i < r.length; i++) {
+      let sum = r[i] as number;
+      for (let k = 0; k < i; k++) sum -= ((e.whiten[i] as number[])[k] as number) * (w[k] as number);
+      w.push(sum / ((e.whiten[i] as number[])[i] as number));
+    }
+    return w;
   };
 
-  const problem: LeastSquaresProblem = {
+  const problemFor = (layout: Layout): LeastSquaresProblem => ({
     residuals(x) {
       const out: number[] = [];
-      for (const e of events) for (const r of eventResiduals(x, e)) if (r !== null) out.push(r);
+      for (const e of events) out.push(...eventResiduals(x, layout, e));
       if (layout.period !== null) out.push((x[layout.period] as number) / periodSigmaH);
       return Float64Array.from(out);
     },
@@ -237,48 +306,94 @@ export function fitShape(input: ShapeFitInput): ShapeFitResult {
       j === layout.phase ? 1e-5 : j === layout.period ? 1e-4 * periodSigmaH : 1e-6,
     ),
     admissible: (x) => (x.every(Number.isFinite) ? x : null),
-  };
+  });
 
   // Starting axes from the observed ellipses: the largest apparent semi-major axis and the smallest
   // apparent semi-minor axis bracket the body's longest and shortest axes.
   const largest = Math.max(...events.map((e) => e.aKm));
   const smallestMinor = Math.min(...events.map((e) => e.aKm * (1 - e.observed.oblateness)));
   const mean = events.reduce((s, e) => s + e.aKm, 0) / events.length;
-  const starts: Float64Array[] = [];
-  const phases = phaseFitted ? Array.from({ length: 12 }, (_, k) => (k * Math.PI) / 12) : [0];
-  for (const w of phases) {
-    const x = new Float64Array(layout.count);
-    x[0] = Math.log(largest);
-    if (triaxial) {
-      x[1] = Math.log(Math.min(mean, largest));
-      x[2] = Math.log(Math.min(smallestMinor, mean));
-    } else {
-      x[1] = Math.log(Math.min(smallestMinor, largest));
+  const firstStarts = (layout: Layout): Float64Array[] => {
+    const phases = layout.phase !== null ? Array.from({ length: 12 }, (_, k) => (k * Math.PI) / 12) : [0];
+    return phases.map((w) => {
+      const x = new Float64Array(layout.count);
+      x[0] = Math.log(largest);
+      if (layout.lnB !== null) x[layout.lnB] = Math.log(Math.min(mean, largest));
+      if (layout.lnC !== null) x[layout.lnC] = Math.log(Math.min(smallestMinor, triaxial ? mean : largest));
+      if (layout.phase !== null) x[layout.phase] = w;
+      return x;
+    });
+  };
+  const bestOf = (layout: Layout, starts: Float64Array[]) => {
+    const problem = problemFor(layout);
+    let best = levenbergMarquardt(problem, starts[0] as Float64Array);
+    for (const start of starts.slice(1)) {
+      const trial = levenbergMarquardt(problem, start);
+      if (trial.chi2 < best.chi2) best = trial;
     }
-    if (layout.phase !== null) x[layout.phase] = w;
-    starts.push(x);
-  }
-  let best = levenbergMarquardt(problem, starts[0] as Float64Array);
-  for (const start of starts.slice(1)) {
-    const trial = levenbergMarquardt(problem, start);
-    if (trial.chi2 < best.chi2) best = trial;
-  }
+    const x = Float64Array.from(best.x);
+    if (layout.phase !== null && layout.lnB !== null) {
+      // A quarter turn of the body swaps its x and y axes: keep a ≥ b by choosing that labelling.
+      if ((x[layout.lnB] as number) > (x[0] as number)) {
+        [x[0], x[layout.lnB]] = [x[layout.lnB] as number, x[0] as number];
+        x[layout.phase] = (x[layout.phase] as number) + Math.PI / 2;
+      }
+      // The silhouette is unchanged by a half turn, so the phase is known modulo 180°.
+      x[layout.phase] = wrap(x[layout.phase] as number, Math.PI);
+    }
+    return { x, chi2: best.chi2 };
+  };
 
-  const x = Float64Array.from(best.x);
-  const warnings: string[] = [];
-  if (layout.phase !== null) {
-    // A quarter turn of the body swaps its x and y axes: keep a ≥ b by choosing that labelling.
-    if ((x[1] as number) > (x[0] as number)) {
-      [x[0], x[1]] = [x[1] as number, x[0] as number];
-      x[layout.phase] = (x[layout.phase] as number) + Math.PI / 2;
-    }
-    // The silhouette is unchanged by a half turn, so the phase is known modulo 180°.
-    x[layout.phase] = wrap(x[layout.phase] as number, Math.PI);
+  // The order a ≥ b ≥ c is enforced, not relabelled: c lies along the given spin axis and a along the
+  // body's x axis at the given or fitted phase, so an axis out of order is held equal to its neighbour
+  // (the boundary of the allowed region) and the fit repeated, at most twice (active-set least squares;
+  // Lawson & Hanson, Solving Least Squares Problems, 1974, ch. 23, from memory).
+  const ties: Ties = { bToA: false, cToB: false };
+  let layout = firstLayout;
+  let fit = bestOf(layout, firstStarts(layout));
+  const unconstrained = axesOf(fit.x, layout);
+  for (let round = 0; round < 2; round++) {
+    const axes = axesOf(fit.x, layout);
+    const bOver = triaxial && !ties.bToA && axes.bKm > axes.aKm;
+    const cOver = !ties.cToB && axes.cKm > axes.bKm;
+    if (!bOver && !cOver) break;
+    if (bOver) ties.bToA = true;
+    if (cOver) ties.cToB = true;
+    const next = layoutFor(triaxial, ties, phaseRequested, periodFitted);
+    const start = new Float64Array(next.count);
+    const mid = ties.cToB ? Math.log((axes.bKm + axes.cKm) / 2) : Math.log(axes.bKm);
+    start[0] = ties.bToA ? Math.log((axes.aKm + axes.bKm) / 2) : Math.log(axes.aKm);
+    if (next.lnB !== null) start[next.lnB] = ties.cToB ? mid : Math.log(axes.bKm);
+    if (next.lnC !== null) start[next.lnC] = Math.log(axes.cKm);
+    if (next.phase !== null) start[next.phase] = phaseOf(fit.x, layout);
+    if (next.period !== null && layout.period !== null) start[next.period] = fit.x[layout.period] as number;
+    const phaseStarts =
+      next.phase !== null
+        ? [
+            start,
+            ...firstStarts(next).map((s) =>
+              Float64Array.from(s, (v, j) => (j === next.phase ? v : (start[j] as number))),
+            ),
+          ]
+        : [start];
+    layout = next;
+    fit = bestOf(layout, phaseStarts);
   }
+  const x = fit.x;
+  const problem = problemFor(layout);
   const axes = axesOf(x, layout);
-  if (axes.bKm > axes.aKm)
-    warnings.push('fitted b exceeds a: at the given phase the long axis lies along body y');
-  if (axes.cKm > axes.bKm) warnings.push('fitted c exceeds b: the spin axis is not the shortest axis');
+  const warnings: string[] = [];
+  const cautions: string[] = [];
+  const constraints = [...(ties.bToA ? ['b = a'] : []), ...(ties.cToB ? [triaxial ? 'c = b' : 'c = a'] : [])];
+  if (constraints.length > 0) {
+    const u = unconstrained;
+    cautions.push(
+      `The unconstrained fit gave a = ${u.aKm.toFixed(1)}, b = ${u.bKm.toFixed(1)}, c = ${u.cKm.toFixed(1)} km, ` +
+        `out of the order a ≥ b ≥ c; the reported axes hold ${constraints.join(' and ')} (the nearest ` +
+        'ordered shape), and their 1-sigma assume that constraint. A spin axis that is not the shortest ' +
+        'axis, a wrong pole or period, or limb errors that are too small can cause this.',
+    );
+  }
 
   const jac = jacobian(problem, x);
   let covariance: Matrix;
@@ -297,22 +412,39 @@ export function fitShape(input: ShapeFitInput): ShapeFitResult {
       'the events do not constrain every shape parameter (singular normal matrix)',
     );
   }
+  // A tied axis moves with its partner: it reports the partner's relative 1-sigma.
+  const lnBIndex = layout.lnB ?? 0;
+  const lnCIndex = layout.lnC ?? lnBIndex;
   const uncertainty = {
     aKm: axes.aKm * Math.sqrt(variance(0)),
-    bKm: axes.bKm * Math.sqrt(variance(triaxial ? 1 : 0)),
-    cKm: axes.cKm * Math.sqrt(variance(triaxial ? 2 : 1)),
+    bKm: axes.bKm * Math.sqrt(variance(lnBIndex)),
+    cKm: axes.cKm * Math.sqrt(variance(lnCIndex)),
     phaseDeg: Math.sqrt(variance(layout.phase)) * RAD,
     periodHours: layout.period === null ? periodSigmaH : Math.sqrt(variance(layout.period)),
   };
 
+  const freeCount = layout.count - (layout.period === null ? 0 : 1);
+  const dof = measurementCount - freeCount;
+  if (dof > 0 && fit.chi2 / dof > REDUCED_CHI2_CAUTION_LIMIT)
+    cautions.push(
+      `χ²/dof is ${(fit.chi2 / dof).toFixed(1)} (χ² = ${fit.chi2.toFixed(1)} for ${dof} degrees of freedom), ` +
+        `above ${REDUCED_CHI2_CAUTION_LIMIT}: the limb ellipses differ from this ellipsoid by more than their ` +
+        '1-sigma allow (a shape that is not an ellipsoid, a wrong pole, period or phase, or limb errors that ' +
+        'are too small). The axes and their 1-sigma are not to be trusted as they stand.',
+    );
+  if (dof <= 0)
+    cautions.push('No degrees of freedom are left: the 1-sigma rest on the limb fits\u2019 errors alone.');
+
   const eventResults = events.map((e): ShapeEventResult => {
-    const m = apparent(x, e);
+    const m = apparent(x, layout, e);
     const modelEllipse = {
       equatorialRadiusKm: m.semiMajorKm,
       oblateness: 1 - m.semiMinorKm / m.semiMajorKm,
       positionAngleDeg: m.positionAngleRad * RAD,
     };
-    const [ra, re, rp] = eventResiduals(x, e);
+    const whitened = eventResiduals(x, layout, e);
+    const byComponent: Array<number | null> = [null, null, null];
+    e.measured.forEach((k, i) => (byComponent[k] = whitened[i] as number));
     const full = (el: ShapeEventResult['model']): LimbEllipse => ({ ...el, centerFKm: 0, centerGKm: 0 });
     let sum = 0;
     const n = 360;
@@ -322,27 +454,41 @@ export function fitShape(input: ShapeFitInput): ShapeFitResult {
     }
     return {
       id: e.id,
-      rotationAngleDeg: wrap(rotationAngle(x, e), TAU) * RAD,
+      rotationAngleDeg: wrap(rotationAngle(x, layout, e), TAU) * RAD,
       aspectAngleDeg: acos(dot(spinAxis, e.basis.s)) * RAD,
       model: modelEllipse,
-      normalizedResiduals: { equatorialRadius: ra, oblateness: re, positionAngle: rp },
-      chi2: (ra ?? 0) ** 2 + (re ?? 0) ** 2 + (rp ?? 0) ** 2,
+      normalizedResiduals: {
+        equatorialRadius: byComponent[0] ?? null,
+        oblateness: byComponent[1] ?? null,
+        positionAngle: byComponent[2] ?? null,
+      },
+      chi2: whitened.reduce((s2, v) => s2 + v * v, 0),
       rmsRadialKm: Math.sqrt(sum / n),
     };
   });
 
+  const phaseReported = triaxial && layout.phase !== null ? phaseOf(x, layout) * RAD : null;
   return {
     model,
     semiAxesKm: axes,
     uncertainty,
-    phaseDeg: triaxial ? phaseOf(x) * RAD : null,
-    phaseFitted,
-    periodHours: periodOf(x),
-    chi2: best.chi2,
-    dof: measurementCount - freeCount,
+    phaseDeg: triaxial && !phaseRequested ? fixedPhaseRad * RAD : phaseReported,
+    phaseFitted: layout.phase !== null,
+    periodHours: periodOf(x, layout),
+    chi2: fit.chi2,
+    dof,
     events: eventResults,
-    equilibrium: equilibriumFor(axes, layout, covariance, periodOf(x), uncertainty.periodHours, warnings),
+    equilibrium: equilibriumFor(
+      axes,
+      layout,
+      covariance,
+      periodOf(x, layout),
+      uncertainty.periodHours,
+      warnings,
+    ),
     warnings,
+    axisOrder: { constraints, unconstrainedSemiAxesKm: unconstrained },
+    cautions,
   };
 }
 
@@ -382,14 +528,13 @@ function equilibriumFor(
     down[i] = (down[i] as number) - h;
     return (Math.log(omega2(...up)) - Math.log(omega2(...down))) / (2 * h);
   });
-  const gradient = layout.triaxial
-    ? [dLnQ[0] as number, dLnQ[1] as number, dLnQ[2] as number]
-    : [(dLnQ[0] as number) + (dLnQ[1] as number), dLnQ[2] as number];
+  // Each axis's logarithm is a parameter or tied to one (b to a, c to b): sum the derivatives per parameter.
+  const indexOfB = layout.lnB ?? 0;
+  const axisParameter = [0, indexOfB, layout.lnC ?? indexOfB];
+  const gradient = new Map<number, number>();
+  axisParameter.forEach((j, axis) => gradient.set(j, (gradient.get(j) ?? 0) + (dLnQ[axis] as number)));
   let relVar = 0;
-  for (let i = 0; i < gradient.length; i++) {
-    for (let j = 0; j < gradient.length; j++)
-      relVar += (gradient[i] as number) * (gradient[j] as number) * covariance.get(i, j);
-  }
+  for (const [i, gi] of gradient) for (const [j, gj] of gradient) relVar += gi * gj * covariance.get(i, j);
   // ρ ∝ P⁻²; the period is independent of the axes except when fitted, where its covariance is small.
   relVar += ((2 * periodSigmaHours) / periodHours) ** 2;
   const cOverAOnSequence = jacobi ? jacobiEllipsoid(axes.bKm / axes.aKm).cOverA : axes.cKm / axes.aKm;
