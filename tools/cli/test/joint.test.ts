@@ -16,11 +16,15 @@ interface JointDocument {
   format: string;
   ring: string;
   pole: { raDeg: number; decDeg: number };
-  uncertainty: { raDeg: number; decDeg: number };
+  uncertainty: { raDeg: number; decDeg: number; correlation: number };
   radiusKm: number;
   radiusSigmaKm: number;
   chi2: number;
   dof: number;
+  reducedChi2: number | null;
+  sigmaScale: number;
+  familyDeltaChi2: number;
+  notes: string[];
   events: Array<{ title: string; openingAngleDeg: number; positionAngleDeg: number }>;
   ambiguityResolved: boolean;
   alternativePole: { raDeg: number; decDeg: number; chi2: number };
@@ -53,6 +57,14 @@ describe('limbus joint', () => {
     expect(doc.events[0]?.positionAngleDeg).toBeLessThan(180);
     expect(doc.ambiguityResolved).toBe(true);
     expect(doc.alternativePole.chi2 - doc.chi2).toBeGreaterThan(9);
+    // χ²/dof as printed, the scale applied above 1 (√(χ²/dof); Bevington & Robinson, 3rd ed., §8.1), the
+    // signed family difference and the sentences that say both.
+    expect(doc.reducedChi2).toBe(doc.chi2 / doc.dof);
+    expect(doc.sigmaScale).toBe(Math.max(1, Math.sqrt(doc.chi2 / doc.dof)));
+    expect(doc.familyDeltaChi2).toBe(doc.alternativePole.chi2 - doc.chi2);
+    expect(doc.notes).toHaveLength(2);
+    expect(doc.notes[1]).toMatch(/differs by \+\d+(\.\d)?, more than 9: it is ruled out/);
+    expect(Math.abs(doc.uncertainty.correlation)).toBeLessThanOrEqual(1);
   });
 
   it('joint of the single-event solve agrees with that event’s own ring fit', () => {

@@ -25,7 +25,15 @@ export interface ComparisonRing {
   radiusKm: ValueSigma;
   openingAngleDeg: ValueSigma;
   positionAngleDeg: ValueSigma;
-  poles: Array<{ raDeg: number; decDeg: number }>;
+  /**
+   * Both pole solutions; `uncertainty` (1-sigma, RA in degrees of RA, and the RA–Dec correlation) is null
+   * for a fit stored before pole sigmas were computed.
+   */
+  poles: Array<{
+    raDeg: number;
+    decDeg: number;
+    uncertainty: { raDeg: number; decDeg: number; correlation: number } | null;
+  }>;
 }
 
 export interface ComparisonFit {
@@ -102,7 +110,7 @@ export function comparisonFit(
       radiusKm: { value: r.radiusKm, sigma: r.uncertainty.radiusKm },
       openingAngleDeg: { value: r.openingAngleDeg, sigma: r.uncertainty.openingAngleDeg },
       positionAngleDeg: { value: r.positionAngleDeg, sigma: r.uncertainty.positionAngleDeg },
-      poles: r.poles.map((p) => ({ raDeg: p.raDeg, decDeg: p.decDeg })),
+      poles: r.poles.map((p) => ({ raDeg: p.raDeg, decDeg: p.decDeg, uncertainty: p.uncertainty ?? null })),
     })),
   };
 }

@@ -5,9 +5,11 @@ import {
   fitJointPole,
   GeometryInputError,
   jointEventFromInput,
+  jointPoleDocument,
   ringLabels,
   type EventInput,
   type JointEvent,
+  type JointPoleDocument as GeometryJointPoleDocument,
 } from '@limbus/geometry';
 import { validateEventFile } from '@limbus/schema';
 import type { FieldIssue } from '../common/domain-errors';
@@ -18,18 +20,9 @@ export interface JointFitInput {
   input: string;
 }
 
-export interface JointPoleDocument {
-  format: 'limbus-joint/1';
-  ring: string;
-  pole: { raDeg: number; decDeg: number };
-  uncertainty: { raDeg: number; decDeg: number };
-  radiusKm: number;
-  radiusSigmaKm: number;
-  chi2: number;
-  dof: number;
-  events: Array<{ fitId: string; title: string; openingAngleDeg: number; positionAngleDeg: number }>;
-  ambiguityResolved: boolean;
-  alternativePole: { raDeg: number; decDeg: number; chi2: number };
+/** The `limbus-joint/1` document of `limbus joint`, with the fit each event came from. */
+export interface JointPoleDocument extends Omit<GeometryJointPoleDocument, 'events'> {
+  events: Array<GeometryJointPoleDocument['events'][number] & { fitId: string }>;
 }
 
 /** Problems a person can fix (wrong ring, an event without its dips), each naming the fit. */
@@ -76,22 +69,9 @@ export function jointPole(fits: JointFitInput[], requestedRing: string | null): 
       throw new JointInputProblems([{ path: error.path, message: error.detail }]);
     throw error;
   }
+  const document = jointPoleDocument(ring, fit);
   return {
-    format: 'limbus-joint/1',
-    ring,
-    pole: fit.pole,
-    uncertainty: fit.uncertainty,
-    radiusKm: fit.radiusKm,
-    radiusSigmaKm: fit.radiusSigmaKm,
-    chi2: fit.chi2,
-    dof: fit.dof,
-    events: fit.events.map((e, k) => ({
-      fitId: fits[k]?.fitId ?? '',
-      title: e.title,
-      openingAngleDeg: e.openingAngleDeg,
-      positionAngleDeg: e.positionAngleDeg,
-    })),
-    ambiguityResolved: fit.ambiguityResolved,
-    alternativePole: { ...fit.alternative.pole, chi2: fit.alternative.chi2 },
+    ...document,
+    events: document.events.map((e, k) => ({ fitId: fits[k]?.fitId ?? '', ...e })),
   };
 }

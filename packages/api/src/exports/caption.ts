@@ -1,6 +1,12 @@
 // A first draft of the figure caption: what was fitted, what was held fixed, and the numbers an author
 // would quote. Authors rewrite it; its job is to make sure nothing the fit assumed goes unmentioned.
-import { LIMB_PARAMETERS, type FitOptions, type LimbParameter, type Solution } from '@limbus/geometry';
+import {
+  LIMB_PARAMETERS,
+  type FitOptions,
+  type LimbParameter,
+  type RingCenterFrom,
+  type Solution,
+} from '@limbus/geometry';
 import { formatValueSigma } from './number-format';
 
 const LIMB_NAMES: Record<LimbParameter, string> = {
@@ -23,6 +29,13 @@ function withUnit(text: string, unit: string): string {
   if (unit === '') return text;
   return unit === '°' ? `${text}°` : `${text} ${unit}`;
 }
+
+/** How a ring's centre was found, as the caption says it; "joint" without a limb was reported as "free". */
+const RING_CENTRE_WORDS: Record<RingCenterFrom, string> = {
+  limb: 'centre held at the limb centre',
+  free: 'centre fitted freely',
+  joint: 'centre fitted jointly with the limb',
+};
 
 export function captionDraft(title: string, solution: Solution, fit: FitOptions): string {
   const positives = solution.chords.filter((c) => c.type === 'positive').length;
@@ -65,7 +78,7 @@ export function captionDraft(title: string, solution: Solution, fit: FitOptions)
       `Ring ${ring.ring}: radius ${formatValueSigma(ring.radiusKm, ring.uncertainty.radiusKm)} km, ` +
         `opening angle ${formatValueSigma(ring.openingAngleDeg, ring.uncertainty.openingAngleDeg)}°, ` +
         `position angle ${formatValueSigma(ring.positionAngleDeg, ring.uncertainty.positionAngleDeg)}°, ` +
-        (fit.ring.centerFrom === 'limb' ? 'centre held at the limb centre' : 'centre fitted freely') +
+        RING_CENTRE_WORDS[ring.centerFrom ?? fit.ring.centerFrom] +
         '.',
     );
   parts.push(

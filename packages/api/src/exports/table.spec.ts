@@ -45,6 +45,39 @@ describe('parameterRows', () => {
   });
 });
 
+describe('parameterRows() ring centres and poles', () => {
+  it('parameterRows() gives a limb-held ring centre the limb centre 1-sigma, and each pole its 1-sigma and correlation', () => {
+    const s = exampleSolution();
+    const ring = s.rings[0];
+    if (ring === undefined || s.limb === null) throw new Error('example lost its limb or ring');
+    const byKey = new Map(rows().map((r) => [`${r.group}/${r.parameter}`, r]));
+    // The example event takes its ring centre from the limb (docs/examples/event-example.json).
+    expect(byKey.get(`ring ${ring.ring}/centerFKm`)).toMatchObject({
+      value: s.limb.centerFKm,
+      sigma: s.limb.uncertainty.centerFKm,
+      status: 'derived',
+    });
+    const pole = ring.poles[0];
+    expect(byKey.get(`ring ${ring.ring}/pole1 raDeg`)).toMatchObject({ sigma: pole.uncertainty?.raDeg });
+    expect(byKey.get(`ring ${ring.ring}/pole1 decDeg`)).toMatchObject({ sigma: pole.uncertainty?.decDeg });
+    expect(byKey.get(`ring ${ring.ring}/pole1 raDecCorrelation`)?.value).toBe(pole.uncertainty?.correlation);
+  });
+
+  it('parameterRows() of a solution stored before ring centre and pole sigmas keeps them null', () => {
+    const s = structuredClone(exampleSolution());
+    for (const ring of s.rings) {
+      delete ring.uncertainty.centerFKm;
+      delete ring.uncertainty.centerGKm;
+      delete ring.centerFrom;
+      for (const pole of ring.poles) delete pole.uncertainty;
+    }
+    const got = parameterRows(s, exampleEvent().fit).filter((r) => r.group.startsWith('ring '));
+    expect(got.find((r) => r.parameter === 'centerFKm')).toMatchObject({ sigma: null, status: 'fixed' });
+    expect(got.find((r) => r.parameter === 'pole1 raDeg')?.sigma).toBeNull();
+    expect(got.some((r) => r.parameter.endsWith('raDecCorrelation'))).toBe(false);
+  });
+});
+
 describe('tableCsv', () => {
   it('tableCsv() carries every number exactly as stored, then the provenance', () => {
     const csv = tableCsv(rows(), exampleProvenance);

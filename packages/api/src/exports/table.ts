@@ -11,7 +11,7 @@ export interface ParameterRow {
   group: string;
   parameter: string;
   value: number;
-  /** 1-sigma; null where the solution states none (χ², degrees of freedom, pole directions). */
+  /** 1-sigma; null where the solution states none (χ², degrees of freedom, a correlation, old solutions). */
   sigma: number | null;
   unit: string;
   status: ParameterStatus;
@@ -64,7 +64,12 @@ export function parameterRows(solution: Solution, fit: FitOptions): ParameterRow
   }
   for (const ring of solution.rings) {
     const group = `ring ${ring.ring}`;
-    const centre: ParameterStatus = fit.ring.centerFrom === 'limb' ? 'fixed' : 'fitted';
+    const u = ring.uncertainty;
+    // A centre taken from the limb carries the limb centre's 1-sigma (derived); a solution stored before
+    // ring centre sigmas has none, and its limb-held centre stays "fixed".
+    const from = ring.centerFrom ?? fit.ring.centerFrom;
+    const centre: ParameterStatus =
+      from !== 'limb' ? 'fitted' : u.centerFKm === undefined ? 'fixed' : 'derived';
     rows.push(
       {
         group,
@@ -90,16 +95,30 @@ export function parameterRows(solution: Solution, fit: FitOptions): ParameterRow
         unit: 'deg',
         status: 'fitted',
       },
-      { group, parameter: 'centerFKm', value: ring.centerFKm, sigma: null, unit: 'km', status: centre },
-      { group, parameter: 'centerGKm', value: ring.centerGKm, sigma: null, unit: 'km', status: centre },
+      {
+        group,
+        parameter: 'centerFKm',
+        value: ring.centerFKm,
+        sigma: u.centerFKm ?? null,
+        unit: 'km',
+        status: centre,
+      },
+      {
+        group,
+        parameter: 'centerGKm',
+        value: ring.centerGKm,
+        sigma: u.centerGKm ?? null,
+        unit: 'km',
+        status: centre,
+      },
     );
-    ring.poles.forEach((pole, k) =>
+    ring.poles.forEach((pole, k) => {
       rows.push(
         {
           group,
           parameter: `pole${k + 1} raDeg`,
           value: pole.raDeg,
-          sigma: null,
+          sigma: pole.uncertainty?.raDeg ?? null,
           unit: 'deg',
           status: 'derived',
         },
@@ -107,12 +126,22 @@ export function parameterRows(solution: Solution, fit: FitOptions): ParameterRow
           group,
           parameter: `pole${k + 1} decDeg`,
           value: pole.decDeg,
-          sigma: null,
+          sigma: pole.uncertainty?.decDeg ?? null,
           unit: 'deg',
           status: 'derived',
         },
-      ),
-    );
+      );
+      // The two 1-sigma are strongly correlated for a ring pole: a reader needs the correlation too.
+      if (pole.uncertainty)
+        rows.push({
+          group,
+          parameter: `pole${k + 1} raDecCorrelation`,
+          value: pole.uncertainty.correlation,
+          sigma: null,
+          unit: '',
+          status: 'derived',
+        });
+    });
     rows.push(
       { group, parameter: 'chi2', value: ring.chi2, sigma: null, unit: '', status: 'derived' },
       { group, parameter: 'dof', value: ring.dof, sigma: null, unit: '', status: 'derived' },

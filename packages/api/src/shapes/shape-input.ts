@@ -1,6 +1,6 @@
 // Step in the data flow: stored solved fits -> the geometry's shape-fit input. Each fit gives its limb
 // ellipse with 1-sigma, the star's direction and the instant the body was seen, light time removed.
-import type { EventInput, ShapeEventInput, Solution } from '@limbus/geometry';
+import { subMatrix, type EventInput, type ShapeEventInput, type Solution } from '@limbus/geometry';
 import type { FieldIssue } from '../common/domain-errors';
 
 // Exact by definition (SI, 17th CGPM 1983).
@@ -67,6 +67,8 @@ export function shapeEventOf(
         oblateness: limb.uncertainty.oblateness,
         positionAngleDeg: limb.uncertainty.positionAngleDeg,
       },
+      // Rows and columns 2–4 of the limb covariance: (a, ε, P). Fits stored before it have none.
+      ...(limb.covariance === undefined ? {} : { covariance: subMatrix(limb.covariance.matrix, [2, 3, 4]) }),
     },
   };
 }

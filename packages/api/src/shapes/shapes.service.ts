@@ -128,7 +128,9 @@ export class ShapesService {
         throw new ValidationError([{ path: payloadPath(error.path), message: error.detail }]);
       throw error;
     }
-    return { pole, fits, result, cautions: pole.source === 'joint ring pole' ? [RING_POLE_CAUTION] : [] };
+    // The fit's own cautions (χ²/dof above 3, an axis order that had to be held) go beside the pole's.
+    const cautions = [...(pole.source === 'joint ring pole' ? [RING_POLE_CAUTION] : []), ...result.cautions];
+    return { pole, fits, result, cautions };
   }
 
   /** The same fit as a table for a paper, with the fits' hashes and approval states as provenance. */

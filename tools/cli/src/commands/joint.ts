@@ -6,6 +6,7 @@ import {
   GeometryInputError,
   fitJointPole,
   jointEventFromInput,
+  jointPoleDocument,
   ringLabels,
   type EventInput,
   type JointEvent,
@@ -97,24 +98,7 @@ export async function run(args: string[]): Promise<number> {
       }
     });
     if (problems.length > 0) throw new InputProblems(problems);
-    const fit = fitJointPole(jointEvents);
-    const document = {
-      format: 'limbus-joint/1',
-      ring,
-      pole: fit.pole,
-      uncertainty: fit.uncertainty,
-      radiusKm: fit.radiusKm,
-      radiusSigmaKm: fit.radiusSigmaKm,
-      chi2: fit.chi2,
-      dof: fit.dof,
-      events: fit.events.map((e) => ({
-        title: e.title,
-        openingAngleDeg: e.openingAngleDeg,
-        positionAngleDeg: e.positionAngleDeg,
-      })),
-      ambiguityResolved: fit.ambiguityResolved,
-      alternativePole: { ...fit.alternative.pole, chi2: fit.alternative.chi2 },
-    };
+    const document = jointPoleDocument(ring, fitJointPole(jointEvents));
     process.stdout.write(JSON.stringify(document, null, 2) + '\n');
   });
 }
