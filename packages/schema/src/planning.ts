@@ -224,7 +224,7 @@ export const placementAnswerSchema = z.object({
       .nullable(),
     /** The point suggestions are nearest to. */
     reference: z.object({
-      kind: z.enum(['stations', 'region', 'closest-approach']),
+      kind: z.enum(['stations', 'region', 'substellar']),
       latDeg: z.number(),
       lonDeg: z.number(),
     }),
@@ -331,6 +331,8 @@ export const briefingsSentSchema = z.object({
   sent: z.array(z.object({ userId: z.string(), name: z.string(), stations: z.array(z.string()) })),
   /** Stations without an observer account, which no e-mail can reach. */
   withoutObserver: z.array(z.string()),
+  /** Observers whose e-mail the mail server did not take, with its reason; try again later. */
+  failed: z.array(z.object({ userId: z.string(), name: z.string(), reason: z.string() })),
 });
 export type BriefingsSent = z.output<typeof briefingsSentSchema>;
 

@@ -72,6 +72,8 @@ export const NOTICE_KINDS = [
   'review-requested',
   'review-decided',
   'fit-finished',
+  'site-proposed',
+  'site-proposal-decided',
 ] as const;
 export type NoticeKind = (typeof NOTICE_KINDS)[number];
 
@@ -83,10 +85,17 @@ export const NOTICE_KIND_LABELS: Record<NoticeKind, string> = {
   'review-requested': 'A fit awaits your review (to reviewers)',
   'review-decided': 'Your fit was approved or returned',
   'fit-finished': 'Your fit finished (solved or failed)',
+  'site-proposed': 'An observer proposed a site for an event (to coordinators)',
+  'site-proposal-decided': 'Your proposed site was accepted or declined',
 };
 
-/** Every kind of e-mail Limbus sends; the `X-Limbus-Kind` header carries it, the outbox filters on it. */
-export const MAIL_KINDS = ['invitation', 'password-reset', ...NOTICE_KINDS] as const;
+/**
+ * Every kind of e-mail Limbus sends; the `X-Limbus-Kind` header carries it, the outbox filters on it. A
+ * briefing is not a notice: a coordinator sends it on purpose to the observers of an event, with the
+ * night's times and safety cautions, so it goes out whatever their notice settings (the same content
+ * stays on their briefing page).
+ */
+export const MAIL_KINDS = ['invitation', 'password-reset', 'briefing', ...NOTICE_KINDS] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 export const MAIL_KIND_HEADER = 'X-Limbus-Kind';
 
