@@ -13,12 +13,21 @@ export const LIMB_PARAMETERS = [
 ] as const;
 export type LimbParameterKey = (typeof LIMB_PARAMETERS)[number]['key'];
 
+/** Where a ring's centre comes from (the event file's fit.ring.centerFrom), and how the desk says it. */
+export const RING_CENTER_SOURCES = ['limb', 'free', 'joint'] as const;
+export type RingCenterFrom = (typeof RING_CENTER_SOURCES)[number];
+export const RING_CENTER_WORDS: Record<RingCenterFrom, string> = {
+  limb: 'taken from the limb centre',
+  free: 'fitted freely',
+  joint: 'fitted jointly with the limb (one shared centre)',
+};
+
 /** What a fit was asked to do; null where the stored options leave it to the event's defaults. */
 export interface FitOptionsRead {
   fixed: Partial<Record<LimbParameterKey, number>> | null;
   modelErrorKm: number | null;
   fitTimeOffsets: string[] | null;
-  ringCenterFrom: 'limb' | 'free' | null;
+  ringCenterFrom: RingCenterFrom | null;
 }
 
 function isRecord(value: unknown): value is Record<string, unknown> {
@@ -43,6 +52,6 @@ export function readFitOptions(options: Record<string, unknown> | undefined): Fi
     fitTimeOffsets: Array.isArray(limb.fitTimeOffsets)
       ? limb.fitTimeOffsets.filter((s): s is string => typeof s === 'string')
       : null,
-    ringCenterFrom: ring.centerFrom === 'limb' || ring.centerFrom === 'free' ? ring.centerFrom : null,
+    ringCenterFrom: RING_CENTER_SOURCES.find((c) => c === ring.centerFrom) ?? null,
   };
 }

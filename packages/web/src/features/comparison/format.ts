@@ -9,3 +9,23 @@ export function fitColour(index: number): string {
 export function unwrapRaDeg(raDeg: number, referenceDeg: number): number {
   return raDeg - 360 * Math.round((raDeg - referenceDeg) / 360);
 }
+
+/**
+ * The 1σ ellipse of a 2 × 2 covariance [[xx, xy], [xy, yy]] (already in drawing units): semi-axes the
+ * square roots of its eigenvalues, the first along the angle ½·atan2(2xy, xx − yy) from +x (closed-form
+ * eigen-decomposition of a symmetric 2 × 2 matrix; Press et al., Numerical Recipes, 3rd ed., §15.6.5 for
+ * the ellipse, from memory). `angleDeg` turns +x towards +y, as SVG's rotate() does.
+ */
+export function sigmaEllipse(
+  xx: number,
+  yy: number,
+  xy: number,
+): { rx: number; ry: number; angleDeg: number } {
+  const mean = (xx + yy) / 2;
+  const half = Math.hypot((xx - yy) / 2, xy);
+  return {
+    rx: Math.sqrt(Math.max(0, mean + half)),
+    ry: Math.sqrt(Math.max(0, mean - half)),
+    angleDeg: (Math.atan2(2 * xy, xx - yy) * 90) / Math.PI,
+  };
+}

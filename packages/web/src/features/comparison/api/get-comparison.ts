@@ -4,6 +4,9 @@ import { apiRequest } from '@/lib/api-client';
 
 const valueSigmaSchema = z.object({ value: z.number(), sigma: z.number() });
 const raDecSchema = z.object({ raDeg: z.number(), decDeg: z.number() });
+/** A pole's 1σ: RA in degrees of RA (not multiplied by cos Dec), Dec, and their correlation. */
+export const poleSigmaSchema = z.object({ raDeg: z.number(), decDeg: z.number(), correlation: z.number() });
+export type PoleSigma = z.infer<typeof poleSigmaSchema>;
 
 export const comparisonFitSchema = z.object({
   fitId: z.string(),
@@ -32,7 +35,8 @@ export const comparisonFitSchema = z.object({
       radiusKm: valueSigmaSchema,
       openingAngleDeg: valueSigmaSchema,
       positionAngleDeg: valueSigmaSchema,
-      poles: z.array(raDecSchema),
+      // A fit stored before pole 1σ were computed has none (null).
+      poles: z.array(raDecSchema.extend({ uncertainty: poleSigmaSchema.nullable().optional() })),
     }),
   ),
 });

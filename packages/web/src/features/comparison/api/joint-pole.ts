@@ -8,11 +8,16 @@ export const jointPoleDocumentSchema = z.object({
   format: z.literal('limbus-joint/1'),
   ring: z.string(),
   pole: raDecSchema,
-  uncertainty: raDecSchema,
+  // A job solved before the correlation, χ²/dof scaling and notes were added has none of them.
+  uncertainty: raDecSchema.extend({ correlation: z.number().optional() }),
   radiusKm: z.number(),
   radiusSigmaKm: z.number(),
   chi2: z.number(),
   dof: z.number(),
+  reducedChi2: z.number().nullable().optional(),
+  sigmaScale: z.number().optional(),
+  familyDeltaChi2: z.number().optional(),
+  notes: z.array(z.string()).optional(),
   events: z.array(
     z.object({
       fitId: z.string(),

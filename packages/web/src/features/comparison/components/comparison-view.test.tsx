@@ -85,11 +85,19 @@ const JOB: JointPoleJob = {
     format: 'limbus-joint/1',
     ring: 'R1',
     pole: { raDeg: 41.02, decDeg: 26.97 },
-    uncertainty: { raDeg: 0.12, decDeg: 0.08 },
+    uncertainty: { raDeg: 0.12, decDeg: 0.08, correlation: -0.4 },
     radiusKm: 1080.1,
     radiusSigmaKm: 0.9,
     chi2: 31.2,
     dof: 35,
+    reducedChi2: 31.2 / 35,
+    sigmaScale: 1,
+    familyDeltaChi2: 381.5,
+    // The notes as the geometry writes them (packages/geometry/src/joint/joint-fit.ts).
+    notes: [
+      'χ² = 31.2 for 35 degrees of freedom (χ²/dof = 0.89): the 1-sigma are not rescaled.',
+      "The other pole family's best χ² differs by +381.5, more than 9: it is ruled out.",
+    ],
     events: [],
     ambiguityResolved: true,
     alternativePole: { raDeg: 80.1, decDeg: -5.2, chi2: 412.7 },
@@ -109,6 +117,43 @@ function server() {
 }
 
 describe('ComparisonView', () => {
+  it('ComparisonView shows each pole with its 1σ and correlation in the table, and its 1σ region on the chart', async () => {
+    const withSigma: Comparison = {
+      ...LATEST,
+      fits: LATEST.fits.map((f, i) =>
+        i === 0
+          ? {
+              ...f,
+              rings: f.rings.map((r) => ({
+                ...r,
+                poles: [
+                  {
+                    raDeg: 41.1,
+                    decDeg: 27.2,
+                    uncertainty: { raDeg: 0.35, decDeg: 0.22, correlation: 0.91 },
+                  },
+                  {
+                    raDeg: 80.3,
+                    decDeg: -5.4,
+                    uncertainty: { raDeg: 0.41, decDeg: 0.18, correlation: -0.87 },
+                  },
+                ],
+              })),
+            }
+          : f,
+      ),
+    };
+    stubFetch(() => jsonResponse(200, withSigma));
+    renderWithProviders(<ComparisonView bodyId="b1" canFitJointPole />);
+    const table = await screen.findByRole('table', { name: 'Parameters by event' });
+    const rows = within(table).getAllByRole('row');
+    expect(rows[1]).toHaveTextContent('41.10 ± 0.35, 27.20 ± 0.22 (ρ 0.91)');
+    // A fit stored before pole 1σ shows its values alone.
+    expect(rows[2]).toHaveTextContent('41.10, 27.20');
+    const chart = screen.getByRole('img', { name: /Pole candidates of ring R1/ });
+    expect(chart.querySelectorAll('[data-pole-sigma]')).toHaveLength(2);
+  });
+
   it('ComparisonView tables the latest approved fit of each event with ± 1σ against the event date, from the body route', async () => {
     const calls = server();
     renderWithProviders(<ComparisonView bodyId="b1" canFitJointPole />);
@@ -151,7 +196,10 @@ describe('ComparisonView', () => {
     await userEvent.click(screen.getByRole('button', { name: /Fit joint pole of ring R1 \(1 event\)/ }));
     const status = await screen.findByRole('status', { name: 'Joint pole' });
     expect(status).toHaveTextContent('RA 41.02° ± 0.12°, Dec 26.97° ± 0.08°');
-    expect(status).toHaveTextContent('The other pole is ruled out: its best χ² is larger by 381.5');
+    expect(status).toHaveTextContent('(χ²/dof = 0.89)');
+    expect(within(status).getByRole('list', { name: 'Joint pole notes' })).toHaveTextContent(
+      "The other pole family's best χ² differs by +381.5, more than 9: it is ruled out.",
+    );
     expect(calls.find((c) => c.method === 'POST')?.body).toEqual({ fitIds: ['a'], ring: 'R1' });
     const chart = screen.getByRole('img', { name: /and the joint pole$/ });
     expect(chart.querySelector('[data-role="joint-pole"] ellipse')).not.toBeNull();

@@ -33,16 +33,35 @@ const useStyles = makeStyles({
 });
 
 function AmbiguityText({ doc }: { doc: JointPoleDocument }) {
-  const delta = doc.alternativePole.chi2 - doc.chi2;
   const pole = `RA ${doc.pole.raDeg.toFixed(2)}° ± ${doc.uncertainty.raDeg.toFixed(2)}°, Dec ${doc.pole.decDeg.toFixed(2)}° ± ${doc.uncertainty.decDeg.toFixed(2)}°`;
+  const correlation =
+    doc.uncertainty.correlation === undefined
+      ? ''
+      : ` (RA–Dec correlation ${doc.uncertainty.correlation.toFixed(2)})`;
+  const reduced =
+    doc.reducedChi2 === undefined || doc.reducedChi2 === null
+      ? ''
+      : ` (χ²/dof = ${doc.reducedChi2.toFixed(2)})`;
   return (
-    <Body1>
-      Joint pole of ring {doc.ring}: {pole}; radius {doc.radiusKm.toFixed(1)} ± {doc.radiusSigmaKm.toFixed(1)}{' '}
-      km; χ² = {doc.chi2.toFixed(2)} for {doc.dof} degrees of freedom.{' '}
-      {doc.ambiguityResolved
-        ? `The other pole is ruled out: its best χ² is larger by ${delta.toFixed(1)} (more than 9).`
-        : `Both poles remain: the other family's best χ² is larger by only ${delta.toFixed(1)} (at most 9).`}
-    </Body1>
+    <>
+      <Body1>
+        Joint pole of ring {doc.ring}: {pole}
+        {correlation}; radius {doc.radiusKm.toFixed(1)} ± {doc.radiusSigmaKm.toFixed(1)} km; χ² ={' '}
+        {doc.chi2.toFixed(2)} for {doc.dof} degrees of freedom{reduced}.{' '}
+        {doc.notes === undefined
+          ? doc.ambiguityResolved
+            ? 'The other pole family is ruled out (its best χ² is larger by more than 9).'
+            : 'Both poles remain possible. Fit the joint pole again for the χ² difference and χ²/dof.'
+          : null}
+      </Body1>
+      {doc.notes === undefined ? null : (
+        <ul aria-label="Joint pole notes">
+          {doc.notes.map((n) => (
+            <li key={n}>{n}</li>
+          ))}
+        </ul>
+      )}
+    </>
   );
 }
 

@@ -32,6 +32,20 @@ function Cell({ v }: { v: ValueSigma | undefined }) {
   );
 }
 
+/** A pole's RA and Dec, each ± 1σ where the fit has them (fits stored before pole 1σ show the values). */
+function PoleCell({ pole }: { pole: ComparisonFit['rings'][number]['poles'][number] | undefined }) {
+  const styles = useStyles();
+  if (pole === undefined) return <TableCell className={styles.number}>—</TableCell>;
+  const u = pole.uncertainty;
+  return (
+    <TableCell className={styles.number}>
+      {u === null || u === undefined
+        ? `${pole.raDeg.toFixed(2)}, ${pole.decDeg.toFixed(2)}`
+        : `${formatValueSigma(pole.raDeg, u.raDeg)}, ${formatValueSigma(pole.decDeg, u.decDeg)} (ρ ${u.correlation.toFixed(2)})`}
+    </TableCell>
+  );
+}
+
 export interface ParameterTableProps {
   fits: ComparisonFit[];
   ringLabels: string[];
@@ -61,6 +75,8 @@ export function ParameterTable({ fits, ringLabels, selected, onToggle }: Paramet
               <TableHeaderCell key={`${label}-r`}>Ring {label} radius (km)</TableHeaderCell>,
               <TableHeaderCell key={`${label}-b`}>Ring {label} opening angle (°)</TableHeaderCell>,
               <TableHeaderCell key={`${label}-p`}>Ring {label} position angle (°)</TableHeaderCell>,
+              <TableHeaderCell key={`${label}-pole1`}>Ring {label} pole 1: RA, Dec (°)</TableHeaderCell>,
+              <TableHeaderCell key={`${label}-pole2`}>Ring {label} pole 2: RA, Dec (°)</TableHeaderCell>,
             ])}
           </TableRow>
         </TableHeader>
@@ -101,6 +117,8 @@ export function ParameterTable({ fits, ringLabels, selected, onToggle }: Paramet
                     <Cell key={`${label}-r`} v={ring?.radiusKm} />,
                     <Cell key={`${label}-b`} v={ring?.openingAngleDeg} />,
                     <Cell key={`${label}-p`} v={ring?.positionAngleDeg} />,
+                    <PoleCell key={`${label}-pole1`} pole={ring?.poles[0]} />,
+                    <PoleCell key={`${label}-pole2`} pole={ring?.poles[1]} />,
                   ];
                 })}
               </TableRow>

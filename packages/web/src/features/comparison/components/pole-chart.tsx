@@ -1,7 +1,8 @@
 import { makeStyles, tokens } from '@fluentui/react-components';
 import type { ComparisonFit } from '../api/get-comparison';
 import type { JointPoleDocument } from '../api/joint-pole';
-import { fitColour, unwrapRaDeg } from '../format';
+import type { PoleSigma } from '../api/get-comparison';
+import { fitColour, sigmaEllipse, unwrapRaDeg } from '../format';
 
 const W_PX = 480;
 const H_PX = 360;
@@ -18,6 +19,7 @@ interface Candidate {
   colour: string;
   solution: 1 | 2;
   label: string;
+  sigma: PoleSigma | null;
 }
 
 function ticks(lo: number, hi: number): number[] {
@@ -37,8 +39,9 @@ export interface PoleChartProps {
 }
 
 /**
- * Pole candidates on the sky: both solutions of each event's ring fit, and the joint pole with its 1σ
- * region (an ellipse of semi-axes σRA, σDec in these coordinates). RA grows to the left, as on the sky.
+ * Pole candidates on the sky: both solutions of each event's ring fit with their 1σ regions, and the joint
+ * pole with its own. A region is the ellipse of the (RA, Dec) covariance, correlation included, drawn in
+ * these coordinates. RA grows to the left, as on the sky.
  */
 export function PoleChart({ fits, ring, joint }: PoleChartProps) {
   const styles = useStyles();
@@ -53,12 +56,21 @@ export function PoleChart({ fits, ring, joint }: PoleChartProps) {
         colour: fitColour(i),
         solution: k === 0 ? 1 : 2,
         label: `${fit.eventTitle}, solution ${k + 1}`,
+        sigma: p.uncertainty ?? null,
       }),
     );
   });
   const refRa = joint?.pole.raDeg ?? candidates[0]?.raDeg ?? 0;
-  const ras = candidates.map((c) => unwrapRaDeg(c.raDeg, refRa));
-  const decs = candidates.map((c) => c.decDeg);
+  // Each candidate's 1σ extent is inside the frame, so every region is drawn whole.
+  const ras = candidates.flatMap((c) => {
+    const ra = unwrapRaDeg(c.raDeg, refRa);
+    const s = c.sigma?.raDeg ?? 0;
+    return [ra - s, ra + s];
+  });
+  const decs = candidates.flatMap((c) => [
+    c.decDeg - (c.sigma?.decDeg ?? 0),
+    c.decDeg + (c.sigma?.decDeg ?? 0),
+  ]);
   if (joint !== null) {
     ras.push(joint.pole.raDeg - joint.uncertainty.raDeg, joint.pole.raDeg + joint.uncertainty.raDeg);
     ras.push(unwrapRaDeg(joint.alternativePole.raDeg, refRa));
@@ -77,6 +89,22 @@ export function PoleChart({ fits, ring, joint }: PoleChartProps) {
   const x = (ra: number) => M.left + ((raHi - unwrapRaDeg(ra, refRa)) / (raHi - raLo)) * pw;
   const y = (dec: number) => M.top + ((decHi - dec) / (decHi - decLo)) * ph;
   const wrap360 = (v: number) => ((v % 360) + 360) % 360;
+  // Degrees to pixels along each axis (RA to the left, Dec up); the covariance scales by their product.
+  const sx = -pw / (raHi - raLo);
+  const sy = -ph / (decHi - decLo);
+  const region = (raDeg: number, decDeg: number, sigma: PoleSigma) => {
+    const c = sigma.correlation * sigma.raDeg * sigma.decDeg;
+    const e = sigmaEllipse((sx * sigma.raDeg) ** 2, (sy * sigma.decDeg) ** 2, sx * sy * c);
+    const cx = x(raDeg);
+    const cy = y(decDeg);
+    return {
+      cx,
+      cy,
+      rx: e.rx,
+      ry: e.ry,
+      transform: `rotate(${e.angleDeg.toFixed(2)} ${cx.toFixed(1)} ${cy.toFixed(1)})`,
+    };
+  };
 
   return (
     <svg
@@ -112,10 +140,10 @@ export function PoleChart({ fits, ring, joint }: PoleChartProps) {
       {joint !== null ? (
         <g data-role="joint-pole">
           <ellipse
-            cx={x(joint.pole.raDeg)}
-            cy={y(joint.pole.decDeg)}
-            rx={Math.abs(x(joint.pole.raDeg + joint.uncertainty.raDeg) - x(joint.pole.raDeg))}
-            ry={Math.abs(y(joint.pole.decDeg + joint.uncertainty.decDeg) - y(joint.pole.decDeg))}
+            {...region(joint.pole.raDeg, joint.pole.decDeg, {
+              ...joint.uncertainty,
+              correlation: joint.uncertainty.correlation ?? 0,
+            })}
             fill="#000"
             fillOpacity={0.12}
             stroke="#000"
@@ -145,6 +173,24 @@ export function PoleChart({ fits, ring, joint }: PoleChartProps) {
           </path>
         </g>
       ) : null}
+      {candidates.map((c) =>
+        c.sigma === null ? null : (
+          <ellipse
+            key={`${c.key}-sigma`}
+            data-pole-sigma={c.key}
+            {...region(c.raDeg, c.decDeg, c.sigma)}
+            fill="none"
+            stroke={c.colour}
+            strokeWidth={0.8}
+            strokeDasharray={c.solution === 1 ? undefined : '3 2'}
+          >
+            <title>
+              {c.label}: RA ± {c.sigma.raDeg.toFixed(2)}°, Dec ± {c.sigma.decDeg.toFixed(2)}° (1σ),
+              correlation {c.sigma.correlation.toFixed(2)}
+            </title>
+          </ellipse>
+        ),
+      )}
       {candidates.map((c) =>
         c.solution === 1 ? (
           <circle key={c.key} data-pole={c.key} cx={x(c.raDeg)} cy={y(c.decDeg)} r={4.5} fill={c.colour}>

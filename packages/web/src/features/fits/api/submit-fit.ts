@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { fitsQueryKey } from './get-fits';
 import { apiRequest } from '@/lib/api-client';
-import { LIMB_PARAMETERS } from '@/lib/fit-numbers';
+import { LIMB_PARAMETERS, RING_CENTER_SOURCES } from '@/lib/fit-numbers';
 
 const fixedSchema = z
   .object({
@@ -28,7 +28,7 @@ export const fitOptionsInputSchema = z.object({
       .min(0, 'model error must not be negative'),
     fitTimeOffsets: z.array(z.string()),
   }),
-  ring: z.object({ centerFrom: z.enum(['limb', 'free']) }),
+  ring: z.object({ centerFrom: z.enum(RING_CENTER_SOURCES) }),
 });
 
 export type FitOptionsInput = z.infer<typeof fitOptionsInputSchema>;

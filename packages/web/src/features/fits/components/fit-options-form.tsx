@@ -12,7 +12,12 @@ import { useState, type FormEvent } from 'react';
 import { fitOptionsInputSchema, type FitOptionsInput, useSubmitFit } from '../api/submit-fit';
 import { FormError } from '@/components/form-error';
 import { errorMessage } from '@/components/form-errors';
-import { LIMB_PARAMETERS, type LimbParameterKey } from '@/lib/fit-numbers';
+import {
+  LIMB_PARAMETERS,
+  RING_CENTER_SOURCES,
+  type LimbParameterKey,
+  type RingCenterFrom,
+} from '@/lib/fit-numbers';
 
 const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM, maxWidth: '44em' },
@@ -53,7 +58,7 @@ export function FitOptionsForm({ eventId, stationCodes, onQueued }: FitOptionsFo
   const [fixed, setFixed] = useState<FixedDraft>(emptyFixed);
   const [modelError, setModelError] = useState('0');
   const [offsets, setOffsets] = useState<string[]>([]);
-  const [centerFrom, setCenterFrom] = useState<'limb' | 'free'>('limb');
+  const [centerFrom, setCenterFrom] = useState<RingCenterFrom>('limb');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const submit = useSubmitFit(eventId, onQueued);
 
@@ -138,10 +143,11 @@ export function FitOptionsForm({ eventId, stationCodes, onQueued }: FitOptionsFo
       <Field label="Ring centre">
         <RadioGroup
           value={centerFrom}
-          onChange={(_, data) => setCenterFrom(data.value === 'free' ? 'free' : 'limb')}
+          onChange={(_, data) => setCenterFrom(RING_CENTER_SOURCES.find((c) => c === data.value) ?? 'limb')}
         >
           <Radio value="limb" label="Same as the limb centre" />
           <Radio value="free" label="Fitted freely" />
+          <Radio value="joint" label="Fitted with the limb, one shared centre (joint fit)" />
         </RadioGroup>
       </Field>
       {submit.isError ? (

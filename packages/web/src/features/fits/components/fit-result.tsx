@@ -15,7 +15,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { Solution } from '@limbus/geometry';
-import { LIMB_PARAMETERS, readFitOptions } from '@/lib/fit-numbers';
+import { LIMB_PARAMETERS, readFitOptions, RING_CENTER_WORDS } from '@/lib/fit-numbers';
 import { formatValueSigma } from '@/lib/value-sigma';
 
 const useStyles = makeStyles({
@@ -33,7 +33,8 @@ export function FitResult({
 }) {
   const styles = useStyles();
   const limb = solution.limb;
-  const fixed = readFitOptions(options).fixed ?? {};
+  const read = readFitOptions(options);
+  const fixed = read.fixed ?? {};
   const cautions = cautionsOf(solution, options);
   return (
     <div className={styles.result}>
@@ -98,35 +99,65 @@ export function FitResult({
           </div>
         </>
       )}
-      {solution.rings.map((ring) => (
-        <section key={ring.ring} className={styles.result} aria-label={`Ring ${ring.ring}`}>
-          <Subtitle2 as="h4">Ring {ring.ring}</Subtitle2>
-          <Body1 as="p">
-            Radius {formatValueSigma(ring.radiusKm, ring.uncertainty.radiusKm)} km, opening angle{' '}
-            {formatValueSigma(ring.openingAngleDeg, ring.uncertainty.openingAngleDeg)}°, position angle{' '}
-            {formatValueSigma(ring.positionAngleDeg, ring.uncertainty.positionAngleDeg)}°; χ²{' '}
-            {ring.chi2.toFixed(2)} for {ring.dof} dof.
-          </Body1>
-          <Table aria-label={`Pole solutions of ring ${ring.ring}`} size="small">
-            <TableHeader>
-              <TableRow>
-                <TableHeaderCell>Pole</TableHeaderCell>
-                <TableHeaderCell>RA (°)</TableHeaderCell>
-                <TableHeaderCell>Dec (°)</TableHeaderCell>
-              </TableRow>
-            </TableHeader>
-            <TableBody>
-              {ring.poles.map((pole, i) => (
-                <TableRow key={i}>
-                  <TableCell>{i === 0 ? 'First' : 'Second'} solution</TableCell>
-                  <TableCell className={styles.number}>{pole.raDeg.toFixed(2)}</TableCell>
-                  <TableCell className={styles.number}>{pole.decDeg.toFixed(2)}</TableCell>
+      {solution.rings.map((ring) => {
+        const from = ring.centerFrom ?? read.ringCenterFrom;
+        const u = ring.uncertainty;
+        const centre =
+          u.centerFKm === undefined || u.centerGKm === undefined
+            ? `f = ${ring.centerFKm.toFixed(2)} km, g = ${ring.centerGKm.toFixed(2)} km`
+            : `f = ${formatValueSigma(ring.centerFKm, u.centerFKm)} km, g = ${formatValueSigma(ring.centerGKm, u.centerGKm)} km`;
+        const poleSigmas = ring.poles.every((p) => p.uncertainty !== undefined);
+        return (
+          <section key={ring.ring} className={styles.result} aria-label={`Ring ${ring.ring}`}>
+            <Subtitle2 as="h4">Ring {ring.ring}</Subtitle2>
+            <Body1 as="p">
+              Radius {formatValueSigma(ring.radiusKm, u.radiusKm)} km, opening angle{' '}
+              {formatValueSigma(ring.openingAngleDeg, u.openingAngleDeg)}°, position angle{' '}
+              {formatValueSigma(ring.positionAngleDeg, u.positionAngleDeg)}°; χ² {ring.chi2.toFixed(2)} for{' '}
+              {ring.dof} dof.
+            </Body1>
+            <Body1 as="p" aria-label={`Centre of ring ${ring.ring}`}>
+              Centre {centre}
+              {from === null ? '' : `, ${RING_CENTER_WORDS[from]}`}.
+            </Body1>
+            <Table aria-label={`Pole solutions of ring ${ring.ring}`} size="small">
+              <TableHeader>
+                <TableRow>
+                  <TableHeaderCell>Pole</TableHeaderCell>
+                  <TableHeaderCell>RA ± 1σ (°)</TableHeaderCell>
+                  <TableHeaderCell>Dec ± 1σ (°)</TableHeaderCell>
+                  <TableHeaderCell>RA–Dec correlation</TableHeaderCell>
                 </TableRow>
-              ))}
-            </TableBody>
-          </Table>
-        </section>
-      ))}
+              </TableHeader>
+              <TableBody>
+                {ring.poles.map((pole, i) => (
+                  <TableRow key={i}>
+                    <TableCell>{i === 0 ? 'First' : 'Second'} solution</TableCell>
+                    <TableCell className={styles.number}>
+                      {pole.uncertainty === undefined
+                        ? pole.raDeg.toFixed(2)
+                        : formatValueSigma(pole.raDeg, pole.uncertainty.raDeg)}
+                    </TableCell>
+                    <TableCell className={styles.number}>
+                      {pole.uncertainty === undefined
+                        ? pole.decDeg.toFixed(2)
+                        : formatValueSigma(pole.decDeg, pole.uncertainty.decDeg)}
+                    </TableCell>
+                    <TableCell className={styles.number}>
+                      {pole.uncertainty === undefined ? '—' : pole.uncertainty.correlation.toFixed(2)}
+                    </TableCell>
+                  </TableRow>
+                ))}
+              </TableBody>
+            </Table>
+            {poleSigmas ? null : (
+              <Body1 as="p">
+                This fit was stored before pole 1σ were computed; run it again to get them.
+              </Body1>
+            )}
+          </section>
+        );
+      })}
       {solution.astrometry === null ? null : (
         <Body1 as="p" aria-label="Astrometric offset">
           Astrometric offset at {solution.astrometry.referenceTimeUtc}: Δα cos δ ={' '}
@@ -189,8 +220,20 @@ export function cautionsOf(solution: Solution, options: Record<string, unknown> 
   }
   if (read.modelErrorKm !== null && read.modelErrorKm > 0)
     cautions.push(`A model error of ${read.modelErrorKm} km was added to every endpoint.`);
-  if (solution.rings.length > 0 && read.ringCenterFrom !== 'free')
-    cautions.push('Ring centres were taken from the limb centre (assumed concentric).');
+  const from = solution.rings[0]?.centerFrom ?? read.ringCenterFrom ?? 'limb';
+  if (solution.rings.length > 0 && from === 'limb')
+    cautions.push(
+      "Ring centres were taken from the limb centre (assumed concentric); the rings' radius, opening angle and pole 1σ leave out the centre's own error (a joint fit carries it).",
+    );
+  if (solution.rings.length > 0 && from === 'joint')
+    cautions.push(
+      'The limb and the rings were fitted together about one shared centre (assumed concentric); their 1σ come from the linearised covariance of that fit, not from the sampler.',
+    );
+  for (const ring of solution.rings)
+    if (ring.dof > 0 && ring.chi2 / ring.dof > 3)
+      cautions.push(
+        `Ring ${ring.ring}: χ²/dof is above 3: its dips scatter more than their sigmas allow${from === 'limb' ? ' (is the ring really centred on the limb centre?)' : ''}.`,
+      );
   if (solution.rings.length > 0)
     cautions.push('Each ring gives two pole solutions; the occultation alone cannot tell them apart.');
   if (cautions.length === 0) cautions.push('Nothing was fixed; the ellipse model assumes a smooth limb.');

@@ -10,7 +10,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { Solution } from '@limbus/geometry';
-import { LIMB_PARAMETERS, readFitOptions } from '@/lib/fit-numbers';
+import { LIMB_PARAMETERS, readFitOptions, RING_CENTER_WORDS } from '@/lib/fit-numbers';
 import { formatValueSigma } from '@/lib/value-sigma';
 
 const useStyles = makeStyles({
@@ -104,13 +104,7 @@ function optionLines(solution: Solution, options: Record<string, unknown> | unde
     `Held fixed: ${held}`,
     `Model error: ${read.modelErrorKm === null ? "the event's default" : `${read.modelErrorKm} km`}`,
     `Clock offsets fitted for: ${clocks.length === 0 ? 'no station' : clocks.join(', ')}`,
-    `Ring centres: ${
-      read.ringCenterFrom === null
-        ? "the event's default"
-        : read.ringCenterFrom === 'free'
-          ? 'fitted freely'
-          : 'taken from the limb centre'
-    }`,
+    `Ring centres: ${read.ringCenterFrom === null ? "the event's default" : RING_CENTER_WORDS[read.ringCenterFrom]}`,
   ];
 }
 

@@ -104,6 +104,17 @@ async function fillForm() {
 }
 
 describe('ShapePanel', () => {
+  it('ShapePanel shows the fit\u2019s cautions (χ²/dof above 3, an axis order held) in a warning', async () => {
+    const caution =
+      'χ²/dof is 15101.6 (χ² = 75508.0 for 5 degrees of freedom), above 3: the limb ellipses differ from this ellipsoid by more than their 1-sigma allow.';
+    server(() => jsonResponse(200, { ...VIEW, cautions: [caution] }));
+    renderWithProviders(<ShapePanel bodyId="b1" />);
+    await fillForm();
+    await userEvent.click(screen.getByRole('button', { name: 'Fit shape' }));
+    const list = await screen.findByRole('list', { name: 'Shape cautions' });
+    expect(list).toHaveTextContent(caution);
+  });
+
   it(
     'ShapePanel sends one fit per event from the body route, the pole and rotation, and tables a, b, c ± 1σ and residuals',
     { timeout: 20_000 },

@@ -238,7 +238,19 @@ function Results({
           </MessageBarBody>
         </MessageBar>
       )}
-      {[...view.cautions, ...result.warnings].map((w) => (
+      {view.cautions.length === 0 ? null : (
+        <MessageBar intent="warning" layout="multiline">
+          <MessageBarBody>
+            <MessageBarTitle>Cautions</MessageBarTitle>
+            <ul aria-label="Shape cautions">
+              {view.cautions.map((c) => (
+                <li key={c}>{c}</li>
+              ))}
+            </ul>
+          </MessageBarBody>
+        </MessageBar>
+      )}
+      {result.warnings.map((w) => (
         <Caption1 key={w}>{w}</Caption1>
       ))}
       <Silhouettes pairs={pairs} />
