@@ -77,8 +77,9 @@ export class AuthController {
   @ApiBody({ schema: openApiSchema(PasswordResetRequestSchema) })
   async requestReset(
     @Body(new ZodValidationPipe(PasswordResetRequestSchema)) body: PasswordResetRequestDto,
+    @Req() req: Request,
   ): Promise<void> {
-    await this.auth.requestPasswordReset(body.email);
+    await this.auth.requestPasswordReset(body.email, req.ip ?? 'unknown');
   }
 
   @Post('password-reset/confirm')

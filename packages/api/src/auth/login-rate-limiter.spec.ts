@@ -7,10 +7,11 @@ class ClockedStore implements FailureCounterStore {
   nowSeconds = 0;
   private readonly windows = new Map<string, { count: number; endsAt: number }>();
 
-  async hit(key: string, windowSeconds: number): Promise<void> {
+  async hit(key: string, windowSeconds: number): Promise<number> {
     const w = this.live(key);
-    if (w) w.count += 1;
-    else this.windows.set(key, { count: 1, endsAt: this.nowSeconds + windowSeconds });
+    if (w) return (w.count += 1);
+    this.windows.set(key, { count: 1, endsAt: this.nowSeconds + windowSeconds });
+    return 1;
   }
 
   async peek(key: string): Promise<{ count: number; ttlSeconds: number }> {

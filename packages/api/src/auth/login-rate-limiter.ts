@@ -2,7 +2,8 @@ import { TooManyRequestsError } from '../common/domain-errors';
 
 /** A counter that expires `windowSeconds` after its first hit (a fixed window per key). */
 export interface FailureCounterStore {
-  hit(key: string, windowSeconds: number): Promise<void>;
+  /** Counts one hit and resolves to the count in the window, this hit included. */
+  hit(key: string, windowSeconds: number): Promise<number>;
   /** Current count and seconds until the window ends; count 0 when there is no window. */
   peek(key: string): Promise<{ count: number; ttlSeconds: number }>;
   clear(key: string): Promise<void>;

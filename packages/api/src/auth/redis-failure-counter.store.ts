@@ -2,7 +2,7 @@ import type { Redis } from 'ioredis';
 import type { FailureCounterStore } from './login-rate-limiter';
 
 /**
- * Failure counters live in Redis rather than a table: they are short-lived, shared by every API
+ * Failure and request counters live in Redis rather than a table: they are short-lived, shared by every API
  * process, and expire by themselves.
  */
 export class RedisFailureCounterStore implements FailureCounterStore {
@@ -11,13 +11,16 @@ export class RedisFailureCounterStore implements FailureCounterStore {
     private readonly prefix = 'limbus:',
   ) {}
 
-  async hit(key: string, windowSeconds: number): Promise<void> {
+  async hit(key: string, windowSeconds: number): Promise<number> {
     // NX keeps the window anchored at the first failure instead of sliding with every attempt.
-    await this.redis
+    const results = await this.redis
       .multi()
       .incr(this.prefix + key)
       .expire(this.prefix + key, windowSeconds, 'NX')
       .exec();
+    const [error, count] = results?.[0] ?? [new Error('the Redis transaction was discarded'), null];
+    if (error) throw error;
+    return Number(count);
   }
 
   async peek(key: string): Promise<{ count: number; ttlSeconds: number }> {

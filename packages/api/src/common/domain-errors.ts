@@ -61,6 +61,19 @@ export class TooManyRequestsError extends DomainError {
   }
 }
 
+/** A request body of a media type the route does not read (e.g. text/plain on a JSON route). */
+export class UnsupportedMediaTypeError extends DomainError {
+  readonly statusCode = 415;
+}
+
+/**
+ * A request that repeats an earlier one's Idempotency-Key with another body: answering with the first
+ * request's result would silently drop what this one asked for.
+ */
+export class UnprocessableError extends DomainError {
+  readonly statusCode = 422;
+}
+
 export class UnavailableError extends DomainError {
   readonly statusCode = 503;
 }

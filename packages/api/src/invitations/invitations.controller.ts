@@ -1,7 +1,7 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, Post, Res } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Post, Req, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { invitationViewSchema, publicInvitationViewSchema } from '@limbus/schema';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 import { z } from 'zod';
 import { SessionViewSchema } from '../teams/dto/team.views';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
@@ -85,8 +85,10 @@ export class InvitationsController {
   async accept(
     @Param('token') token: string,
     @Body(new ZodValidationPipe(AcceptInvitationSchema)) body: AcceptInvitationDto,
+    @Req() req: Request,
     @Res({ passthrough: true }) res: Response,
   ): Promise<SessionView> {
-    return sendSession(res, await this.invitations.accept(token, body.name, body.password), this.config);
+    const session = await this.invitations.accept(token, body.name, body.password, req.ip ?? 'unknown');
+    return sendSession(res, session, this.config);
   }
 }

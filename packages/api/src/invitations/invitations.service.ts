@@ -144,12 +144,19 @@ export class InvitationsService {
   /**
    * A new address gets an account with the given name and password; an existing account must
    * prove it owns the address by its current password, and then gains every role of the invitation.
+   * That password check is the sign-in's, under the same limiter (429 with Retry-After), so the
+   * invitation is no way around the limit on guessing passwords.
    */
-  async accept(token: string, name: string | undefined, password: string): Promise<Session> {
+  async accept(
+    token: string,
+    name: string | undefined,
+    password: string,
+    clientAddress: string,
+  ): Promise<Session> {
     const invitation = await this.open(token);
     let user = await this.users.findByEmail(invitation.email);
     if (user) {
-      if (!(await this.passwords.verify(user.passwordHash, password))) {
+      if (!(await this.auth.checkPassword(invitation.email, user, password, clientAddress))) {
         throw new UnauthorizedError('This address already has an account: enter its current password');
       }
     } else {

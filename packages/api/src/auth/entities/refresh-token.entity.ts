@@ -2,7 +2,11 @@ import { randomUUID } from 'node:crypto';
 import { Entity, Index, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
 import { User } from '../../users/entities/user.entity';
 
-/** Only the SHA-256 of the cookie value is stored, so a leaked table cannot sign anyone in. */
+/**
+ * Only the SHA-256 of the cookie value is stored, so a leaked table cannot sign anyone in. Each sign-in
+ * starts a family; every rotation of it stays in that family, which ends whole when one of its tokens is
+ * shown after it was rotated.
+ */
 @Entity({ tableName: 'refresh_tokens' })
 export class RefreshToken {
   @PrimaryKey({ type: 'string', length: 36 })
@@ -14,6 +18,10 @@ export class RefreshToken {
   @Property({ type: 'string', length: 64, unique: true })
   tokenHash: string;
 
+  @Index()
+  @Property({ type: 'string', length: 36 })
+  familyId: string;
+
   @Property({ type: 'datetime' })
   expiresAt: Date;
 
@@ -24,9 +32,10 @@ export class RefreshToken {
   @Property({ type: 'datetime' })
   createdAt: Date & Opt = new Date();
 
-  constructor(user: User, tokenHash: string, expiresAt: Date) {
+  constructor(user: User, tokenHash: string, expiresAt: Date, familyId: string) {
     this.user = user;
     this.tokenHash = tokenHash;
     this.expiresAt = expiresAt;
+    this.familyId = familyId;
   }
 }
