@@ -10,6 +10,7 @@ import { ComparisonsModule } from './comparisons/comparisons.module';
 import { ChordsModule } from './chords/chords.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
 import { HttpErrorFilter } from './common/http-error.filter';
+import { redactUrl } from './common/redact-url';
 import { AppConfig } from './config/app-config';
 import { ConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
@@ -42,12 +43,13 @@ export function coreImports(config: AppConfig): DynamicModule['imports'] {
         {
           level: config.logLevel,
           // One line per request says who asked for what and how it went; headers stay out (they
-          // cost a read request a tenth of its time), and tokens and cookies must never get in.
+          // cost a read request a tenth of its time), and tokens and cookies must never get in: the URL
+          // loses its secret query values and path tokens (redactUrl).
           serializers: {
             req: (req: { id: unknown; method: string; url: string; remoteAddress?: string }) => ({
               id: req.id,
               method: req.method,
-              url: req.url,
+              url: redactUrl(req.url),
               remoteAddress: req.remoteAddress,
             }),
             res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
