@@ -1,14 +1,19 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import { Reflector } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import express, { type NextFunction, type Request, type Response } from 'express';
 import helmet from 'helmet';
 import { Logger } from 'nestjs-pino';
+import { ContentTypeGuard } from './common/content-type.guard';
 import type { AppConfig } from './config/app-config';
 
 export const API_PREFIX = 'api';
 const BODY_LIMIT = '1mb';
+
+const isApi = (req: Request): boolean =>
+  req.path === `/${API_PREFIX}` || req.path.startsWith(`/${API_PREFIX}/`);
 
 /**
  * Everything main.ts does to the application before listening, shared with the e2e tests so they
@@ -26,6 +31,13 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
       contentSecurityPolicy: { directives: { upgradeInsecureRequests: https ? [] : null } },
     }),
   );
+  // Every API answer depends on who asks (or is a sign-in, a token, a refusal): no browser or proxy may
+  // keep it, or the next person at a shared machine could be shown it. The client's files keep their caching.
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (isApi(req)) res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  app.useGlobalGuards(new ContentTypeGuard(app.get(Reflector)));
   app.useBodyParser('json', { limit: BODY_LIMIT });
   app.useBodyParser('urlencoded', { limit: BODY_LIMIT, extended: false });
   app.setGlobalPrefix(API_PREFIX);
@@ -57,7 +69,6 @@ function serveClient(app: NestExpressApplication, webDistDir: string): void {
     app.get(Logger).warn(`no client build at ${webDistDir}; serving the API only`);
     return;
   }
-  const isApi = (req: Request) => req.path === `/${API_PREFIX}` || req.path.startsWith(`/${API_PREFIX}/`);
   // API requests skip the file lookup: a stat of the client folder on every read is pure cost.
   const assets = express.static(webDistDir, { index: false, fallthrough: true });
   app.use((req: Request, res: Response, next: NextFunction) =>
