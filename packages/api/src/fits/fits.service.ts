@@ -7,9 +7,9 @@ import type { Queue } from 'bullmq';
 import { Observable } from 'rxjs';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
-import { ValidationError, NotFoundError } from '../common/domain-errors';
+import { NotFoundError, UnprocessableError, ValidationError } from '../common/domain-errors';
 import { sha256Hex } from '../common/tokens';
-import { eventDataSha256 } from '../events/event-data';
+import { canonicalJson, eventDataSha256 } from '../events/event-data';
 import { eventFileOf, loadEventRows } from '../events/event-rows';
 import { EventsService } from '../events/events.service';
 import { enqueueOrLeaveToSweep } from '../queue/bounded-enqueue';
@@ -19,6 +19,18 @@ import { FitRun } from './entities/fit-run.entity';
 import { overlayFitOptions } from './fit-options';
 import { enqueueFit, type FitJobData } from './fit-queue';
 import { fitSummaryView, type FitSummaryView, type FitView, fitView } from './fit-view';
+
+/**
+ * The fit an earlier request with the same Idempotency-Key made, when this request's body is the same.
+ * Fits stored before bodies were hashed (no hash) are returned as before.
+ */
+function replayed(fit: FitRun, requestSha256: string): { id: string } {
+  if (fit.requestSha256 !== null && fit.requestSha256 !== requestSha256)
+    throw new UnprocessableError(
+      'This Idempotency-Key was already used for a fit with other options: send a new key for a new request',
+    );
+  return { id: fit.id };
+}
 
 /** How often the progress stream looks at the fit row; the row, not this process, is the truth. */
 const STREAM_POLL_MS = 150;
@@ -37,7 +49,10 @@ export class FitsService {
 
   /**
    * The snapshot is the event file built from the rows now, so later edits do not reach a queued
-   * fit. A retried submit with the same Idempotency-Key (same user, same event) returns the first fit.
+   * fit. A retried submit with the same Idempotency-Key (same user, same event) and the same body
+   * returns the first fit; the same key with another body answers 422 (answering with the first fit
+   * would silently drop what this request asked for). The body is compared by the SHA-256 of its
+   * canonical JSON as validated (defaults applied, key order ignored).
    */
   async submit(
     user: AuthUser,
@@ -46,9 +61,10 @@ export class FitsService {
     idempotencyKey: string | null,
   ): Promise<{ id: string }> {
     const event = await this.events.find(eventId);
+    const requestSha256 = sha256Hex(canonicalJson(body));
     if (idempotencyKey) {
       const existing = await this.em.findOne(FitRun, { event, createdBy: user.id, idempotencyKey });
-      if (existing) return { id: existing.id };
+      if (existing) return replayed(existing, requestSha256);
     }
     const rows = await loadEventRows(this.em, event);
     const file = eventFileOf(
@@ -77,6 +93,7 @@ export class FitsService {
       seed: validation.event.fit.seed ?? DEFAULT_SEED,
       idempotencyKey,
     });
+    fit.requestSha256 = requestSha256;
     try {
       await this.em.transactional(async (em) => {
         em.persist(fit);
@@ -97,7 +114,7 @@ export class FitsService {
         const winner = await this.em
           .fork()
           .findOne(FitRun, { event: eventId, createdBy: user.id, idempotencyKey });
-        if (winner) return { id: winner.id };
+        if (winner) return replayed(winner, requestSha256);
       }
       throw error;
     }

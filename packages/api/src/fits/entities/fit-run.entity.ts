@@ -64,6 +64,13 @@ export class FitRun {
   @Property({ type: 'string', length: 200, nullable: true })
   idempotencyKey: string | null;
 
+  /**
+   * SHA-256 of the submit body's canonical JSON, so a retry with the same Idempotency-Key can be told from
+   * another request reusing the key; null for fits submitted before it was kept.
+   */
+  @Property({ type: 'string', length: 64, nullable: true })
+  requestSha256: (string & Opt) | null = null;
+
   @Property({ type: 'integer' })
   attempts: number & Opt = 0;
 
