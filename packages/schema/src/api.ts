@@ -7,12 +7,28 @@ import { z } from 'zod';
 import { bodyNameSchema, createBodyPayloadSchema } from './bodies.js';
 import { eventFileSchema } from './event-file.js';
 import { parseUtcTime } from './iso-time.js';
+import {
+  apertureMmSchema,
+  exposureSecondsSchema,
+  parallaxMasSchema,
+  properMotionMasPerYearSchema,
+} from './physical-ranges.js';
 import { coordinatorStationStatusSchema, siteFields } from './planning.js';
 import { messageText } from './team.js';
 import { lineText, noteText, TEXT_LIMITS } from './text.js';
 import { REPORT_RESULT_VALUES } from './views.js';
 
 const shape = eventFileSchema.shape;
+
+/**
+ * The event file's star with the payload's narrower ranges (physical-ranges.ts): a form is held to a
+ * catalogue star's values, where a file refuses only the impossible.
+ */
+const starPayloadSchema = shape.star.extend({
+  pmRaCosDecMasPerYear: properMotionMasPerYearSchema('pmRaCosDecMasPerYear').default(0),
+  pmDecMasPerYear: properMotionMasPerYearSchema('pmDecMasPerYear').default(0),
+  parallaxMas: parallaxMasSchema.default(0),
+});
 
 const utcTime = z.string().refine((s) => parseUtcTime(s) !== null, {
   message: 'not an ISO 8601 UTC time (expected e.g. "2028-03-14T02:11:04.25Z", ending in Z)',
@@ -40,7 +56,7 @@ export const createEventPayloadSchema = z
     newBody: createBodyPayloadSchema.optional(),
     title: shape.title,
     eventTimeUtc: utcTime.optional(),
-    star: shape.star,
+    star: starPayloadSchema,
     ephemeris: shape.ephemeris,
     earthRotation: shape.earthRotation,
     fitDefaults: shape.fit,
@@ -56,7 +72,7 @@ export const patchEventPayloadSchema = z.strictObject({
   title: shape.title.optional(),
   bodyId: id.optional(),
   eventTimeUtc: utcTime.optional(),
-  star: shape.star.optional(),
+  star: starPayloadSchema.optional(),
   ephemeris: shape.ephemeris.optional(),
   earthRotation: shape.earthRotation.unwrap().optional(),
   fitDefaults: shape.fit.unwrap().optional(),
@@ -99,9 +115,9 @@ const stationFields = {
   status: coordinatorStationStatusSchema.optional(),
   observerId: id.nullable().optional(),
   observerName: lineText(TEXT_LIMITS.stationDetail, 'observer name').nullable().optional(),
-  apertureMm: z.number().positive('apertureMm must be greater than zero').nullable().optional(),
+  apertureMm: apertureMmSchema.nullable().optional(),
   camera: lineText(TEXT_LIMITS.stationDetail, 'camera').nullable().optional(),
-  exposureSeconds: z.number().positive('exposureSeconds must be greater than zero').nullable().optional(),
+  exposureSeconds: exposureSecondsSchema.nullable().optional(),
   timeSource: lineText(TEXT_LIMITS.stationDetail, 'time source').nullable().optional(),
 };
 export const createStationPayloadSchema = z.strictObject(stationFields);

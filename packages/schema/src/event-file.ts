@@ -8,6 +8,12 @@ import { LIMB_PARAMETERS, RING_CENTER_SOURCES, type EventInput } from '@limbus/g
 
 import { bodyDesignationSchema, bodyNameSchema } from './bodies.js';
 import { parseUtcTime, parseZonelessTime } from './iso-time.js';
+import {
+  angularDiameterMasSchema,
+  fileParallaxMasSchema,
+  fileProperMotionMasPerYearSchema,
+  fileStationHeightMSchema,
+} from './physical-ranges.js';
 import { formatPath, plainErrorMap, problemsFromIssues, type PathSegment, type Problem } from './problems.js';
 import { lineText, TEXT_LIMITS } from './text.js';
 
@@ -161,10 +167,10 @@ export const eventFileSchema = z.strictObject({
     raDeg,
     decDeg,
     catalogEpochJyear: finite().default(2016.0),
-    pmRaCosDecMasPerYear: finite().default(0),
-    pmDecMasPerYear: finite().default(0),
-    parallaxMas: finite().default(0),
-    angularDiameterMas: finite().min(0, 'angularDiameterMas must not be negative').optional(),
+    pmRaCosDecMasPerYear: fileProperMotionMasPerYearSchema('pmRaCosDecMasPerYear').default(0),
+    pmDecMasPerYear: fileProperMotionMasPerYearSchema('pmDecMasPerYear').default(0),
+    parallaxMas: fileParallaxMasSchema.default(0),
+    angularDiameterMas: angularDiameterMasSchema.optional(),
   }),
   ephemeris,
   earthRotation: z
@@ -175,7 +181,9 @@ export const eventFileSchema = z.strictObject({
         .default(0),
     })
     .prefault({}),
-  stations: z.array(z.strictObject({ id: label('station id'), latDeg, lonDeg, heightM: finite() })),
+  stations: z.array(
+    z.strictObject({ id: label('station id'), latDeg, lonDeg, heightM: fileStationHeightMSchema }),
+  ),
   chords: z
     .array(z.discriminatedUnion('type', [positiveChord, negativeChord]))
     .min(1, 'at least one chord is needed'),

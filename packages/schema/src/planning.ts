@@ -7,6 +7,7 @@
 
 import { z } from 'zod';
 
+import { stationHeightMSchema } from './physical-ranges.js';
 import { lineText, noteText, TEXT_LIMITS } from './text.js';
 
 /**
@@ -45,7 +46,7 @@ export const siteFields = {
   code: lineText(TEXT_LIMITS.stationCode, 'station id'),
   latDeg: latDegSchema,
   lonDeg: lonDegSchema,
-  heightM: z.number(),
+  heightM: stationHeightMSchema,
 };
 
 /** `POST /api/events/:eventId/site-proposals`: an observer's own site; they become its observer. */
