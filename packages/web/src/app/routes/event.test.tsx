@@ -92,6 +92,8 @@ function renderDesk(me: MeView, url: string) {
 const EVERY_ROLE_SECTIONS = [
   'Setup',
   'Stations & reports',
+  'Shadow path',
+  'Briefing',
   'Chords',
   'Sky plane',
   'Light curves',

@@ -14,6 +14,7 @@ import { Suspense, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useSignedIn } from './app-layout';
 import { EventDynamicsSection, EventLightCurvesSection, EventSetupSection } from './event-analysis';
+import { EventBriefingSection, EventShadowPathSection } from './event-shadow-path';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { RouterLink } from '@/components/router-link';
 import { ScrollArea } from '@/components/scroll-area';
@@ -40,6 +41,8 @@ import { utcText } from '@/lib/utc-text';
 const SECTIONS = [
   { id: 'setup', label: 'Setup' },
   { id: 'stations', label: 'Stations & reports' },
+  { id: 'shadow-path', label: 'Shadow path' },
+  { id: 'briefing', label: 'Briefing' },
   { id: 'chords', label: 'Chords' },
   { id: 'sky', label: 'Sky plane' },
   { id: 'light-curves', label: 'Light curves' },
@@ -219,6 +222,8 @@ export function EventRoute() {
             />
           </>
         ) : null}
+        {section === 'shadow-path' ? <EventShadowPathSection key={e.id} event={e} /> : null}
+        {section === 'briefing' ? <EventBriefingSection key={e.id} event={e} /> : null}
         {section === 'chords' ? (
           <ChordTable
             eventId={e.id}

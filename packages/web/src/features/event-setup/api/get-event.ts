@@ -1,3 +1,4 @@
+import { STATION_STATUSES } from '@limbus/schema/planning';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
@@ -23,6 +24,10 @@ export const stationSchema = z.object({
   camera: z.string().nullable().optional(),
   exposureSeconds: z.number().nullable().optional(),
   timeSource: z.string().nullable().optional(),
+  /** Planned ahead or proposed by an observer; stations from before planning are observing. */
+  status: z.enum(STATION_STATUSES).default('observing'),
+  /** What an observer wrote with a proposed site. */
+  notes: z.string().nullable().optional(),
 });
 
 export const eventDetailSchema = z.object({
