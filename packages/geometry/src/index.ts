@@ -4,6 +4,7 @@ export * from './lightcurve/index.js';
 export * from './joint/index.js';
 export * from './shape/index.js';
 export * from './fit/index.js';
+export * from './placement/index.js';
 export * from './predict/index.js';
 export { projectEvent } from './project.js';
 export { shadowMotionAt } from './shadow-motion.js';
