@@ -4,10 +4,19 @@
 
 import { z } from 'zod';
 
-import { LIMB_PARAMETERS, RING_CENTER_SOURCES, type EventInput } from '@limbus/geometry';
+import {
+  buildEphemeris,
+  GeometryInputError,
+  LIMB_PARAMETERS,
+  predictionWindow,
+  RING_CENTER_SOURCES,
+  type EventInput,
+  type PredictionSettings,
+} from '@limbus/geometry';
 
 import { bodyDesignationSchema, bodyNameSchema } from './bodies.js';
 import { parseUtcTime, parseZonelessTime } from './iso-time.js';
+import { predictionSettingsSchema } from './prediction.js';
 import {
   angularDiameterMasSchema,
   fileParallaxMasSchema,
@@ -189,9 +198,20 @@ export const eventFileSchema = z.strictObject({
     .min(1, 'at least one chord is needed'),
   ringEvents: z.array(ringEvent).default([]),
   fit: fitOptions.prefault({}),
+  /** What `limbus predict` needs (prediction.ts); a file without it still solves. */
+  prediction: predictionSettingsSchema.optional(),
 });
 
 export type EventFile = z.output<typeof eventFileSchema>;
+
+/**
+ * The same file read for `limbus predict`: an event planned before it happens has no chords yet, so the
+ * list may be absent or empty; the `prediction` section is then required (`validatePredictionEventFile`).
+ * Solve keeps its own rule, "at least one chord is needed", in `eventFileSchema`.
+ */
+const predictionEventSchema = eventFileSchema.extend({
+  chords: z.array(eventFileSchema.shape.chords.element).default([]),
+});
 
 function isRecord(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
@@ -247,18 +267,68 @@ function crossReferenceProblems(json: unknown): Problem[] {
 }
 
 export type EventValidation =
-  { ok: true; event: EventInput; body: EventFile['body'] } | { ok: false; problems: Problem[] };
+  | { ok: true; event: EventInput; body: EventFile['body']; prediction: PredictionSettings | undefined }
+  | { ok: false; problems: Problem[] };
+
+export type PredictionEventValidation =
+  | { ok: true; event: EventInput; body: EventFile['body']; prediction: PredictionSettings }
+  | { ok: false; problems: Problem[] };
+
+/**
+ * `prediction.from` and `prediction.to` against the ephemeris rows (and the number of path times they
+ * give), by the geometry's own rule (`predictionWindow`), located at `prediction.from`, `prediction.to` or
+ * `prediction.stepSeconds`. Read from the raw document, so they are reported even when another part of the
+ * file fails; the API checks stored settings against an event's ephemeris with the same function.
+ */
+export function predictionSpanProblems(json: unknown): Problem[] {
+  if (!isRecord(json) || json.prediction === undefined) return [];
+  const ephemeris = eventFileSchema.shape.ephemeris.safeParse(json.ephemeris);
+  const section = predictionSettingsSchema.safeParse(json.prediction);
+  if (!ephemeris.success || !section.success) return [];
+  try {
+    predictionWindow(buildEphemeris(ephemeris.data.rows, ephemeris.data.timeScale), section.data);
+  } catch (error) {
+    if (error instanceof GeometryInputError && error.path.startsWith('prediction.'))
+      return [{ path: error.path, message: error.detail }];
+    // Anything else about the rows is the ephemeris' own problem, reported there.
+  }
+  return [];
+}
 
 /** Validates an event file and applies its defaults; on failure lists every problem found, by JSON path. */
 export function validateEventFile(json: unknown): EventValidation {
-  const parsed = eventFileSchema.safeParse(json, { error: plainErrorMap });
+  return validateEventDocument(json, 'solve');
+}
+
+/**
+ * Validates an event file for `limbus predict`: as `validateEventFile`, except that `chords` may be
+ * absent or empty and the `prediction` section is required.
+ */
+export function validatePredictionEventFile(json: unknown): PredictionEventValidation {
+  const validation = validateEventDocument(json, 'predict');
+  if (!validation.ok) return validation;
+  const { prediction } = validation;
+  if (prediction === undefined)
+    return { ok: false, problems: [{ path: 'prediction', message: MISSING_PREDICTION }] };
+  return { ...validation, prediction };
+}
+
+const MISSING_PREDICTION =
+  'missing; predict needs the prediction section, at least { "bodyRadiusKm": … } (docs/file-formats.md)';
+
+function validateEventDocument(json: unknown, purpose: 'solve' | 'predict'): EventValidation {
+  const schema = purpose === 'predict' ? predictionEventSchema : eventFileSchema;
+  const parsed = schema.safeParse(json, { error: plainErrorMap });
   const problems = [
     ...(parsed.success ? [] : problemsFromIssues(parsed.error.issues)),
     ...crossReferenceProblems(json),
+    ...predictionSpanProblems(json),
   ];
+  if (purpose === 'predict' && isRecord(json) && json.prediction === undefined)
+    problems.push({ path: 'prediction', message: MISSING_PREDICTION });
   if (problems.length > 0 || !parsed.success) return { ok: false, problems };
   // This assignment is the compile-time proof that the schema's output fits geometry's EventInput.
-  const { body, ...rest } = parsed.data;
+  const { body, prediction, ...rest } = parsed.data;
   const event: EventInput = rest;
-  return { ok: true, event, body };
+  return { ok: true, event, body, prediction };
 }

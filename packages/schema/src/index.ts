@@ -2,8 +2,11 @@ export {
   EVENT_FORMAT,
   eventFileSchema,
   validateEventFile,
+  validatePredictionEventFile,
+  predictionSpanProblems,
   type EventFile,
   type EventValidation,
+  type PredictionEventValidation,
 } from './event-file.js';
 export {
   SOLUTION_FORMAT,
@@ -21,4 +24,5 @@ export * from './team.js';
 export * from './bodies.js';
 export * from './angles.js';
 export * from './views.js';
+export * from './prediction.js';
 export * from './planning.js';
