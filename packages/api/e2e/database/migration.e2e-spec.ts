@@ -126,7 +126,8 @@ describe('Migration20261203182617_bodies_team_loop', () => {
     await invitation('twice@example.org', 'modeller', 1, false);
     await invitation('joined@example.org', 'reviewer', 3, true);
 
-    await orm.getMigrator().up();
+    // Up to this migration only, so that the down() below undoes this one and not a later one.
+    await orm.getMigrator().up({ to: 'Migration20261203182617_bodies_team_loop' });
   }, 120_000);
 
   afterAll(async () => {
