@@ -24,6 +24,20 @@ export class InputProblems extends Error {
   }
 }
 
+/**
+ * The one file a command takes (`limbus solve EVENT.json`): anything else, or an option, is refused with
+ * the command's usage line. `what` names the file in the message ("event file").
+ */
+export function oneFileArgument(args: string[], usage: string, what: string): string {
+  const files = args.filter((a) => !a.startsWith('-'));
+  const flags = args.filter((a) => a.startsWith('-'));
+  const problems = flags.map((flag) => ({ path: 'arguments', message: `unknown option ${flag}; ${usage}` }));
+  if (files.length !== 1)
+    problems.push({ path: 'arguments', message: `expected one ${what}, got ${files.length}; ${usage}` });
+  if (problems.length > 0) throw new InputProblems(problems);
+  return files[0] as string;
+}
+
 export function printProblems(problems: Problem[]): void {
   for (const p of problems) process.stderr.write(`${p.path}: ${p.message}\n`);
 }

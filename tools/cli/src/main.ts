@@ -14,6 +14,10 @@ const COMMANDS: Record<string, { what: string; load: () => Promise<Command> }> =
     what: 'limb, ring and astrometry solution of one event file',
     load: () => import('./commands/solve.js'),
   },
+  predict: {
+    what: "shadow path and each station's predicted times from one event file",
+    load: () => import('./commands/predict.js'),
+  },
   time: {
     what: 'disappearance and reappearance times from a light curve',
     load: () => import('./commands/time.js'),

@@ -5,7 +5,7 @@
 import { computeDynamicsContext, type ContextResult } from '@limbus/geometry';
 import { contextSources, validateContextInput } from '@limbus/schema';
 
-import { InputProblems, readJsonFile, runCommand } from '../io.js';
+import { InputProblems, oneFileArgument, readJsonFile, runCommand } from '../io.js';
 
 const USAGE = 'usage: limbus context CONTEXT.json';
 
@@ -22,16 +22,6 @@ export interface ContextOutput extends ContextResult {
   format: typeof CONTEXT_OUTPUT_FORMAT;
   sources: Record<string, string>;
   notes: string[];
-}
-
-function parseContextArguments(args: string[]): string {
-  const files = args.filter((a) => !a.startsWith('-'));
-  const flags = args.filter((a) => a.startsWith('-'));
-  const problems = flags.map((flag) => ({ path: 'arguments', message: `unknown option ${flag}; ${USAGE}` }));
-  if (files.length !== 1)
-    problems.push({ path: 'arguments', message: `expected one context file, got ${files.length}; ${USAGE}` });
-  if (problems.length > 0) throw new InputProblems(problems);
-  return files[0] as string;
 }
 
 /** Reads and validates one context input file and computes its context; throws InputProblems on bad input. */
@@ -52,7 +42,7 @@ export async function contextFromFile(path: string): Promise<ContextOutput> {
 
 export async function run(args: string[]): Promise<number> {
   return runCommand(async () => {
-    const output = await contextFromFile(parseContextArguments(args));
+    const output = await contextFromFile(oneFileArgument(args, USAGE, 'context file'));
     process.stdout.write(JSON.stringify(output, null, 2) + '\n');
   });
 }

@@ -10,19 +10,9 @@ import { solveEvent } from '@limbus/geometry/solve';
 import { validateEventFile } from '@limbus/schema/event-file';
 import { validateSolutionFile } from '@limbus/schema/solution-file';
 
-import { InputProblems, readJsonFile, runCommand } from '../io.js';
+import { InputProblems, oneFileArgument, readJsonFile, runCommand } from '../io.js';
 
 const USAGE = 'usage: limbus solve EVENT.json';
-
-export function parseSolveArguments(args: string[]): string {
-  const files = args.filter((a) => !a.startsWith('-'));
-  const flags = args.filter((a) => a.startsWith('-'));
-  const problems = flags.map((flag) => ({ path: 'arguments', message: `unknown option ${flag}; ${USAGE}` }));
-  if (files.length !== 1)
-    problems.push({ path: 'arguments', message: `expected one event file, got ${files.length}; ${USAGE}` });
-  if (problems.length > 0) throw new InputProblems(problems);
-  return files[0] as string;
-}
 
 /** Reads, validates and solves one event file; throws InputProblems for anything a person can fix. */
 export async function solveEventFile(path: string): Promise<Solution> {
@@ -42,7 +32,7 @@ export async function solveEventFile(path: string): Promise<Solution> {
 
 export async function run(args: string[]): Promise<number> {
   return runCommand(async () => {
-    const solution = await solveEventFile(parseSolveArguments(args));
+    const solution = await solveEventFile(oneFileArgument(args, USAGE, 'event file'));
     process.stdout.write(JSON.stringify(solution, null, 2) + '\n');
   });
 }
