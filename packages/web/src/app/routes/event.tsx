@@ -14,6 +14,7 @@ import { Suspense, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useSignedIn } from './app-layout';
 import { EventDynamicsSection, EventLightCurvesSection, EventSetupSection } from './event-analysis';
+import { EventPredictionSettingsSection } from './event-prediction-settings';
 import { EventBriefingSection, EventShadowPathSection } from './event-shadow-path';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { RouterLink } from '@/components/router-link';
@@ -203,6 +204,7 @@ export function EventRoute() {
         className={styles.panel}
       >
         {section === 'setup' ? <EventSetupSection key={e.id} event={e} /> : null}
+        {section === 'setup' ? <EventPredictionSettingsSection key={`prediction-${e.id}`} event={e} /> : null}
         {section === 'stations' ? (
           <>
             <Subtitle1 as="h3">Stations</Subtitle1>

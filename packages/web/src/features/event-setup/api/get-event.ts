@@ -1,4 +1,5 @@
-import { STATION_STATUSES } from '@limbus/schema/planning';
+import { predictionOffsetSourceSchema, STATION_STATUSES } from '@limbus/schema/planning';
+import { predictionSettingsSchema } from '@limbus/schema/prediction';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
@@ -54,6 +55,10 @@ export const eventDetailSchema = z.object({
   earthRotation: z.object({ dut1Seconds: z.number() }).default({ dut1Seconds: 0 }),
   // The event answer may or may not embed its stations; a missing list is an event without stations.
   stations: z.array(stationSchema).default([]),
+  /** The prediction settings (the event file's `prediction` section); absent or null while none are set. */
+  prediction: predictionSettingsSchema.nullable().optional(),
+  /** Which earlier fit the offset and its σ came from, when a coordinator took them from one. */
+  predictionSource: predictionOffsetSourceSchema.nullable().optional(),
 });
 
 export type EventDetail = z.infer<typeof eventDetailSchema>;
