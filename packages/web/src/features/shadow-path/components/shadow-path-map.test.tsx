@@ -62,6 +62,9 @@ describe('ShadowPathMap', () => {
     const legend = screen.getByRole('list', { name: 'Map legend' });
     expect(legend).toHaveTextContent('Outside the body, inside a ring');
     expect(legend).toHaveTextContent('1σ band of each limit (± 20.0 km)');
+    expect(screen.getByRole('list', { name: 'About this map' })).toHaveTextContent(
+      'A prediction has an uncertainty',
+    );
   });
 
   it('ShadowPathMap zooms and pans with its buttons, and keeps the view when the data change', async () => {

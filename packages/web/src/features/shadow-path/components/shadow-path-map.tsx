@@ -31,6 +31,7 @@ const DARK_SUN_BELOW_DEG = 12;
 const useStyles = makeStyles({
   figure: { margin: 0, display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalS },
   controls: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS },
+  cautions: { margin: 0, paddingLeft: tokens.spacingHorizontalXL, fontSize: tokens.fontSizeBase200 },
   svg: {
     display: 'block',
     maxWidth: '100%',
@@ -319,6 +320,13 @@ export function ShadowPathMap({ map, widthPx = 760, heightPx = 500 }: ShadowPath
         <span role="alert">The coastlines could not be loaded: {atlasError}</span>
       ) : null}
       <MapLegend map={map} />
+      {map.cautions.length > 0 ? (
+        <ul className={styles.cautions} aria-label="About this map">
+          {map.cautions.map((c) => (
+            <li key={c}>{c}</li>
+          ))}
+        </ul>
+      ) : null}
     </figure>
   );
 }
