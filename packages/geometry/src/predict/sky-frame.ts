@@ -34,6 +34,9 @@ export interface ShiftedBody {
   distanceKm: number;
 }
 
+/** Body states kept for reuse; beyond this (a very long window) they are computed each time. */
+const MAX_KEPT_STATES = 100_000;
+
 /** Below this the shadow has no direction of motion, km/s (a real body moves ≥ 0.01 km/s on the sky plane). */
 const MIN_SPEED_KM_PER_S = 1e-9;
 
@@ -43,6 +46,7 @@ export class PredictionSky {
   private readonly star: StarTrack;
   private readonly offsetFRad: number;
   private readonly offsetGRad: number;
+  private readonly bodies = new Map<number, ShiftedBody>();
 
   constructor(event: Pick<EventInput, 'star' | 'ephemeris' | 'earthRotation'>, offsetMas: MasPair) {
     this.ephemeris = buildEphemeris(event.ephemeris.rows, event.ephemeris.timeScale);
@@ -56,8 +60,19 @@ export class PredictionSky {
     return this.star.basisAt(ttSeconds);
   }
 
-  /** B' on the sky plane at a TT instant. */
+  /**
+   * B' on the sky plane at a TT instant. Every station's scan samples the same instants (the window's scan
+   * grid), so states are kept by instant: most of a many-station prediction's body states are then reused.
+   */
   body(ttSeconds: number): ShiftedBody {
+    const kept = this.bodies.get(ttSeconds);
+    if (kept) return kept;
+    const body = this.shiftedBody(ttSeconds);
+    if (this.bodies.size < MAX_KEPT_STATES) this.bodies.set(ttSeconds, body);
+    return body;
+  }
+
+  private shiftedBody(ttSeconds: number): ShiftedBody {
     const basis = this.star.basisAt(ttSeconds);
     const { positionKm: b, velocityKmPerS: bDot } = this.ephemeris.stateAt(ttSeconds);
     const distanceKm = Math.hypot(b[0], b[1], b[2]);
