@@ -214,8 +214,15 @@ export const placementAnswerSchema = z.object({
     }),
   ),
   gapsBefore: z.array(gapSchema),
+  /** The widest interval between neighbouring chords (or a chord and the span's edge), before and after. */
   largestGapKmBefore: z.number(),
   largestGapKmAfter: z.number(),
+  /**
+   * What the suggestions minimise: the largest distance from any offset of the span to its nearest chord,
+   * before and after (null before when no station lies inside the span).
+   */
+  worstDistanceKmBefore: z.number().nullable(),
+  worstDistanceKmAfter: z.number(),
   suggestions: z.array(placementSuggestionSchema),
   criteria: z.object({
     sunAltitudeBelowDeg: z.number(),

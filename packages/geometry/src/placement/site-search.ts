@@ -66,6 +66,8 @@ export interface SiteSearch {
   gapsBefore: CoverageGap[];
   largestGapKmBefore: number;
   largestGapKmAfter: number;
+  worstDistanceKmBefore: number;
+  worstDistanceKmAfter: number;
   reference: { kind: 'stations' | 'region' | 'substellar'; latDeg: number; lonDeg: number };
   suggestions: SiteSuggestion[];
 }
@@ -214,6 +216,8 @@ export function suggestSites(
     gapsBefore: offsets.gapsBefore,
     largestGapKmBefore: offsets.largestGapKmBefore,
     largestGapKmAfter: offsets.largestGapKmAfter,
+    worstDistanceKmBefore: offsets.worstDistanceKmBefore,
+    worstDistanceKmAfter: offsets.worstDistanceKmAfter,
     reference,
     suggestions,
   };
