@@ -21,6 +21,7 @@ import { FitsModule } from './fits/fits.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
+import { PlanningModule } from './planning/planning.module';
 import { QueueModule } from './queue/queue.module';
 import { RedisModule } from './redis/redis.module';
 import { ShapesModule } from './shapes/shapes.module';
@@ -96,6 +97,7 @@ export class AppModule {
         TimingsModule,
         DynamicsModule,
         ShapesModule,
+        PlanningModule,
       ],
       providers: [
         // Order matters: authentication first, then roles read the authenticated user.

@@ -76,6 +76,8 @@ export const patchEventPayloadSchema = z.strictObject({
   ephemeris: shape.ephemeris.optional(),
   earthRotation: shape.earthRotation.unwrap().optional(),
   fitDefaults: shape.fit.unwrap().optional(),
+  /** The event file's `prediction` section, or null to clear it; a coordinator's (docs/authorization.md). */
+  prediction: shape.prediction.unwrap().nullable().optional(),
 });
 export type PatchEventPayload = z.output<typeof patchEventPayloadSchema>;
 

@@ -33,7 +33,8 @@ export class EventDetailCache {
   }
 }
 
-function deepFreeze<T>(value: T): T {
+/** Freezes a view and everything in it, so a cached value cannot be changed by a caller. */
+export function deepFreeze<T>(value: T): T {
   if (value !== null && typeof value === 'object' && !Object.isFrozen(value)) {
     Object.freeze(value);
     for (const child of Object.values(value)) deepFreeze(child);

@@ -2,7 +2,13 @@
 // file, an export or a fit snapshot reads them back into a file. Positions keep the file's order so
 // that a round trip gives an equal file.
 import type { EntityManager } from '@mikro-orm/mariadb';
-import type { ChordInput, EventInput, RingEventInput, StationInput } from '@limbus/geometry';
+import type {
+  ChordInput,
+  EventInput,
+  PredictionSettings,
+  RingEventInput,
+  StationInput,
+} from '@limbus/geometry';
 import { EVENT_FORMAT } from '@limbus/schema';
 import { Chord, type ChordSource } from '../chords/entities/chord.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
@@ -133,18 +139,36 @@ export function ringEventInput(r: RingEvent): RingEventInput {
   return { station: r.station.code, ring: r.ring, start: { ...r.start }, end: { ...r.end } };
 }
 
-/** The event file of the stored rows, with `fit` as given (the defaults, or a fit's overlaid options). */
+/**
+ * The event file of the stored rows, with `fit` as given (the defaults, or a fit's overlaid options): the
+ * file fits run on and the event's data hash covers. Sites planned ahead or proposed by an observer are not
+ * the fit's, so only observing stations are listed, with any other that a chord or ring event names.
+ */
 export function eventFileOf(rows: EventRows, fit = rows.event.fitDefaults): EventInput {
   const e = rows.event;
+  const named = new Set([...rows.chords, ...rows.ringEvents].map((row) => row.station.id));
   return {
     format: EVENT_FORMAT,
     title: e.title,
     star: e.star,
     ephemeris: e.ephemeris,
     earthRotation: e.earthRotation,
-    stations: rows.stations.map(stationInput),
+    stations: rows.stations.filter((s) => s.status === 'observing' || named.has(s.id)).map(stationInput),
     chords: rows.chords.map(chordInput),
     ringEvents: rows.ringEvents.map(ringEventInput),
     fit,
+  };
+}
+
+/**
+ * The whole event file, as the export gives it and the prediction reads it: every station whatever its
+ * status (a prediction lists planned and proposed sites too), the prediction section when the event has one.
+ */
+export function planningFileOf(rows: EventRows): EventInput & { prediction?: PredictionSettings } {
+  const { prediction } = rows.event;
+  return {
+    ...eventFileOf(rows),
+    stations: rows.stations.map(stationInput),
+    ...(prediction === null ? {} : { prediction }),
   };
 }

@@ -1,12 +1,20 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
-import type { EventInput, FitOptions, StarInput, TimeScale, EphemerisRow } from '@limbus/geometry';
+import type {
+  EventInput,
+  FitOptions,
+  PredictionSettings,
+  StarInput,
+  TimeScale,
+  EphemerisRow,
+} from '@limbus/geometry';
 import {
   type CreateEventPayload,
   type EventsPage,
   type EventsQuery,
   type EventSummary,
   type PatchEventPayload,
+  type PredictionOffsetSource,
   validateEventFile,
 } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
@@ -14,13 +22,14 @@ import type { AuthUser } from '../auth/auth-user';
 import { chooseBody, type BodyChoice } from '../bodies/body-choice';
 import { Body } from '../bodies/entities/body.entity';
 import { ForbiddenError, NotFoundError, ValidationError } from '../common/domain-errors';
+import { keepsOffsetSource, predictionSettingsProblems } from '../planning/prediction-settings';
 import { Membership } from '../teams/entities/membership.entity';
 import { OccultationEvent, type EventState } from './entities/occultation-event.entity';
 import { defaultEventTimeUtc, eventDataSha256, wholeSecondUtc } from './event-data';
 import { EventDetailCache } from './event-detail.cache';
-import { eventFileOf, loadEventRows, persistEventFile, type EventRows } from './event-rows';
+import { eventFileOf, loadEventRows, persistEventFile, planningFileOf, type EventRows } from './event-rows';
 import { listEventIds, summariesOf } from './event-list';
-import { chooseTeam } from './team-choice';
+import { chooseTeam, rolesIn } from './team-choice';
 import {
   type ChordView,
   chordView,
@@ -46,6 +55,10 @@ export interface EventDetail {
   ephemeris: { timeScale: TimeScale; rows: EphemerisRow[] };
   earthRotation: { dut1Seconds: number };
   fitDefaults: FitOptions;
+  /** The event file's `prediction` section, or null until a coordinator sets it. */
+  prediction: PredictionSettings | null;
+  /** Which solved fit the prediction's offset and its σ were taken from, while they are still that fit's. */
+  predictionOffsetSource: PredictionOffsetSource | null;
   deletedAt: string | null;
   createdAt: string;
   updatedAt: string;
@@ -157,6 +170,8 @@ export class EventsService {
       ephemeris: e.ephemeris,
       earthRotation: e.earthRotation,
       fitDefaults: e.fitDefaults,
+      prediction: e.prediction,
+      predictionOffsetSource: e.predictionSource,
       deletedAt: e.deletedAt?.toISOString() ?? null,
       createdAt: e.createdAt.toISOString(),
       updatedAt: e.updatedAt.toISOString(),
@@ -199,6 +214,7 @@ export class EventsService {
     return this.em.transactional(async (em) => {
       const body = await chooseBody(em, team, choice, user.id);
       const rows = persistEventFile(em, team, body, validation.event, user.id);
+      rows.event.prediction = validation.prediction ?? null;
       this.audit.record(em, {
         teamId: team.id,
         eventId: rows.event.id,
@@ -256,6 +272,12 @@ export class EventsService {
 
   async update(user: AuthUser, eventId: string, body: PatchEventPayload): Promise<EventDetail> {
     const event = await this.find(eventId);
+    // Planning the night is the coordinator's: a modeller may correct the star and the ephemeris, not this.
+    if (
+      body.prediction !== undefined &&
+      !(await rolesIn(this.em, user, event.team.id)).includes('coordinator')
+    )
+      throw new ForbiddenError('Prediction settings are set by a coordinator of the team');
     const changed = Object.keys(body).filter((k) => body[k as keyof PatchEventPayload] !== undefined);
     if (body.title !== undefined) event.title = body.title;
     if (body.eventTimeUtc !== undefined) event.eventTimeUtc = wholeSecondUtc(body.eventTimeUtc);
@@ -268,6 +290,14 @@ export class EventsService {
     if (body.ephemeris !== undefined) event.ephemeris = body.ephemeris;
     if (body.earthRotation !== undefined) event.earthRotation = body.earthRotation;
     if (body.fitDefaults !== undefined) event.fitDefaults = body.fitDefaults;
+    if (body.prediction !== undefined) {
+      event.prediction = body.prediction;
+      if (event.predictionSource !== null && !keepsOffsetSource(event.predictionSource, body.prediction))
+        event.predictionSource = null;
+    }
+    // Settings and ephemeris must agree whichever of the two this request changes; nothing is saved if not.
+    const settingsProblems = predictionSettingsProblems(event.ephemeris, event.prediction);
+    if (settingsProblems.length > 0) throw new ValidationError(settingsProblems);
     this.audit.record(this.em, {
       teamId: event.team.id,
       eventId,
@@ -315,7 +345,7 @@ export class EventsService {
   /** The event file, naming its body so that an import into another team finds or makes the same one. */
   async exportFile(eventId: string): Promise<EventInput & { body: { name: string; designation?: string } }> {
     const event = await this.find(eventId);
-    const { format, title, ...rest } = eventFileOf(await loadEventRows(this.em, event));
+    const { format, title, ...rest } = planningFileOf(await loadEventRows(this.em, event));
     const body = {
       name: event.body.name,
       ...(event.body.designation === null ? {} : { designation: event.body.designation }),

@@ -1,4 +1,5 @@
 import type { TimedMark } from '@limbus/geometry';
+import type { StationStatus } from '@limbus/schema';
 import type { Chord, ChordSource } from '../chords/entities/chord.entity';
 import type { RingEvent } from '../chords/entities/ring-event.entity';
 import type { Station } from '../stations/entities/station.entity';
@@ -15,6 +16,9 @@ export interface StationView {
   camera: string | null;
   exposureSeconds: number | null;
   timeSource: string | null;
+  /** observing, planned (placed ahead) or proposed (an observer's site awaiting the coordinator). */
+  status: StationStatus;
+  notes: string | null;
 }
 
 export function stationView(s: Station): StationView {
@@ -30,6 +34,8 @@ export function stationView(s: Station): StationView {
     camera: s.camera,
     exposureSeconds: s.exposureSeconds,
     timeSource: s.timeSource,
+    status: s.status,
+    notes: s.notes,
   };
 }
 

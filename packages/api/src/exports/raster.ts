@@ -9,6 +9,23 @@ import { type Provenance, provenanceEntries, provenanceLine } from './provenance
 
 export const MM_PER_INCH = 25.4;
 
+/**
+ * What a figure file says about itself when it is not a fit's (e.g. the shadow-path map): its title, one
+ * line for the description, fields in a fixed order, and the date the PDF carries (fixed for fixed input).
+ */
+export interface FigureMeta {
+  title: string;
+  line: string;
+  entries: Array<[string, string]>;
+  date: string;
+}
+
+type FigureSource = Provenance | Provenance[] | FigureMeta;
+
+function isFigureMeta(source: FigureSource): source is FigureMeta {
+  return !Array.isArray(source) && 'entries' in source;
+}
+
 /** Pixel width of a figure widthMm wide printed at dpi. */
 export function pixelWidth(widthMm: number, dpi: number): number {
   return Math.round((widthMm / MM_PER_INCH) * dpi);
@@ -28,29 +45,28 @@ function pngChunk(type: string, data: Buffer): Buffer {
  * Adds pHYs (the print resolution, so a layout program places the figure at its width) and one tEXt
  * chunk per provenance field, right after IHDR (PNG spec, W3C 2nd ed., sections 11.3.5.3 and 11.3.4.3).
  */
-export function withPngMetadata(png: Buffer, dpi: number, provenance: Provenance | Provenance[]): Buffer {
-  const all = Array.isArray(provenance) ? provenance : [provenance];
+export function withPngMetadata(png: Buffer, dpi: number, provenance: FigureSource): Buffer {
   const ihdrEnd = 8 + 8 + 13 + 4;
   const perMetre = Math.round(dpi / 0.0254);
   const phys = Buffer.alloc(9);
   phys.writeUInt32BE(perMetre, 0);
   phys.writeUInt32BE(perMetre, 4);
   phys.writeUInt8(1, 8);
-  const texts = [
-    ['Software', 'Limbus'],
-    ['Description', all.map(provenanceLine).join(' | ')],
-    // tEXt keywords may repeat (PNG spec, 11.3.4.3): a comparison figure lists each fit's fields in turn.
-    ...all.flatMap((p) => provenanceEntries(p).map(([k, v]) => [`Limbus ${k}`, v])),
-  ].map(([k, v]) => pngChunk('tEXt', Buffer.from(`${k}\0${v}`, 'latin1')));
+  const all = isFigureMeta(provenance) ? [] : Array.isArray(provenance) ? provenance : [provenance];
+  const described = isFigureMeta(provenance)
+    ? [['Description', provenance.line], ...provenance.entries.map(([k, v]) => [`Limbus ${k}`, v])]
+    : [
+        ['Description', all.map(provenanceLine).join(' | ')],
+        // tEXt keywords may repeat (PNG spec, 11.3.4.3): a comparison figure lists each fit's fields in turn.
+        ...all.flatMap((p) => provenanceEntries(p).map(([k, v]) => [`Limbus ${k}`, v])),
+      ];
+  const texts = [['Software', 'Limbus'], ...described].map(([k, v]) =>
+    pngChunk('tEXt', Buffer.from(`${k}\0${v}`, 'latin1')),
+  );
   return Buffer.concat([png.subarray(0, ihdrEnd), pngChunk('pHYs', phys), ...texts, png.subarray(ihdrEnd)]);
 }
 
-export function renderPng(
-  svg: string,
-  widthMm: number,
-  dpi: number,
-  provenance: Provenance | Provenance[],
-): Buffer {
+export function renderPng(svg: string, widthMm: number, dpi: number, provenance: FigureSource): Buffer {
   const resvg = new Resvg(svg, {
     fitTo: { mode: 'width', value: pixelWidth(widthMm, dpi) },
     background: '#ffffff',
@@ -63,31 +79,19 @@ export function renderPdf(
   svg: string,
   widthPt: number,
   heightPt: number,
-  provenance: Provenance | Provenance[],
+  provenance: FigureSource,
 ): Promise<Buffer> {
-  const all = Array.isArray(provenance) ? provenance : [provenance];
-  // The newest fit's date: fixed for a given set of fits, so the bytes repeat.
-  const date = new Date(
-    all
-      .map((p) => p.date)
-      .sort()
-      .at(-1) ?? 0,
-  );
+  const info = pdfInfoOf(provenance);
+  const date = new Date(info.date);
   const doc = new PDFDocument({
     size: [widthPt, heightPt],
     margin: 0,
     autoFirstPage: true,
     info: {
-      Title: 'Sky-plane solution',
+      Title: info.title,
       Author: 'Limbus',
-      Subject: all.map(provenanceLine).join(' | '),
-      Keywords: all
-        .map((p) =>
-          provenanceEntries(p)
-            .map(([k, v]) => `${k}=${v}`)
-            .join('; '),
-        )
-        .join(' | '),
+      Subject: info.subject,
+      Keywords: info.keywords,
       Creator: 'Limbus',
       // The fit's date, not now: the same fit gives the same file.
       CreationDate: date,
@@ -111,4 +115,32 @@ export function renderPdf(
   });
   doc.end();
   return done;
+}
+
+/** The PDF's info fields; a fit figure's date is the newest fit's, so the same fits give the same bytes. */
+function pdfInfoOf(source: FigureSource): { title: string; subject: string; keywords: string; date: string } {
+  if (isFigureMeta(source))
+    return {
+      title: source.title,
+      subject: source.line,
+      keywords: source.entries.map(([k, v]) => `${k}=${v}`).join('; '),
+      date: source.date,
+    };
+  const all = Array.isArray(source) ? source : [source];
+  return {
+    title: 'Sky-plane solution',
+    subject: all.map(provenanceLine).join(' | '),
+    keywords: all
+      .map((p) =>
+        provenanceEntries(p)
+          .map(([k, v]) => `${k}=${v}`)
+          .join('; '),
+      )
+      .join(' | '),
+    date:
+      all
+        .map((p) => p.date)
+        .sort()
+        .at(-1) ?? new Date(0).toISOString(),
+  };
 }

@@ -5,6 +5,7 @@ import { Migration20261202004801 } from './Migration20261202004801_times_in_ms';
 import { Migration20261202003844 } from './Migration20261202003844_timings_dynamics';
 import { Migration20261202033000 } from './Migration20261202033000_event_revision';
 import { Migration20261203182617 } from './Migration20261203182617_bodies_team_loop';
+import { Migration20261204000000 } from './Migration20261204000000_planning';
 import { Migration20261204010000 } from './Migration20261204010000_token_families_request_hashes';
 
 /**
@@ -19,5 +20,6 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202004801_times_in_ms', class: Migration20261202004801 },
   { name: 'Migration20261202033000_event_revision', class: Migration20261202033000 },
   { name: 'Migration20261203182617_bodies_team_loop', class: Migration20261203182617 },
+  { name: 'Migration20261204000000_planning', class: Migration20261204000000 },
   { name: 'Migration20261204010000_token_families_request_hashes', class: Migration20261204010000 },
 ];

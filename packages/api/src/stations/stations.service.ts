@@ -11,6 +11,9 @@ import { Membership } from '../teams/entities/membership.entity';
 import { User } from '../users/entities/user.entity';
 import { Station } from './entities/station.entity';
 
+const PROPOSAL_DECIDED_ELSEWHERE =
+  'an observer proposed this site: accept it (POST /api/events/:eventId/site-proposals/:stationId/accept) or decline it (…/decline)';
+
 @Injectable()
 export class StationsService {
   constructor(
@@ -68,6 +71,7 @@ export class StationsService {
     if (body.camera !== undefined) station.camera = body.camera;
     if (body.exposureSeconds !== undefined) station.exposureSeconds = body.exposureSeconds;
     if (body.timeSource !== undefined) station.timeSource = body.timeSource;
+    if (body.status !== undefined) station.status = body.status;
   }
 
   async create(user: AuthUser, eventId: string, body: CreateStationPayload): Promise<StationView> {
@@ -99,6 +103,9 @@ export class StationsService {
   ): Promise<StationView> {
     const event = await this.events.find(eventId);
     const station = await this.stationOf(eventId, stationId);
+    // An observer's proposal is decided on its own routes, which say who decided and tell the observer.
+    if (body.status !== undefined && station.status === 'proposed')
+      throw new ValidationError([{ path: 'status', message: PROPOSAL_DECIDED_ELSEWHERE }]);
     if (body.code !== undefined) await this.assertCodeFree(eventId, body.code, stationId);
     this.apply(station, body, await this.observerFor(event.team.id, body.observerId));
     this.audit.record(this.em, {

@@ -14,7 +14,7 @@ import { Report } from '../reports/entities/report.entity';
 import { assertSeesReport } from '../reports/report-privacy';
 import type { ReportView } from '../reports/report-view';
 import { ReportsService } from '../reports/reports.service';
-import { eventFileOf, loadEventRows } from '../events/event-rows';
+import { loadEventRows, planningFileOf } from '../events/event-rows';
 import { User } from '../users/entities/user.entity';
 import { LightCurveTiming, type TimingState } from './entities/light-curve-timing.entity';
 import { type TimingDefaults, timingDefaultsOf } from './timing-defaults';
@@ -108,7 +108,8 @@ export class TimingsService {
   async defaults(user: AuthUser, eventId: string, reportId: string): Promise<TimingDefaults> {
     const report = await this.report(eventId, reportId);
     await assertSeesReport(this.em, user, report);
-    const file = eventFileOf(await loadEventRows(this.em, report.event));
+    // Every station: a report may come from a planned site that no chord names yet.
+    const file = planningFileOf(await loadEventRows(this.em, report.event));
     return timingDefaultsOf(file, report.station.code, report, report.station.exposureSeconds);
   }
 

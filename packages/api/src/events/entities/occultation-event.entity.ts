@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Entity, Index, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
-import type { EphemerisRow, FitOptions, StarInput, TimeScale } from '@limbus/geometry';
-import { TEXT_LIMITS } from '@limbus/schema';
+import type { EphemerisRow, FitOptions, PredictionSettings, StarInput, TimeScale } from '@limbus/geometry';
+import { type PredictionOffsetSource, TEXT_LIMITS } from '@limbus/schema';
 import { Body } from '../../bodies/entities/body.entity';
 import { Team } from '../../teams/entities/team.entity';
 
@@ -45,6 +45,20 @@ export class OccultationEvent {
   /** The `fit` section of an imported event file; a fit request's options overlay it key by key. */
   @Property({ type: 'json' })
   fitDefaults: FitOptions;
+
+  /**
+   * The event file's `prediction` section (defaults applied), from which the shadow path is predicted;
+   * null until someone sets it. A write raises `revision`, which keys the cached prediction.
+   */
+  @Property({ type: 'json', nullable: true })
+  prediction: (PredictionSettings & Opt) | null = null;
+
+  /**
+   * Which solved fit `prediction.offsetMas` and `uncertaintyMas` were taken from; not part of the event
+   * file, and dropped when either is edited by hand.
+   */
+  @Property({ type: 'json', nullable: true })
+  predictionSource: (PredictionOffsetSource & Opt) | null = null;
 
   @Property({ type: 'string', length: 16 })
   state: EventState & Opt = 'active';

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
-import { Entity, ManyToOne, Opt, PrimaryKey, Property, Unique } from '@mikro-orm/core';
+import { Check, Entity, ManyToOne, Opt, PrimaryKey, Property, Unique } from '@mikro-orm/core';
+import type { StationStatus } from '@limbus/schema';
 import { OccultationEvent } from '../../events/entities/occultation-event.entity';
 import { User } from '../../users/entities/user.entity';
 
@@ -43,6 +44,19 @@ export class Station {
 
   @Property({ type: 'string', length: 200, nullable: true })
   timeSource: (string & Opt) | null = null;
+
+  /**
+   * `observing` (the default: a station of the night), `planned` (placed ahead by a coordinator) or
+   * `proposed` (an observer's own site awaiting the coordinator). Only observing stations, and any other
+   * that a chord or ring event names, enter fits (eventFileOf); a prediction lists every station.
+   */
+  @Property({ type: 'string', length: 16, default: 'observing' })
+  @Check({ name: 'stations_status_check', expression: "`status` in ('observing', 'planned', 'proposed')" })
+  status: StationStatus & Opt = 'observing';
+
+  /** What an observer wrote with a proposed site (access, horizon, permission). */
+  @Property({ type: 'text', nullable: true })
+  notes: (string & Opt) | null = null;
 
   /** Keeps the event file's station order through a round trip. */
   @Property({ type: 'integer' })
