@@ -1,7 +1,8 @@
 // The demo scenario a newcomer sees on first start: the invented event of quillon-event.json (made
-// once by tools/demo/make-demo-event.ts) with its stations, a report per station from invented
-// observers, accepted by the demo coordinator into chords and ring events, and one fit solved here by
-// the real geometry engine, sent for review and approved by the demo reviewer.
+// once by tools/demo/make-demo-event.ts; its prediction section added by hand) with its stations, a report
+// per station from invented observers, accepted by the demo coordinator into chords and ring events, and
+// one fit solved here by the real geometry engine, sent for review and approved by the demo reviewer; and
+// for planning, the prediction settings, two planned sites and one an observer proposed.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { EntityManager } from '@mikro-orm/mariadb';
@@ -19,6 +20,7 @@ import { sha256Hex } from '../common/tokens';
 import { Report, type ReportResult } from '../reports/entities/report.entity';
 import { chordOfReport } from '../reports/reports.service';
 import { Review } from '../reviews/entities/review.entity';
+import { Station } from '../stations/entities/station.entity';
 import { Membership } from '../teams/entities/membership.entity';
 import { Team } from '../teams/entities/team.entity';
 import { User } from '../users/entities/user.entity';
@@ -126,6 +128,50 @@ export const DEMO_OBSERVERS: ReadonlyArray<{
   },
 ];
 
+/**
+ * Sites planned ahead by the coordinator where the stations above leave the widest gaps across the body
+ * (the placement's own suggestions for this event, rounded), and one an observer proposed for the ring.
+ * Invented, like everything here.
+ */
+export const DEMO_PLANNED_SITES: ReadonlyArray<{
+  code: string;
+  latDeg: number;
+  lonDeg: number;
+  heightM: number;
+  status: 'planned' | 'proposed';
+  observerEmail: string;
+  notes: string | null;
+}> = [
+  {
+    code: 'corrie-gap',
+    latDeg: 12.2413,
+    lonDeg: 71.664,
+    heightM: 120,
+    status: 'planned',
+    observerEmail: 'observer@example.org',
+    notes: null,
+  },
+  {
+    code: 'fenwick-shoal',
+    latDeg: 6.3003,
+    lonDeg: 70.3328,
+    heightM: 40,
+    status: 'planned',
+    observerEmail: 'bram.oakes@example.org',
+    notes: null,
+  },
+  {
+    code: 'darrow-lookout',
+    latDeg: 17.0875,
+    lonDeg: 72.7913,
+    heightM: 210,
+    status: 'proposed',
+    observerEmail: 'observer@example.org',
+    notes:
+      "A friend's farmhouse roof, clear to the south; the owner agrees. Outside the body's path: for the ring.",
+  },
+];
+
 const NOT_OBSERVED: Record<string, { result: ReportResult; notes: string }> = {
   'hobb-observatory': {
     result: 'clouded_out',
@@ -169,6 +215,7 @@ export async function seedDemoScenario(em: EntityManager, teamName: string): Pro
     const rows = persistEventFile(tx, team, body, { ...file, chords: [], ringEvents: [] }, coordinator.id);
     const event = rows.event;
     event.eventTimeUtc = defaultEventTimeUtc(file);
+    event.prediction = validation.prediction ?? null;
     const observers = new Map<string, User>();
     for (const o of DEMO_OBSERVERS) {
       if (!o.email || observers.has(o.email)) continue;
@@ -229,6 +276,18 @@ export async function seedDemoScenario(em: EntityManager, teamName: string): Pro
         detail: { seeded: true },
       });
     }
+    let position = rows.stations.length;
+    for (const site of DEMO_PLANNED_SITES) {
+      const observer = observers.get(site.observerEmail);
+      if (!observer) throw new Error(`demo site ${site.code} has no observer`);
+      const station = new Station(event, site);
+      station.status = site.status;
+      station.observer = observer;
+      station.observerName = observer.name;
+      station.notes = site.notes;
+      station.position = ++position;
+      tx.persist(station);
+    }
     await tx.flush();
 
     const snapshot = eventFileOf(await loadEventRows(tx, event));
@@ -271,5 +330,8 @@ export async function seedDemoScenario(em: EntityManager, teamName: string): Pro
     });
     await tx.flush();
   });
-  return `demo scenario: event "${file.title}" with ${file.stations.length} stations and an approved fit`;
+  return (
+    `demo scenario: event "${file.title}" with ${file.stations.length} stations, ` +
+    `${DEMO_PLANNED_SITES.length} planned or proposed sites, a prediction and an approved fit`
+  );
 }
