@@ -30,10 +30,10 @@ export const FILE_STATION_HEIGHT_M: Range = { min: -11_000, max: 100_000 };
 
 /**
  * Parallax, mas, in a payload: no star is nearer than Proxima Centauri (768.07 mas, Gaia DR3; from
- * memory). A catalogue's negative parallax (noise for a distant star) is entered as 0 in a form; an
- * event file may keep it.
+ * memory). Catalogues give negative parallaxes (noise for a distant star), and a star imported with one
+ * is sent back whole by the Setup form, so a payload keeps them as the event file does.
  */
-export const PARALLAX_MAS: Range = { min: 0, max: 1000 };
+export const PARALLAX_MAS: Range = { min: -1000, max: 1000 };
 
 /** Parallax in the event file: measured values may be negative, never beyond the nearest star's size. */
 export const FILE_PARALLAX_MAS: Range = { min: -1000, max: 1000 };
@@ -91,7 +91,7 @@ export const parallaxMasSchema = within(
   PARALLAX_MAS,
   'parallaxMas',
   'mas',
-  'Proxima Centauri, the nearest star, has 768 mas; enter a negative catalogue parallax as 0',
+  'Proxima Centauri, the nearest star, has 768 mas',
 );
 export const fileParallaxMasSchema = within(
   FILE_PARALLAX_MAS,
