@@ -113,7 +113,7 @@ describe('physical ranges in the payloads (held to a ground station and a catalo
     ]);
   });
 
-  it('createEventPayloadSchema holds the star to 0…1000 mas of parallax and ±11 000 mas/yr of proper motion', () => {
+  it('createEventPayloadSchema holds the star to ±1000 mas of parallax and ±11 000 mas/yr of proper motion', () => {
     expect(
       payloadRefusals(
         createEventPayloadSchema,
@@ -123,7 +123,9 @@ describe('physical ranges in the payloads (held to a ground station and a catalo
     expect(payloadRefusals(createEventPayloadSchema, eventPayload({ parallaxMas: 1e308 }))).toEqual([
       'star.parallaxMas',
     ]);
-    expect(payloadRefusals(createEventPayloadSchema, eventPayload({ parallaxMas: -0.3 }))).toEqual([
+    // A catalogue's negative parallax (noise for a distant star) comes back whole from Setup.
+    expect(payloadRefusals(createEventPayloadSchema, eventPayload({ parallaxMas: -0.3 }))).toEqual([]);
+    expect(payloadRefusals(createEventPayloadSchema, eventPayload({ parallaxMas: -1001 }))).toEqual([
       'star.parallaxMas',
     ]);
     expect(payloadRefusals(createEventPayloadSchema, eventPayload({ pmRaCosDecMasPerYear: 12_000 }))).toEqual(
