@@ -14,6 +14,15 @@ export const MAX_PATH_TIMES = 50_000;
 /** A `to` this close to a grid time (as a fraction of the step) counts as on the grid: TT seconds carry ~1e-7 s. */
 const ON_GRID_FRACTION = 1e-6;
 
+/**
+ * The TT instant of the whole UTC millisecond nearest a TT instant. TT − UTC is a whole number of
+ * milliseconds (32.184 s + leap seconds) and TT's count starts on a whole millisecond, so rounding the
+ * count rounds UTC.
+ */
+function onUtcMillisecond(ttSeconds: number): number {
+  return Math.round(ttSeconds * 1000) / 1000;
+}
+
 export interface PredictionWindow {
   fromTt: number;
   toTt: number;
@@ -52,8 +61,6 @@ export function predictionWindow(
   // Each path point is computed at the instant its printed time names: a grid time is rounded to the
   // UTC millisecond first (a TDB ephemeris' first row is not on a whole millisecond of UTC, and 0.5 ms is
   // 10 m of a fast shadow).
-  const gridTt = Array.from({ length: count }, (_, k) =>
-    utcIsoToTtSeconds(ttSecondsToUtcIso(fromTt + k * step)),
-  );
+  const gridTt = Array.from({ length: count }, (_, k) => onUtcMillisecond(fromTt + k * step));
   return { fromTt, toTt, gridTt };
 }
