@@ -55,4 +55,13 @@ describe('track search', () => {
     expect(levelCrossing(straight, 0, 500, 1, 200)).toBeNull();
     expectClose(levelCrossing(straight, 0, 500, 1, 300)!, Math.sqrt(500 * 500 - 9) / 2, 1e-6);
   });
+
+  it('levelCrossing() finds the crossing of a bent track far from the straight-line guess', () => {
+    // g = 2t + t²/2 (an accelerating track, f = 3): |(f, g)| = 50 where g = √2491, i.e. t² + 4t − 2√2491 = 0,
+    // t = −2 ± √(4 + 2√2491): 8.19 s and −12.19 s, against the straight guess √2491/2 ≈ 25 s.
+    const bent: Track = (t) => ({ fKm: 3, gKm: 2 * t + (t * t) / 2, vfKmPerS: 0, vgKmPerS: 2 + t });
+    const root = Math.sqrt(4 + 2 * Math.sqrt(2491));
+    expectClose(levelCrossing(bent, 0, 50, 1, 1000)!, -2 + root, 1e-6);
+    expectClose(levelCrossing(bent, 0, 50, -1, -1000)!, -2 - root, 1e-6);
+  });
 });
