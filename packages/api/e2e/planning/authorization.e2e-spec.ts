@@ -140,6 +140,21 @@ describe('authorization matrix of planning', () => {
     expect(Object.keys(prepare).sort()).toEqual(PLANNING_MATRIX.map((r) => r.route).sort());
   });
 
+  it('GET /api/docs-json lists every planning route, each body-taking one with its schema', async () => {
+    const doc = (await t.get('/api/docs-json').expect(200)).body as {
+      paths: Record<string, Record<string, { requestBody?: unknown }>>;
+    };
+    const bodyless = new Set(['POST /api/events/:eventId/briefings']);
+    const missing: string[] = [];
+    for (const { route } of PLANNING_MATRIX) {
+      const [method = '', path = ''] = route.split(' ');
+      const operation = doc.paths[path.replace(/:(\w+)/g, '{$1}')]?.[method.toLowerCase()];
+      if (!operation || (method === 'POST' && !bodyless.has(route) && !operation.requestBody))
+        missing.push(route);
+    }
+    expect(missing).toEqual([]);
+  });
+
   for (const row of PLANNING_MATRIX as MatrixRow[])
     it(`${row.route} answers each role as docs/authorization.md says`, async () => {
       const got: Record<string, number> = {};

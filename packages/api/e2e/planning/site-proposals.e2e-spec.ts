@@ -168,4 +168,20 @@ describe("planning: planned stations and observers' proposed sites", () => {
     };
     expect(exported.stations.map((s) => s.id)).toContain('planned-l120');
   });
+
+  it('decline refuses (409) a proposed site the observer has already reported from, and keeps the report', async () => {
+    const id = ((await propose('reported-site').expect(201)).body as { id: string }).id;
+    await t
+      .post(`/api/events/${eventId}/reports`)
+      .set(w.auth('observer'))
+      .send({ stationId: id, result: 'clouded_out' })
+      .expect(201);
+    const refused = await t
+      .post(`/api/events/${eventId}/site-proposals/${id}/decline`)
+      .set(w.auth('coordinator'))
+      .send({})
+      .expect(409);
+    expect((refused.body as { message: string }).message).toMatch(/already reported/);
+    expect(await t.orm.em.fork().count(Station, { id })).toBe(1);
+  });
 });

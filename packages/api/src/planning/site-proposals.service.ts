@@ -1,4 +1,4 @@
-import { UniqueConstraintViolationException } from '@mikro-orm/core';
+import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type {
@@ -23,6 +23,11 @@ function codeTaken(code: string): ConflictError {
 }
 
 const ALREADY_DECIDED = 'This proposal was already decided (accepted, declined or changed meanwhile)';
+
+const reportedFrom = () =>
+  new ConflictError(
+    'The observer has already reported from this proposed site; accept it, or reject the report first',
+  );
 
 /**
  * Observers propose their own sites; coordinators accept them (as planned or observing stations) or
@@ -135,13 +140,17 @@ export class SiteProposalsService {
   ): Promise<void> {
     await this.events.find(eventId);
     const station = await this.proposal(eventId, stationId);
-    if ((await this.em.count(Report, { station: stationId })) > 0)
-      throw new ConflictError(
-        'The observer has already reported from this proposed site; accept it, or reject the report first',
-      );
     await this.em.transactional(async (em) => {
-      const removed = await em.nativeDelete(Station, { id: stationId, event: eventId, status: 'proposed' });
-      if (removed !== 1) throw new ConflictError(ALREADY_DECIDED);
+      // Lock the row first: a report filed from the site waits on it (its foreign key check reads the
+      // station), so the count below sees every report, and reports would go with the station otherwise.
+      const locked = await em.findOne(
+        Station,
+        { id: stationId, event: eventId, status: 'proposed' },
+        { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true },
+      );
+      if (!locked) throw new ConflictError(ALREADY_DECIDED);
+      if ((await em.count(Report, { station: stationId })) > 0) throw reportedFrom();
+      await em.nativeDelete(Station, { id: stationId });
       this.audit.record(em, {
         teamId: station.event.team.id,
         eventId,
