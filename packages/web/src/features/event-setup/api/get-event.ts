@@ -58,7 +58,7 @@ export const eventDetailSchema = z.object({
   /** The prediction settings (the event file's `prediction` section); absent or null while none are set. */
   prediction: predictionSettingsSchema.nullable().optional(),
   /** Which earlier fit the offset and its σ came from, when a coordinator took them from one. */
-  predictionSource: predictionOffsetSourceSchema.nullable().optional(),
+  predictionOffsetSource: predictionOffsetSourceSchema.nullable().optional(),
 });
 
 export type EventDetail = z.infer<typeof eventDetailSchema>;

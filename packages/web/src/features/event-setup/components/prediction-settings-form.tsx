@@ -301,7 +301,7 @@ export function PredictionSettingsForm({
   const unplaced = Object.entries(errors).filter(
     ([path]) => !shownFields.has(path) && !/^rings\.\d+\.(ring|radiusKm)$/.test(path),
   );
-  const source = applied?.source ?? event.predictionSource ?? null;
+  const source = applied?.source ?? event.predictionOffsetSource ?? null;
 
   return (
     <form className={styles.form} onSubmit={submit} noValidate aria-label="Prediction settings">

@@ -24,9 +24,11 @@ describe('PlacementPanel', () => {
     expect(query.searchParams.get('sites')).toBe('2');
     expect(query.searchParams.get('ringsToo')).toBe('true');
     expect(query.searchParams.has('region')).toBe(false);
-    expect(
-      screen.getByText(/the Sun more than 12° below the horizon and the star more than 20° above it/),
-    ).toBeVisible();
+    const criteria = screen.getByText(
+      /the Sun more than 12° below the horizon and the star more than 20° above it/,
+    );
+    expect(criteria).toHaveTextContent('Largest gap now 153.5 km, after these sites 76.8 km');
+    expect(criteria).toHaveTextContent('nearest chord: now 76.8 km, after these sites 38.4 km.');
     // The offset carries the path's 1σ; a suggestion without a ground point says why and offers nothing.
     expect(within(table).getByText('−34 ± 20 km')).toBeVisible();
     expect(within(table).getByText('Over the sea along the whole offset line.')).toBeVisible();

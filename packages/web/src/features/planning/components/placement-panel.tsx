@@ -72,7 +72,12 @@ function Criteria({ answer }: { answer: PlacementAnswer }) {
       is given. The span to cover is {answer.spanKm.fromKm.toFixed(0)} to {answer.spanKm.toKm.toFixed(0)} km
       across the path ({answer.ringsToo ? 'the body and its rings' : 'the body'}); the path’s 1σ is{' '}
       {answer.sigmaCrossTrackKm.toFixed(1)} km. Largest gap now {answer.largestGapKmBefore.toFixed(1)} km,
-      after these sites {answer.largestGapKmAfter.toFixed(1)} km.
+      after these sites {answer.largestGapKmAfter.toFixed(1)} km; the farthest any part of the span lies from
+      its nearest chord: now{' '}
+      {answer.worstDistanceKmBefore === null
+        ? 'no chord inside the span'
+        : `${answer.worstDistanceKmBefore.toFixed(1)} km`}
+      , after these sites {answer.worstDistanceKmAfter.toFixed(1)} km.
     </Body1>
   );
 }

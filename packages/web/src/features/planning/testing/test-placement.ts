@@ -14,6 +14,8 @@ export function testPlacement(overrides: Partial<PlacementAnswer> = {}): Placeme
     ],
     largestGapKmBefore: 153.5,
     largestGapKmAfter: 76.8,
+    worstDistanceKmBefore: 76.8,
+    worstDistanceKmAfter: 38.4,
     suggestions: [
       {
         crossTrackKm: -34.3,
