@@ -41,6 +41,7 @@ function limbSolution(fit: LimbFitResult, sigmaMethod: SigmaMethod): LimbSolutio
     band: fit.band,
     covariance: fit.covariance,
     sigmaMethod,
+    ...(sigmaMethod === 'sampled' && fit.sampler ? { sampler: fit.sampler } : {}),
   };
 }
 
@@ -97,6 +98,7 @@ function ringSolution(projected: ProjectedEvent, outcome: RingFitOutcome): RingS
       centerGKm: fit.uncertainty.centerGKm,
     },
     covariance: { parameters: [...RING_COVARIANCE_PARAMETERS], matrix: covariance },
+    ...(fit.sampler ? { sampler: fit.sampler } : {}),
     poles: ringPolesWithUncertainty(projected.basis, fit.openingAngleDeg, fit.positionAngleDeg, [
       [bp[0]?.[0] ?? 0, bp[0]?.[1] ?? 0],
       [bp[1]?.[0] ?? 0, bp[1]?.[1] ?? 0],

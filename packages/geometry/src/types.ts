@@ -138,6 +138,22 @@ export interface ParameterCovariance {
 /** How the limb's 1-sigma were obtained (docs/method.md, "Uncertainties" and "Joint limb and ring fit"). */
 export type SigmaMethod = 'sampled' | 'linearised';
 
+/**
+ * How well the ensemble sampler explored the region whose spread gives the 1-sigma (docs/method.md, "Sampler
+ * diagnostics"): the acceptance fraction of the kept steps and, per sampled parameter, the integrated
+ * autocorrelation time in steps of the ensemble and the effective sample size walkers × steps / τ.
+ * `cautions` says in words when either is poor; it is empty otherwise.
+ */
+export interface SamplerDiagnostics {
+  walkers: number;
+  burnInSteps: number;
+  /** Kept steps per walker, after any run made longer for want of effective samples. */
+  steps: number;
+  acceptanceFraction: number;
+  parameters: Array<{ parameter: string; autocorrelationSteps: number; effectiveSamples: number }>;
+  cautions: string[];
+}
+
 export interface LimbSolution extends LimbEllipse {
   equivalentRadiusKm: number;
   uncertainty: LimbEllipse & { equivalentRadiusKm: number };
@@ -154,6 +170,8 @@ export interface LimbSolution extends LimbEllipse {
   covariance?: ParameterCovariance;
   /** Absent in solutions stored before it (they were all sampled). */
   sigmaMethod?: SigmaMethod;
+  /** The sampler's diagnostics when the 1-sigma were sampled; absent for linearised ones and older fits. */
+  sampler?: SamplerDiagnostics;
 }
 
 /**
@@ -189,6 +207,8 @@ export interface RingSolution {
   };
   /** Order: centerFKm, centerGKm, radiusKm, openingAngleDeg, positionAngleDeg. */
   covariance?: ParameterCovariance;
+  /** The sampler's diagnostics when the ring was fitted on its own (not jointly); absent in older fits. */
+  sampler?: SamplerDiagnostics;
   poles: [RingPole, RingPole];
   crossings: Array<SkyPointKm & { station: string; radialWidthKm: number }>;
   chi2: number;

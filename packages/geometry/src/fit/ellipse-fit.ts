@@ -18,9 +18,10 @@ import {
   pathClearance,
 } from './ellipse.js';
 import { normalMatrixCovariance } from './covariance.js';
-import { runEnsemble } from './ensemble-sampler.js';
+import { type EnsembleDiagnostics, runEnsemble } from './ensemble-sampler.js';
 import { type LeastSquaresProblem, jacobian, levenbergMarquardt } from './levenberg-marquardt.js';
 import { gaussian, mulberry32 } from './prng.js';
+import { MIN_EFFECTIVE_SAMPLES } from './sampler-diagnostics.js';
 
 export const SHAPE_PARAMETER_COUNT = 5;
 const IX_F = 0;
@@ -33,6 +34,8 @@ const SHAPE_NAMES = ['centre f', 'centre g', 'equatorial radius', 'oblateness', 
 /** Walkers and steps of the ensemble; see docs/method.md "Uncertainties" for how they were chosen. */
 const SAMPLER_BURN_IN_STEPS = 150;
 const SAMPLER_STEPS = 250;
+/** The chain is doubled up to this many kept steps while a parameter has too few effective samples. */
+const SAMPLER_MAX_STEPS = 4 * SAMPLER_STEPS;
 const BAND_SIZE = 64;
 /** Fraction of a normal distribution within ±1σ. */
 export const ONE_SIGMA_MASS = 0.6826894921370859;
@@ -78,6 +81,8 @@ export interface EllipseFitOutcome {
   samples: SampleSet;
   /** Linearised 1-sigma of every full parameter (0 for fixed ones), internal units. */
   linearisedSigma: Float64Array;
+  /** Acceptance, τ and effective sample size of the sampler, per entry of `free`. */
+  sampler: EnsembleDiagnostics;
 }
 
 /** count full parameter vectors of width values each, in one buffer, with their χ². */
@@ -270,7 +275,7 @@ export function fitEllipse(problem: EllipseFitProblem): EllipseFitOutcome {
   if (free.includes(IX_P))
     linearisedSigma[IX_P] = Math.min(linearisedSigma[IX_P] as number, UNIFORM_HALF_TURN_SIGMA_RAD);
 
-  const samples = sampleRegion(problem, free, best, bestFree, linearised, bestClear);
+  const { samples, sampler } = sampleRegion(problem, free, best, bestFree, linearised, bestClear);
   return {
     best,
     free,
@@ -280,6 +285,7 @@ export function fitEllipse(problem: EllipseFitProblem): EllipseFitOutcome {
     negativesClear: bestClear,
     samples,
     linearisedSigma,
+    sampler,
   };
 }
 
@@ -387,7 +393,7 @@ function sampleRegion(
   bestFree: Float64Array,
   cov: Matrix,
   enforceNegatives: boolean,
-): SampleSet {
+): { samples: SampleSet; sampler: EnsembleDiagnostics } {
   const k = free.length;
   const bestP = best[IX_P] as number;
   const scratch = new Float64Array(best);
@@ -433,6 +439,8 @@ function sampleRegion(
     steps: SAMPLER_STEPS,
     burnIn: SAMPLER_BURN_IN_STEPS,
     uniform,
+    minEffectiveSamples: MIN_EFFECTIVE_SAMPLES,
+    maxSteps: SAMPLER_MAX_STEPS,
   });
   const count = run.logProbabilities.length;
   const width = best.length;
@@ -441,7 +449,10 @@ function sampleRegion(
     values.set(best, i * width);
     for (let j = 0; j < k; j++) values[i * width + (free[j] as number)] = run.samples[i * k + j] as number;
   }
-  return { count, width, values, chi2: run.logProbabilities.map((lp) => -2 * lp) };
+  return {
+    samples: { count, width, values, chi2: run.logProbabilities.map((lp) => -2 * lp) },
+    sampler: run.diagnostics,
+  };
 }
 
 /** Lower-triangular L with LLᵀ = cov, or the square roots of the diagonal when cov is not positive definite. */

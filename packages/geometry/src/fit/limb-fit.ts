@@ -7,6 +7,7 @@ import type {
   LimbEllipse,
   LimbParameter,
   ParameterCovariance,
+  SamplerDiagnostics,
   SkyPointKm,
   VelocityKmPerS,
 } from '../types.js';
@@ -23,6 +24,7 @@ import {
   sampleMap,
 } from './ellipse-fit.js';
 import { equivalentRadiusKm } from './ellipse.js';
+import { samplerDiagnostics } from './sampler-diagnostics.js';
 
 export interface LimbPoint {
   station: string;
@@ -60,6 +62,8 @@ export interface LimbFitResult {
   linearisedSigma: LimbEllipse;
   /** Sample correlations scaled by the reported 1-sigma; order as limbCovarianceParameters. */
   covariance: ParameterCovariance;
+  /** Acceptance, τ and effective samples of the free parameters; absent when the 1-sigma were not sampled. */
+  sampler?: SamplerDiagnostics;
 }
 
 /** Names of the limb covariance's rows: the five shape parameters, then each fitted clock offset. */
@@ -135,6 +139,10 @@ export function fitLimb(input: LimbFitInput): LimbFitResult {
       positionAngleDeg: (lin[4] as number) * RAD,
     },
     covariance,
+    sampler: samplerDiagnostics(
+      outcome.sampler,
+      free.map((j) => covariance.parameters[j] as string),
+    ),
   };
 }
 

@@ -5,10 +5,11 @@
 
 import { DEG, RAD, asin, wrap } from '../math.js';
 import { GeometryInputError } from '../types.js';
-import type { ParameterCovariance, SkyPointKm, VelocityKmPerS } from '../types.js';
+import type { ParameterCovariance, SamplerDiagnostics, SkyPointKm, VelocityKmPerS } from '../types.js';
 import { sampledCovariance } from './covariance.js';
 import { SHAPE_PARAMETER_COUNT, centralSigma, fitEllipse, sampleMap } from './ellipse-fit.js';
 import { checkPoint } from './limb-fit.js';
+import { samplerDiagnostics } from './sampler-diagnostics.js';
 
 export interface RingPoint {
   station: string;
@@ -43,6 +44,8 @@ export interface RingFitResult {
   dof: number;
   /** Sample correlations scaled by the reported 1-sigma; order RING_COVARIANCE_PARAMETERS. */
   covariance: ParameterCovariance;
+  /** Acceptance, τ and effective samples of the free parameters; absent when the 1-sigma were not sampled. */
+  sampler?: SamplerDiagnostics;
 }
 
 /** Rows of a ring's covariance, in the solution's units (km, km, km, degrees, degrees). */
@@ -133,6 +136,11 @@ export function fitRing(input: RingFitInput): RingFitResult {
         uncertainty.positionAngleDeg,
       ]),
     },
+    // The sampler draws ε = 1 − sin|B|; B is a monotonic function of it, named as the solution names it.
+    sampler: samplerDiagnostics(
+      outcome.sampler,
+      outcome.free.map((j) => RING_COVARIANCE_PARAMETERS[j] as string),
+    ),
   };
 }
 
