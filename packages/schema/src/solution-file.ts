@@ -41,6 +41,22 @@ const covariance = z
     { message: 'matrix must be square, one row and column per parameter' },
   );
 
+/** The ensemble sampler's acceptance, autocorrelation times and effective samples (docs/file-formats.md). */
+const sampler = z.object({
+  walkers: z.int().positive(),
+  burnInSteps: z.int().nonnegative(),
+  steps: z.int().positive(),
+  acceptanceFraction: z.number().min(0).max(1),
+  parameters: z.array(
+    z.object({
+      parameter: z.string(),
+      autocorrelationSteps: z.number().positive(),
+      effectiveSamples: z.number().positive(),
+    }),
+  ),
+  cautions: z.array(z.string()),
+});
+
 // Fields added after solutions were first stored are optional, so that every stored fit still reads.
 const limb = z.object({
   ...limbEllipseShape,
@@ -60,6 +76,7 @@ const limb = z.object({
   band: z.array(limbEllipse),
   covariance: covariance.optional(),
   sigmaMethod: z.enum(['sampled', 'linearised']).optional(),
+  sampler: sampler.optional(),
 });
 
 const pole = z.object({
@@ -89,6 +106,7 @@ const ring = z.object({
     centerGKm: z.number().optional(),
   }),
   covariance: covariance.optional(),
+  sampler: sampler.optional(),
   poles: z.tuple([pole, pole]),
   crossings: z.array(z.object({ ...skyPoint, station: z.string(), radialWidthKm: z.number() })),
   chi2: z.number(),
