@@ -5,7 +5,7 @@
 import { z } from 'zod';
 
 import { bodyNameSchema, createBodyPayloadSchema } from './bodies.js';
-import { eventFileSchema } from './event-file.js';
+import { eventFileSchema, utcTimeSchema } from './event-file.js';
 import { parseUtcTime } from './iso-time.js';
 import {
   apertureMmSchema,
@@ -30,9 +30,7 @@ const starPayloadSchema = shape.star.extend({
   parallaxMas: parallaxMasSchema.default(0),
 });
 
-const utcTime = z.string().refine((s) => parseUtcTime(s) !== null, {
-  message: 'not an ISO 8601 UTC time (expected e.g. "2028-03-14T02:11:04.25Z", ending in Z)',
-});
+const utcTime = utcTimeSchema;
 
 const timedMark = z.strictObject({
   time: utcTime,

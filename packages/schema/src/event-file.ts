@@ -24,15 +24,31 @@ import {
   fileStationHeightMSchema,
 } from './physical-ranges.js';
 import { formatPath, plainErrorMap, problemsFromIssues, type PathSegment, type Problem } from './problems.js';
-import { lineText, TEXT_LIMITS } from './text.js';
+import {
+  EVENT_SIZE_LIMITS,
+  eventSizeMessage,
+  lineText,
+  replaceControlCharacters,
+  TEXT_LIMITS,
+} from './text.js';
 
 export const EVENT_FORMAT = 'limbus-event/1';
 
 const finite = () => z.number();
 
-const utcTime = z.string().refine((s) => parseUtcTime(s) !== null, {
-  message: 'not an ISO 8601 UTC time (expected e.g. "2028-03-14T02:11:04.25Z", ending in Z)',
-});
+/**
+ * A UTC time of a chord, ring event or report. Any number of decimals is read, up to the width of the
+ * column that stores it (TEXT_LIMITS.utcTime: 19 decimals, far below any clock's resolution).
+ */
+export const utcTimeSchema = z
+  .string()
+  .max(
+    TEXT_LIMITS.utcTime,
+    `at most ${TEXT_LIMITS.utcTime} characters (a time keeps at most ${TEXT_LIMITS.utcTime - 21} decimals)`,
+  )
+  .refine((s) => parseUtcTime(s) !== null, {
+    message: 'not an ISO 8601 UTC time (expected e.g. "2028-03-14T02:11:04.25Z", ending in Z)',
+  });
 
 const zonelessTime = z.string().refine((s) => parseZonelessTime(s) !== null, {
   message:
@@ -41,7 +57,7 @@ const zonelessTime = z.string().refine((s) => parseZonelessTime(s) !== null, {
 
 const sigmaSeconds = finite().positive('sigmaSeconds must be greater than zero (a 1-σ timing uncertainty)');
 
-const timedMark = z.strictObject({ time: utcTime, sigmaSeconds });
+const timedMark = z.strictObject({ time: utcTimeSchema, sigmaSeconds });
 
 const latDeg = finite().min(-90, 'latitude must be within ±90°').max(90, 'latitude must be within ±90°');
 const lonDeg = finite()
@@ -89,8 +105,8 @@ const negativeChord = z
   .strictObject({
     station: label('station'),
     type: z.literal('negative'),
-    start: utcTime,
-    end: utcTime,
+    start: utcTimeSchema,
+    end: utcTimeSchema,
     timeOffsetSeconds: finite().default(0),
   })
   .superRefine((chord, ctx) => {
@@ -295,17 +311,42 @@ export function predictionSpanProblems(json: unknown): Problem[] {
   return [];
 }
 
-/** Validates an event file and applies its defaults; on failure lists every problem found, by JSON path. */
-export function validateEventFile(json: unknown): EventValidation {
-  return validateEventDocument(json, 'solve');
+/** The size limits of one event (EVENT_SIZE_LIMITS), checked before the rows are parsed one by one. */
+function sizeProblems(json: unknown): Problem[] {
+  const parts = Object.keys(EVENT_SIZE_LIMITS) as Array<keyof typeof EVENT_SIZE_LIMITS>;
+  return parts
+    .filter((part) => arrayAt(json, part).length > EVENT_SIZE_LIMITS[part])
+    .map((part) => ({ path: part, message: eventSizeMessage(part, arrayAt(json, part).length) }));
+}
+
+/** Every string of a JSON value with its control characters replaced (see `replaceControlCharacters`). */
+function withoutControlCharacters(value: unknown): unknown {
+  if (typeof value === 'string') return replaceControlCharacters(value);
+  if (Array.isArray(value)) return value.map(withoutControlCharacters);
+  if (isRecord(value))
+    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, withoutControlCharacters(v)]));
+  return value;
+}
+
+/**
+ * Validates an event file and applies its defaults; on failure lists every problem found, by JSON path.
+ * With `stored`, the file is one the server validated when it stored it (a fit's frozen input): a text
+ * rule or a size limit that came later must not make it unreadable, so control characters are replaced
+ * by U+FFFD and the size limits are not applied.
+ */
+export function validateEventFile(json: unknown, options: { stored?: boolean } = {}): EventValidation {
+  return validateEventDocument(json, options, 'solve');
 }
 
 /**
  * Validates an event file for `limbus predict`: as `validateEventFile`, except that `chords` may be
  * absent or empty and the `prediction` section is required.
  */
-export function validatePredictionEventFile(json: unknown): PredictionEventValidation {
-  const validation = validateEventDocument(json, 'predict');
+export function validatePredictionEventFile(
+  json: unknown,
+  options: { stored?: boolean } = {},
+): PredictionEventValidation {
+  const validation = validateEventDocument(json, options, 'predict');
   if (!validation.ok) return validation;
   const { prediction } = validation;
   if (prediction === undefined)
@@ -316,7 +357,17 @@ export function validatePredictionEventFile(json: unknown): PredictionEventValid
 const MISSING_PREDICTION =
   'missing; predict needs the prediction section, at least { "bodyRadiusKm": … } (docs/file-formats.md)';
 
-function validateEventDocument(json: unknown, purpose: 'solve' | 'predict'): EventValidation {
+function validateEventDocument(
+  json: unknown,
+  options: { stored?: boolean },
+  purpose: 'solve' | 'predict',
+): EventValidation {
+  if (options.stored) json = withoutControlCharacters(json);
+  else {
+    const tooLarge = sizeProblems(json);
+    // An oversized file is refused before its rows are parsed: that is where the time would go.
+    if (tooLarge.length > 0) return { ok: false, problems: tooLarge };
+  }
   const schema = purpose === 'predict' ? predictionEventSchema : eventFileSchema;
   const parsed = schema.safeParse(json, { error: plainErrorMap });
   const problems = [

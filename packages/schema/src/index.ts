@@ -1,6 +1,7 @@
 export {
   EVENT_FORMAT,
   eventFileSchema,
+  utcTimeSchema,
   validateEventFile,
   validatePredictionEventFile,
   predictionSpanProblems,

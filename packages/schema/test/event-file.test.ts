@@ -2,7 +2,7 @@ import { describe, expect, expectTypeOf, it } from 'vitest';
 
 import type { EventInput } from '@limbus/geometry';
 
-import { validateEventFile, type EventFile } from '../src/index.js';
+import { EVENT_SIZE_LIMITS, validateEventFile, type EventFile } from '../src/index.js';
 import { validEventJson } from './event-fixture.js';
 
 type Json = Record<string, unknown>;
@@ -302,5 +302,34 @@ describe('validateEventFile()', () => {
   it('validateEventFile() output type is assignable to geometry EventInput', () => {
     expectTypeOf<EventFile>().toExtend<EventInput>();
     expectTypeOf<EventInput>().toExtend<EventFile>();
+  });
+});
+
+describe('validateEventFile() size limits and stored files', () => {
+  it('validateEventFile() refuses more than EVENT_SIZE_LIMITS stations, chords or ring events, naming the list', () => {
+    const doc = withChange((d) => {
+      d.chords = Array.from({ length: EVENT_SIZE_LIMITS.chords + 1 }, () => chords(d)[0]);
+      d.ringEvents = Array.from({ length: EVENT_SIZE_LIMITS.ringEvents + 1 }, () => ({}));
+    });
+    expect(problemLines(doc)).toEqual([
+      'chords: an event holds at most 2000 chords; this would make 2001',
+      'ringEvents: an event holds at most 5000 ring events; this would make 5001',
+    ]);
+    const atLimit = withChange((d) => {
+      d.chords = Array.from({ length: EVENT_SIZE_LIMITS.chords }, () => chords(d)[0]);
+    });
+    expect(validateEventFile(atLimit).ok).toBe(true);
+  });
+
+  it('validateEventFile(json, { stored: true }) reads a stored file with control characters and beyond the limits', () => {
+    const doc = withChange((d) => {
+      d.title = 'Quillon\u0000\u001b';
+      d.chords = Array.from({ length: EVENT_SIZE_LIMITS.chords + 1 }, () => chords(d)[0]);
+    });
+    expect(validateEventFile(doc).ok).toBe(false);
+    const stored = validateEventFile(doc, { stored: true });
+    if (!stored.ok) throw new Error(JSON.stringify(stored.problems));
+    expect(stored.event.title).toBe('Quillon\uFFFD\uFFFD');
+    expect(stored.event.chords).toHaveLength(EVENT_SIZE_LIMITS.chords + 1);
   });
 });
