@@ -35,7 +35,7 @@ export class ChordsController {
 
   @Get('events/:eventId/chords')
   @TeamMember()
-  list(@Param('eventId') eventId: string): Promise<ChordView[]> {
+  list(@Param('eventId') eventId: string): Promise<readonly ChordView[]> {
     return this.chords.list(eventId);
   }
 

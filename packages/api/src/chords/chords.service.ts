@@ -7,6 +7,7 @@ import type { AuthUser } from '../auth/auth-user';
 import { NotFoundError, ValidationError } from '../common/domain-errors';
 import type { OccultationEvent } from '../events/entities/occultation-event.entity';
 import { applyChordInput, chordInput, chordRow } from '../events/event-rows';
+import { assertEventRoom } from '../events/event-size';
 import { EventsService } from '../events/events.service';
 import { type ChordView, chordView } from '../events/views';
 import { Station } from '../stations/entities/station.entity';
@@ -31,14 +32,12 @@ export class ChordsService {
     private readonly audit: AuditService,
   ) {}
 
-  async list(eventId: string): Promise<ChordView[]> {
-    const event = await this.events.find(eventId);
-    const chords = await this.em.find(
-      Chord,
-      { event },
-      { populate: ['station'], orderBy: { position: 'asc', createdAt: 'asc', id: 'asc' } },
-    );
-    return chords.map(chordView);
+  /**
+   * The event's chords, in the event file's order: the detail view's own list, built once per revision
+   * and cached, so a large event (up to EVENT_SIZE_LIMITS.chords) is not read again on every call.
+   */
+  async list(eventId: string): Promise<readonly ChordView[]> {
+    return (await this.events.detail(eventId)).chords;
   }
 
   private async stationByCode(event: OccultationEvent, code: string): Promise<Station> {
@@ -51,18 +50,22 @@ export class ChordsService {
   async create(user: AuthUser, eventId: string, body: ChordInput): Promise<ChordView> {
     const event = await this.events.find(eventId);
     const station = await this.stationByCode(event, body.station);
-    const chord = chordRow(event, station, body, 'manual', await nextChordPosition(this.em, event));
-    this.em.persist(chord);
-    this.audit.record(this.em, {
-      teamId: event.team.id,
-      eventId,
-      actorId: user.id,
-      action: 'chord.create',
-      objectType: 'chord',
-      objectId: chord.id,
-      detail: { station: station.code, type: chord.type },
+    const chord = await this.em.transactional(async (em) => {
+      await assertEventRoom(em, eventId, { chords: 1 });
+      const row = chordRow(event, station, body, 'manual', await nextChordPosition(em, event));
+      em.persist(row);
+      this.audit.record(em, {
+        teamId: event.team.id,
+        eventId,
+        actorId: user.id,
+        action: 'chord.create',
+        objectType: 'chord',
+        objectId: row.id,
+        detail: { station: station.code, type: row.type },
+      });
+      await em.flush();
+      return row;
     });
-    await this.em.flush();
     return chordView(chord);
   }
 
@@ -142,8 +145,10 @@ export class ChordsService {
     const parsed = parseChordCsv(text, new Set(byCode.keys()));
     if (!parsed.ok) throw new CsvValidationError(parsed.problems);
     const chords = parsed.rows.map((r: ParsedChordRow) => r.chord);
-    if (preview) return { chords, ids: [] };
     return this.em.transactional(async (em) => {
+      // A preview says so too: the import it previews would be refused.
+      await assertEventRoom(em, eventId, { chords: chords.length });
+      if (preview) return { chords, ids: [] };
       let position = await nextChordPosition(em, event);
       const rows = chords.map((c) => {
         const station = byCode.get(c.station);

@@ -123,7 +123,10 @@ export class EventsService {
 
   /** The event's current data hash, from the detail view cached under that revision. */
   async dataSha256At(eventId: string, revision: number): Promise<string> {
-    return (await this.detailAt(eventId, revision, { includeDeleted: true })).dataSha256;
+    return (
+      this.detailCache.dataSha256(eventId, revision) ??
+      (await this.detailAt(eventId, revision, { includeDeleted: true })).dataSha256
+    );
   }
 
   /**

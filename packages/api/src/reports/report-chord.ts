@@ -11,6 +11,7 @@ import { Chord } from '../chords/entities/chord.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { ConflictError } from '../common/domain-errors';
 import { applyChordInput, chordRow } from '../events/event-rows';
+import { assertEventRoom } from '../events/event-size';
 import type { LightCurveTiming } from '../timings/entities/light-curve-timing.entity';
 import type { Report } from './entities/report.entity';
 
@@ -117,6 +118,7 @@ export async function writeReportChord(em: EntityManager, w: ReportChordWrite): 
     existing.report = report;
     return { chord: existing, before };
   }
+  await assertEventRoom(em, report.event.id, { chords: 1 });
   const chord = chordRow(
     report.event,
     report.station,
@@ -132,6 +134,13 @@ export async function writeReportChord(em: EntityManager, w: ReportChordWrite): 
 
 /** Replaces the report's ring events by its ring dips, placed after the event's last ring event. */
 export async function writeReportRingEvents(em: EntityManager, report: Report): Promise<void> {
+  if (report.ringDips.length > 0)
+    await assertEventRoom(
+      em,
+      report.event.id,
+      { ringEvents: report.ringDips.length },
+      { ringEvents: await em.count(RingEvent, { report: report.id }) },
+    );
   await em.nativeDelete(RingEvent, { report: report.id });
   const last = await em.findOne(RingEvent, { event: report.event.id }, { orderBy: { position: 'desc' } });
   let position = (last?.position ?? -1) + 1;

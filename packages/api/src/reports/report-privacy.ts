@@ -13,12 +13,16 @@ export function seesEveryReport(roles: readonly TeamRole[]): boolean {
   return roles.some((role) => role !== 'observer');
 }
 
-/** Throws the 404 of a missing report when the user may not see this one. */
+/**
+ * Throws the 404 of a missing report when the user may not see this one. `missing` is the message the
+ * route gives for a missing id, so the two answers are the same and cannot confirm that an id exists.
+ */
 export async function assertSeesReport(
   em: EntityManager,
   user: AuthUser,
   report: { author: { id: string }; event: { team: { id: string } } },
+  missing?: string,
 ): Promise<void> {
   if (report.author.id === user.id) return;
-  if (!seesEveryReport(await rolesIn(em, user, report.event.team.id))) throw new NotFoundError();
+  if (!seesEveryReport(await rolesIn(em, user, report.event.team.id))) throw new NotFoundError(missing);
 }

@@ -1,15 +1,21 @@
+import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { CreateStationPayload, PatchStationPayload } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
 import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
+import { assertEventRoom } from '../events/event-size';
 import { EventsService } from '../events/events.service';
 import { type StationView, stationView } from '../events/views';
 import { Report } from '../reports/entities/report.entity';
 import { Membership } from '../teams/entities/membership.entity';
 import { User } from '../users/entities/user.entity';
 import { Station } from './entities/station.entity';
+
+function codeTaken(code: string): { path: string; message: string } {
+  return { path: 'code', message: `station id "${code}" is already used in this event` };
+}
 
 const PROPOSAL_DECIDED_ELSEWHERE =
   'an observer proposed this site: accept it (POST /api/events/:eventId/site-proposals/:stationId/accept) or decline it (…/decline)';
@@ -48,16 +54,32 @@ export class StationsService {
     return membership.user;
   }
 
-  private async assertCodeFree(eventId: string, code: string, exceptId?: string): Promise<void> {
-    const clash = await this.em.findOne(Station, {
+  private async assertCodeFree(
+    em: EntityManager,
+    eventId: string,
+    code: string,
+    exceptId?: string,
+  ): Promise<void> {
+    const clash = await em.findOne(Station, {
       event: eventId,
       code,
       ...(exceptId ? { id: { $ne: exceptId } } : {}),
     });
-    if (clash)
-      throw new ValidationError([
-        { path: 'code', message: `station id "${code}" is already used in this event` },
-      ]);
+    if (clash) throw new ValidationError([codeTaken(code)]);
+  }
+
+  /**
+   * Runs a write that sets a station id. The look-up above answers the usual case; two writes of one id
+   * that meet both pass it, and the unique key (event, code) lets one in: the other gets the same 400.
+   */
+  private async writingCode<T>(code: string | undefined, write: () => Promise<T>): Promise<T> {
+    try {
+      return await write();
+    } catch (error) {
+      if (code !== undefined && error instanceof UniqueConstraintViolationException)
+        throw new ValidationError([codeTaken(code)]);
+      throw error;
+    }
   }
 
   private apply(station: Station, body: PatchStationPayload, observer: User | null | undefined): void {
@@ -76,22 +98,29 @@ export class StationsService {
 
   async create(user: AuthUser, eventId: string, body: CreateStationPayload): Promise<StationView> {
     const event = await this.events.find(eventId);
-    await this.assertCodeFree(eventId, body.code);
     const observer = await this.observerFor(event.team.id, body.observerId);
-    const station = new Station(event, body);
-    station.position = (await this.em.count(Station, { event })) + 1;
-    this.apply(station, body, observer);
-    this.em.persist(station);
-    this.audit.record(this.em, {
-      teamId: event.team.id,
-      eventId,
-      actorId: user.id,
-      action: 'station.create',
-      objectType: 'station',
-      objectId: station.id,
-      detail: { code: station.code },
-    });
-    await this.em.flush();
+    const station = await this.writingCode(body.code, () =>
+      this.em.transactional(async (em) => {
+        // The event's row is locked from here on: adds to one event are counted one after the other.
+        await assertEventRoom(em, eventId, { stations: 1 });
+        await this.assertCodeFree(em, eventId, body.code);
+        const row = new Station(event, body);
+        row.position = (await em.count(Station, { event })) + 1;
+        this.apply(row, body, observer);
+        em.persist(row);
+        this.audit.record(em, {
+          teamId: event.team.id,
+          eventId,
+          actorId: user.id,
+          action: 'station.create',
+          objectType: 'station',
+          objectId: row.id,
+          detail: { code: row.code },
+        });
+        await em.flush();
+        return row;
+      }),
+    );
     return stationView(station);
   }
 
@@ -106,7 +135,7 @@ export class StationsService {
     // An observer's proposal is decided on its own routes, which say who decided and tell the observer.
     if (body.status !== undefined && station.status === 'proposed')
       throw new ValidationError([{ path: 'status', message: PROPOSAL_DECIDED_ELSEWHERE }]);
-    if (body.code !== undefined) await this.assertCodeFree(eventId, body.code, stationId);
+    if (body.code !== undefined) await this.assertCodeFree(this.em, eventId, body.code, stationId);
     this.apply(station, body, await this.observerFor(event.team.id, body.observerId));
     this.audit.record(this.em, {
       teamId: event.team.id,
@@ -117,7 +146,7 @@ export class StationsService {
       objectId: station.id,
       detail: { fields: Object.keys(body) },
     });
-    await this.em.flush();
+    await this.writingCode(body.code, () => this.em.flush());
     return stationView(station);
   }
 

@@ -15,6 +15,7 @@ import { assertSeesReport } from '../reports/report-privacy';
 import type { ReportView } from '../reports/report-view';
 import { ReportsService } from '../reports/reports.service';
 import { loadEventRows, planningFileOf } from '../events/event-rows';
+import { assertEventRoom } from '../events/event-size';
 import { User } from '../users/entities/user.entity';
 import { LightCurveTiming, type TimingState } from './entities/light-curve-timing.entity';
 import { type TimingDefaults, timingDefaultsOf } from './timing-defaults';
@@ -58,6 +59,10 @@ function summary(t: LightCurveTiming, inChord: boolean): TimingSummary {
   };
 }
 
+// A missing id and another observer's report or timing answer the same 404 (report-privacy.ts).
+const NO_SUCH_REPORT = 'No such report in this event';
+const NO_SUCH_TIMING = 'No such timing in this event';
+
 /** A copy, so a ring event's JSON column never shares an object with the timing's result. */
 function markCopy(m: TimedMark): TimedMark {
   return { time: m.time, sigmaSeconds: m.sigmaSeconds };
@@ -90,7 +95,7 @@ export class TimingsService {
       { id: reportId, event: { id: eventId, state: 'active' } },
       { populate: ['lightCurve', 'station', 'event'] },
     );
-    if (!report) throw new NotFoundError('No such report in this event');
+    if (!report) throw new NotFoundError(NO_SUCH_REPORT);
     return report;
   }
 
@@ -100,14 +105,14 @@ export class TimingsService {
       { id: timingId, event: { id: eventId, state: 'active' } },
       { populate: ['report', 'report.station', 'event', 'result'] },
     );
-    if (!timing) throw new NotFoundError('No such timing in this event');
+    if (!timing) throw new NotFoundError(NO_SUCH_TIMING);
     return timing;
   }
 
   /** Speed, distance and exposure to start a timing of this report's light curve from. */
   async defaults(user: AuthUser, eventId: string, reportId: string): Promise<TimingDefaults> {
     const report = await this.report(eventId, reportId);
-    await assertSeesReport(this.em, user, report);
+    await assertSeesReport(this.em, user, report, NO_SUCH_REPORT);
     // Every station: a report may come from a planned site that no chord names yet.
     const file = planningFileOf(await loadEventRows(this.em, report.event));
     return timingDefaultsOf(file, report.station.code, report, report.station.exposureSeconds);
@@ -157,7 +162,7 @@ export class TimingsService {
   /** Newest first; another observer's report is as missing to a member who is only an observer. */
   async list(user: AuthUser, eventId: string, reportId: string): Promise<TimingSummary[]> {
     const report = await this.report(eventId, reportId);
-    await assertSeesReport(this.em, user, report);
+    await assertSeesReport(this.em, user, report, NO_SUCH_REPORT);
     const rows = await this.em.find(
       LightCurveTiming,
       { report: reportId },
@@ -168,9 +173,9 @@ export class TimingsService {
 
   async detail(user: AuthUser, eventId: string, timingId: string): Promise<TimingDetail> {
     const timing = await this.timing(eventId, timingId);
-    await assertSeesReport(this.em, user, timing.report);
+    await assertSeesReport(this.em, user, timing.report, NO_SUCH_TIMING);
     const [view] = await this.summaries([timing]);
-    if (!view) throw new NotFoundError('No such timing in this event');
+    if (!view) throw new NotFoundError(NO_SUCH_TIMING);
     return { ...view, result: timing.result };
   }
 
@@ -220,6 +225,7 @@ export class TimingsService {
       .map(({ k }) => ({ path: `dips[${k}]`, message: `there are only ${result.dips.length} dips` }));
     if (issues.length > 0) throw new ValidationError(issues);
     return this.em.transactional(async (em) => {
+      await assertEventRoom(em, eventId, { ringEvents: new Set(indexes).size });
       const position = await em.count(RingEvent, { event: eventId });
       const made = [...new Set(indexes)].map((index, k) => {
         const dip = result.dips[index];
