@@ -7,6 +7,7 @@ import { Migration20261202033000 } from './Migration20261202033000_event_revisio
 import { Migration20261203182617 } from './Migration20261203182617_bodies_team_loop';
 import { Migration20261204000000 } from './Migration20261204000000_planning';
 import { Migration20261204010000 } from './Migration20261204010000_token_families_request_hashes';
+import { Migration20261204020000 } from './Migration20261204020000_one_open_report';
 
 /**
  * Static list so the migrator works under vitest and from dist alike. To add one: build, run
@@ -22,4 +23,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261203182617_bodies_team_loop', class: Migration20261203182617 },
   { name: 'Migration20261204000000_planning', class: Migration20261204000000 },
   { name: 'Migration20261204010000_token_families_request_hashes', class: Migration20261204010000 },
+  { name: 'Migration20261204020000_one_open_report', class: Migration20261204020000 },
 ];

@@ -1,3 +1,4 @@
+import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { ChordInput, TimedMark } from '@limbus/geometry';
@@ -57,6 +58,15 @@ export function checkedChordOf(report: Report, path: string): ChordInput | null 
 }
 
 const DECIDED_MEANWHILE = 'The report was decided meanwhile';
+const ANOTHER_OPEN =
+  'The observer already has another open report for this station: decide or edit that one instead';
+
+/** The refusal of a second open report by one observer for one station. */
+function alreadyOpen(open: Report): string {
+  return open.state === 'accepted'
+    ? 'Your report for this station is already accepted; ask for a correction instead'
+    : `You already have a report for this station (${open.id}); edit it instead`;
+}
 
 /** A copy, so the chord's JSON column never shares an object with the timing's result. */
 function markCopy(m: TimedMark): TimedMark {
@@ -116,12 +126,7 @@ export class ReportsService {
       author: user.id,
       state: { $in: ['submitted', 'accepted'] },
     });
-    if (open)
-      throw new ConflictError(
-        open.state === 'accepted'
-          ? 'Your report for this station is already accepted; ask for a correction instead'
-          : `You already have a report for this station (${open.id}); edit it instead`,
-      );
+    if (open) throw new ConflictError(alreadyOpen(open));
     const report = new Report(event, station, this.em.getReference(User, user.id), body.result);
     applyReportFields(report, body);
     this.em.persist(report);
@@ -138,7 +143,18 @@ export class ReportsService {
         timesFromLightCurve: report.timesFromLightCurve,
       },
     });
-    await this.em.flush();
+    try {
+      await this.em.flush();
+    } catch (error) {
+      // Two submits at once both passed the look-up above; the unique key (station, open author) let
+      // one in. The other is told about that one, as if it had come second.
+      if (!(error instanceof UniqueConstraintViolationException)) throw error;
+      const winner = await this.em.fork().findOne(Report, {
+        station: station.id,
+        openAuthorId: user.id,
+      });
+      throw new ConflictError(winner ? alreadyOpen(winner) : ANOTHER_OPEN);
+    }
     const stored = await this.find(report.id);
     await this.notices.submitted(stored, false);
     return this.view(stored);
@@ -156,13 +172,8 @@ export class ReportsService {
     const wasRejected = report.state === 'rejected';
     await this.em.transactional(async (em) => {
       // Conditional, so that an accept landing meanwhile is not undone by this edit.
-      const open = await em.nativeUpdate(
-        Report,
-        { id: report.id, state: { $in: ['submitted', 'rejected'] } },
-        { state: 'submitted' },
-      );
-      if (open === 0)
-        throw new ConflictError('The report was accepted meanwhile; ask for a correction instead');
+      const open = await this.move(em, report, ['submitted', 'rejected'], 'submitted');
+      if (!open) throw new ConflictError('The report was accepted meanwhile; ask for a correction instead');
       report.state = 'submitted';
       report.rejectReason = null;
       this.audit.record(em, {
@@ -182,7 +193,8 @@ export class ReportsService {
 
   /**
    * Moves the report to `to` only from one of `from`, in the caller's transaction: of two decisions
-   * at once, exactly one moves it. Returns whether this one did.
+   * at once, exactly one moves it. Returns whether this one did. An open report holds its station's
+   * open key, so reopening a rejected one while the author has another open there answers 409.
    */
   private async move(
     em: EntityManager,
@@ -190,8 +202,19 @@ export class ReportsService {
     from: ReportState[],
     to: ReportState,
   ): Promise<boolean> {
-    const moved = await em.nativeUpdate(Report, { id: report.id, state: { $in: from } }, { state: to });
-    return moved > 0;
+    const openAuthorId = to === 'rejected' ? null : report.author.id;
+    try {
+      const moved = await em.nativeUpdate(
+        Report,
+        { id: report.id, state: { $in: from } },
+        { state: to, openAuthorId },
+      );
+      if (moved > 0) report.openAuthorId = openAuthorId;
+      return moved > 0;
+    } catch (error) {
+      if (error instanceof UniqueConstraintViolationException) throw new ConflictError(ANOTHER_OPEN);
+      throw error;
+    }
   }
 
   /**

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { Entity, Index, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
+import { Entity, Index, ManyToOne, Opt, PrimaryKey, Property, Unique } from '@mikro-orm/core';
 import type { TimedMark } from '@limbus/geometry';
 import { OccultationEvent } from '../../events/entities/occultation-event.entity';
 import { Station } from '../../stations/entities/station.entity';
@@ -20,6 +20,7 @@ export interface RingDip {
 /** What one observer submitted for one station; kept as submitted, whatever the coordinator decides. */
 @Entity({ tableName: 'reports' })
 @Index({ properties: ['event', 'author'] })
+@Unique({ properties: ['station', 'openAuthorId'] })
 export class Report {
   @PrimaryKey({ type: 'string', length: 36 })
   id: string = randomUUID();
@@ -65,6 +66,13 @@ export class Report {
   @Property({ type: 'string', length: 16 })
   state: ReportState & Opt = 'submitted';
 
+  /**
+   * The author's id while the report is open (submitted or accepted), null once rejected: the unique key
+   * (station, openAuthorId) lets MariaDB keep one open report per observer and station.
+   */
+  @Property({ type: 'string', length: 36, nullable: true })
+  openAuthorId: string | null;
+
   @Property({ type: 'text', nullable: true })
   rejectReason: (string & Opt) | null = null;
 
@@ -79,5 +87,6 @@ export class Report {
     this.station = station;
     this.author = author;
     this.result = result;
+    this.openAuthorId = author.id;
   }
 }
