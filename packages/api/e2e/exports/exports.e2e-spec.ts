@@ -63,7 +63,9 @@ describe('figure and table exports of a fit', () => {
   it('GET /api/fits/:fitId/figure?format=svg is well-formed, one element per stored chord, with the stored provenance', async () => {
     const res = await t.get(`/api/fits/${fitId}/figure?format=svg`).set(w.auth('observer')).expect(200);
     expect(res.headers['content-type']).toMatch(/^image\/svg\+xml/);
-    expect(res.headers['content-disposition']).toBe(`attachment; filename="limbus-fit-${fitId}-88mm.svg"`);
+    expect(res.headers['content-disposition']).toBe(
+      `attachment; filename="limbus-fit-${fitId}-88mm.svg"; filename*=UTF-8''limbus-fit-${fitId}-88mm.svg`,
+    );
     const svg = Buffer.isBuffer(res.body) ? res.body.toString('utf8') : res.text;
     expect(XMLValidator.validate(svg)).toBe(true);
     const stations = [...svg.matchAll(/data-chord="([^"]+)"/g)].map((m) => m[1]);

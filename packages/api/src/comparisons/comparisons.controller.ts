@@ -16,6 +16,7 @@ import { type AuthUser, CurrentUser } from '../auth/auth-user';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { Roles, TeamMember } from '../teams/roles.decorator';
 import type { ExportFile } from '../exports/exports.service';
+import { sendExportFile } from '../exports/send-export-file';
 import {
   COMPARISON_SELECTIONS,
   type ComparisonFigureQuery,
@@ -42,8 +43,7 @@ function FigureQueryDocs(): MethodDecorator {
 }
 
 function sendFile(res: Response, file: ExportFile): StreamableFile {
-  res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
-  return new StreamableFile(file.body, { type: file.contentType, length: file.body.length });
+  return sendExportFile(res, file);
 }
 
 @ApiTags('comparisons')

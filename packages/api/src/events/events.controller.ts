@@ -28,6 +28,7 @@ import {
 } from '@limbus/schema';
 import type { Response } from 'express';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
+import { setAttachment } from '../common/content-disposition';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { Roles, TeamMember } from '../teams/roles.decorator';
 import type { UploadedPart } from '../uploads/uploaded-part';
@@ -142,7 +143,7 @@ export class EventsController {
     @Res({ passthrough: true }) res: Response,
   ): Promise<EventInput & { body: { name: string } }> {
     const file = await this.events.exportFile(eventId);
-    res.setHeader('Content-Disposition', `attachment; filename="event-${eventId}.json"`);
+    setAttachment(res, `event-${eventId}.json`);
     return file;
   }
 }

@@ -1,4 +1,4 @@
-import { Controller, Get, Param, Query, Res, StreamableFile } from '@nestjs/common';
+import { Controller, Get, Param, Query, Res, type StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiProduces, ApiQuery, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
@@ -11,12 +11,8 @@ import {
   type TableQuery,
   tableQuerySchema,
 } from './export-query';
-import { type ExportFile, ExportsService } from './exports.service';
-
-function send(res: Response, file: ExportFile): StreamableFile {
-  res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
-  return new StreamableFile(file.body, { type: file.contentType, length: file.body.length });
-}
+import { ExportsService } from './exports.service';
+import { sendExportFile } from './send-export-file';
 
 @ApiTags('exports')
 @ApiBearerAuth()
@@ -35,7 +31,7 @@ export class ExportsController {
     @Query(new ZodValidationPipe(figureQuerySchema)) query: FigureQuery,
     @Res({ passthrough: true }) res: Response,
   ): Promise<StreamableFile> {
-    return send(res, await this.exports.figure(fitId, query));
+    return sendExportFile(res, await this.exports.figure(fitId, query));
   }
 
   @Get('table')
@@ -47,6 +43,6 @@ export class ExportsController {
     @Query(new ZodValidationPipe(tableQuerySchema)) query: TableQuery,
     @Res({ passthrough: true }) res: Response,
   ): Promise<StreamableFile> {
-    return send(res, await this.exports.table(fitId, query));
+    return sendExportFile(res, await this.exports.table(fitId, query));
   }
 }

@@ -7,6 +7,7 @@ import { TeamMember } from '../teams/roles.decorator';
 import { type ShapePayload, shapePayloadSchema } from './shape-schemas';
 import type { FitScope } from '../bodies/body-scope';
 import { ShapesService, type ShapeView } from './shapes.service';
+import { setAttachment } from '../common/content-disposition';
 
 @ApiTags('shapes')
 @ApiBearerAuth()
@@ -74,7 +75,7 @@ export class ShapesController {
     query: TableQuery,
   ): Promise<StreamableFile> {
     const text = Buffer.from(await this.shapes.table(scope, body, query.format), 'utf8');
-    res.setHeader('Content-Disposition', `attachment; filename="limbus-shape.${query.format}"`);
+    setAttachment(res, `limbus-shape.${query.format}`);
     return new StreamableFile(text, { type: TABLE_TYPES[query.format], length: text.length });
   }
 }

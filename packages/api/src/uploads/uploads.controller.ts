@@ -12,10 +12,11 @@ import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiBody, ApiConsumes, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
+import { setAttachment } from '../common/content-disposition';
 import type { ReportView } from '../reports/report-view';
 import { TeamMember } from '../teams/roles.decorator';
 import type { UploadedPart } from './uploaded-part';
-import { UploadsService } from './uploads.service';
+import { LIGHT_CURVE_FILE_NAME, UploadsService } from './uploads.service';
 
 /** A light curve of a few minutes at video rate is well under this; larger answers 413. */
 export const LIGHT_CURVE_LIMIT_BYTES = 2 * 1024 * 1024;
@@ -36,7 +37,13 @@ export class UploadsController {
       properties: { file: { type: 'string', format: 'binary' } },
     },
   })
-  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: LIGHT_CURVE_LIMIT_BYTES, files: 1 } }))
+  // busboy reads a part's plain `filename="…"` as Latin-1 unless told otherwise; browsers send UTF-8.
+  @UseInterceptors(
+    FileInterceptor('file', {
+      limits: { fileSize: LIGHT_CURVE_LIMIT_BYTES, files: 1 },
+      defParamCharset: 'utf8',
+    }),
+  )
   attach(
     @CurrentUser() user: AuthUser,
     @Param('reportId') reportId: string,
@@ -54,7 +61,7 @@ export class UploadsController {
   ): Promise<StreamableFile> {
     const { upload, bytes } = await this.uploads.lightCurve(user, reportId);
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-    res.setHeader('Content-Disposition', `attachment; filename="${upload.name.replace(/["\\\r\n]/g, '_')}"`);
+    setAttachment(res, upload.name, LIGHT_CURVE_FILE_NAME);
     return new StreamableFile(bytes);
   }
 }

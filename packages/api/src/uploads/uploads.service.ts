@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
+import { safeFileName } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../common/domain-errors';
@@ -12,6 +13,9 @@ import { User } from '../users/entities/user.entity';
 import { Upload } from './entities/upload.entity';
 import { checkLightCurveCsv } from './light-curve-csv';
 import type { UploadedPart } from './uploaded-part';
+
+/** The name of a light curve sent without a usable one. */
+export const LIGHT_CURVE_FILE_NAME = 'light-curve.csv';
 
 @Injectable()
 export class UploadsService {
@@ -45,7 +49,7 @@ export class UploadsService {
     const upload = new Upload({
       team: report.event.team,
       storageKey: '',
-      name: file.originalname.slice(0, 300) || 'light-curve.csv',
+      name: safeFileName(file.originalname, LIGHT_CURVE_FILE_NAME),
       contentType: 'text/csv',
       sizeBytes: file.size,
       sha256: createHash('sha256').update(file.buffer).digest('hex'),
