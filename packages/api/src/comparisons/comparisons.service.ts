@@ -87,7 +87,7 @@ export class ComparisonsService {
       ]);
     const rows: Array<{ row: ComparisonFit; provenance: Provenance }> = [];
     for (const f of chosen) {
-      const v = validateEventFile(JSON.parse(f.input));
+      const v = validateEventFile(JSON.parse(f.input), { stored: true });
       if (!v.ok || f.solution === null) continue;
       const current = (await this.events.detail(f.event.id)).dataSha256;
       rows.push({

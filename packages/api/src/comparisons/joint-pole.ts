@@ -35,7 +35,7 @@ export class JointInputProblems extends Error {
 
 export function jointPole(fits: JointFitInput[], requestedRing: string | null): JointPoleDocument {
   const events: EventInput[] = fits.map((f) => {
-    const v = validateEventFile(JSON.parse(f.input));
+    const v = validateEventFile(JSON.parse(f.input), { stored: true });
     if (!v.ok) throw new Error(`stored input of fit ${f.fitId} no longer validates`);
     return v.event;
   });

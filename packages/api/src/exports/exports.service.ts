@@ -41,7 +41,7 @@ export class ExportsService {
     const fit: FitRun = await this.fits.find(fitId, true);
     if (fit.state !== 'solved' || fit.solution === null)
       throw new ConflictError(`fit ${fitId} is ${fit.state}; only a solved fit has figures and tables`);
-    const validation = validateEventFile(JSON.parse(fit.input));
+    const validation = validateEventFile(JSON.parse(fit.input), { stored: true });
     if (!validation.ok) throw new Error(`stored input of fit ${fitId} no longer validates`);
     const context = await this.em.findOne(DynamicsContext, { body: fit.event.body.id });
     const dynamics =

@@ -3,6 +3,7 @@
 import { LIMB_PARAMETERS, type FitOptions, type LimbParameter, type Solution } from '@limbus/geometry';
 import { decimalsForSigma } from './number-format';
 import { type Provenance, provenanceEntries } from './provenance';
+import { printableText } from './svg-text';
 
 export type ParameterStatus = 'fitted' | 'fixed' | 'derived';
 
@@ -184,7 +185,7 @@ export function neutraliseCell(cell: string): string {
 
 /** RFC 4180 quoting: cells with a comma, quote or line break go in double quotes, quotes doubled. */
 function csvCell(cell: string): string {
-  const safe = neutraliseCell(cell);
+  const safe = neutraliseCell(printableText(cell));
   return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
 
@@ -214,7 +215,7 @@ export function tableJson(rows: ParameterRow[], provenance: Provenance | Record<
 
 /** Escapes the ten LaTeX special characters (Lamport, "LaTeX", 2nd ed., section 2.2.1 lists them). */
 export function texEscape(text: string): string {
-  return text.replace(/[\\{}$&#^_%~]/g, (c) => {
+  return printableText(text).replace(/[\\{}$&#^_%~]/g, (c) => {
     switch (c) {
       case '\\':
         return '\\textbackslash{}';

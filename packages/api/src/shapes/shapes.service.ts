@@ -86,7 +86,7 @@ export class ShapesService {
       if (f === undefined) return void issues.push({ path, message: 'no such fit in this team' });
       if (f.state !== 'solved' || f.solution === null)
         return void issues.push({ path, message: `fit is ${f.state}, not solved` });
-      const v = validateEventFile(JSON.parse(f.input));
+      const v = validateEventFile(JSON.parse(f.input), { stored: true });
       if (!v.ok) throw new Error(`stored input of fit ${id} no longer validates`);
       const made = shapeEventOf(
         { fitId: id, eventTitle: f.event.title, event: v.event, solution: f.solution },

@@ -1,3 +1,4 @@
+import { lineText, TEXT_LIMITS } from '@limbus/schema';
 import { z } from 'zod';
 
 const utcText = z.string().min(1, 'must be an ISO 8601 UTC time');
@@ -26,7 +27,7 @@ export type MarkDipPayload = z.infer<typeof markDipSchema>;
 
 /** Which dips become ring events, and under which ring name; all dips when `dips` is left out. */
 export const dipsToRingEventsSchema = z.strictObject({
-  ring: z.string().trim().min(1, 'must not be empty').max(100),
+  ring: lineText(TEXT_LIMITS.ringLabel, 'ring label'),
   dips: z.array(z.int().min(0)).min(1).optional(),
 });
 export type DipsToRingEventsPayload = z.infer<typeof dipsToRingEventsSchema>;
