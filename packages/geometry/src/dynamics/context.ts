@@ -12,8 +12,21 @@ import {
   ROCHE_RIGID_COEFFICIENT,
   SECONDS_PER_HOUR,
 } from './constants.js';
-import { constant, input, over, power, type Quantity, scaled, sigmaOf, times } from './quantity.js';
-import { meanMotionRatios } from './resonances.js';
+import {
+  constant,
+  covarianceOf,
+  input,
+  over,
+  power,
+  type Quantity,
+  scaled,
+  sigmaOf,
+  times,
+} from './quantity.js';
+import { contextResonanceRatios, gcd } from './resonances.js';
+
+/** How many resonances each ring lists, nearest first. */
+export const NEAREST_RESONANCE_COUNT = 5;
 
 export interface ContextBodyInput {
   massKg?: number;
@@ -55,6 +68,8 @@ export interface ContextInput {
   /** Largest |p − q| and largest p or q of the mean-motion resonances; default 2 and 8. */
   resonanceMaxOrder?: number;
   resonanceMaxInteger?: number;
+  /** Mean-motion resonances p:q (n_particle/n_satellite, coprime, p ≠ q) listed besides the default ones. */
+  resonances?: Array<{ p: number; q: number }>;
 }
 
 export interface SpinOrbitEntry {
@@ -69,6 +84,8 @@ export interface MeanMotionEntry {
   order: number;
   side: 'inner' | 'outer';
   radiusKm: number;
+  /** Listed because the input's `resonances` named it. */
+  named: boolean;
 }
 
 export interface RingRadiusEntry {
@@ -94,8 +111,38 @@ export interface ContextFigures {
   ringRadii: RingRadiusEntry[];
 }
 
+/**
+ * A resonance near a ring: n_particle : n = p : q with n a satellite's mean motion (`mean-motion`) or the
+ * body's spin rate (`spin-orbit`; 1:1 is the synchronous orbit, 1:k a particle period of k spin periods).
+ * distanceKm = ring radius − resonance radius (positive when the ring lies outside it), with its 1-sigma from
+ * both, and that distance in units of the ring radius's, the resonance radius's and their combined 1-sigma
+ * (null where that 1-sigma is 0).
+ */
+export interface ResonanceNearRing {
+  kind: 'mean-motion' | 'spin-orbit';
+  satellite: string | null;
+  p: number;
+  q: number;
+  radiusKm: number;
+  radiusKmSigma: number;
+  distanceKm: number;
+  distanceKmSigma: number;
+  distanceInRingSigma: number | null;
+  distanceInResonanceSigma: number | null;
+  distanceInSigma: number | null;
+}
+
+export interface RingResonances {
+  ring: string;
+  radiusKm: number;
+  radiusKmSigma: number;
+  /** The NEAREST_RESONANCE_COUNT nearest resonances, by |distanceKm|. */
+  nearest: ResonanceNearRing[];
+}
+
 export interface ContextResult extends ContextFigures {
   uncertainty: ContextFigures;
+  ringResonances: RingResonances[];
   massFrom: 'massKg' | 'densityKgM3' | 'satellite';
   propagation: 'first-order';
 }
@@ -221,7 +268,24 @@ export function computeDynamicsContext(ctx: ContextInput): ContextResult {
 
   const hill = times(helioKm, power(scaled(gm, 1 / (3 * GM_SUN_SI)), 1 / 3));
 
-  const ratios = meanMotionRatios(ctx.resonanceMaxOrder ?? 2, ctx.resonanceMaxInteger ?? 8);
+  const named = ctx.resonances ?? [];
+  named.forEach((r, i) => {
+    if (!Number.isInteger(r.p) || !Number.isInteger(r.q) || r.p < 1 || r.q < 1)
+      throw new GeometryInputError(`resonances[${i}]`, 'p and q must be integers ≥ 1');
+    if (r.p === r.q)
+      throw new GeometryInputError(
+        `resonances[${i}]`,
+        "p and q must differ (1:1 is the satellite's own orbit)",
+      );
+    if (gcd(r.p, r.q) !== 1) {
+      const k = gcd(r.p, r.q);
+      throw new GeometryInputError(
+        `resonances[${i}]`,
+        `write ${r.p}:${r.q} in lowest terms, ${r.p / k}:${r.q / k}`,
+      );
+    }
+  });
+  const ratios = contextResonanceRatios(ctx.resonanceMaxOrder ?? 2, ctx.resonanceMaxInteger ?? 8, named);
   const meanMotion = ctx.satellites.flatMap((s, i) => {
     const axis = satelliteAxis(i) ?? keplerAxisKm(satellitePeriod(i) ?? constant(Number.NaN));
     return ratios.map((r) => ({
@@ -260,6 +324,7 @@ export function computeDynamicsContext(ctx: ContextInput): ContextResult {
       order: m.order,
       side: m.side,
       radiusKm: pick(m.radius),
+      named: m.named,
     })),
     ringRadii: rings.map((r) => ({
       ring: r.ring,
@@ -271,9 +336,58 @@ export function computeDynamicsContext(ctx: ContextInput): ContextResult {
     })),
   });
 
+  const sigma = (q: Quantity): number => sigmaOf(q, inputs.relativeSigmas);
+  const candidates = [
+    ...meanMotion.map((m) => ({
+      kind: 'mean-motion' as const,
+      satellite: m.satellite,
+      p: m.p,
+      q: m.q,
+      radius: m.radius,
+    })),
+    { kind: 'spin-orbit' as const, satellite: null, p: 1, q: 1, radius: synchronous },
+    ...spinOrbit.map((o) => ({
+      kind: 'spin-orbit' as const,
+      satellite: null,
+      p: 1,
+      q: o.k,
+      radius: o.radius,
+    })),
+  ];
+  const inSigmas = (distance: number, s: number): number | null => (s > 0 ? distance / s : null);
+  const ringResonances = rings.map((r): RingResonances => {
+    const ringSigma = sigma(r.radius);
+    const nearest = candidates
+      .map((c): ResonanceNearRing => {
+        const resonanceSigma = sigma(c.radius);
+        const distanceKm = r.radius.value - c.radius.value;
+        // d = r − a: σ² = σr² + σa² − 2 cov(r, a), the covariance through any input they share.
+        const variance =
+          ringSigma ** 2 + resonanceSigma ** 2 - 2 * covarianceOf(r.radius, c.radius, inputs.relativeSigmas);
+        const distanceKmSigma = Math.sqrt(Math.max(variance, 0));
+        return {
+          kind: c.kind,
+          satellite: c.satellite,
+          p: c.p,
+          q: c.q,
+          radiusKm: c.radius.value,
+          radiusKmSigma: resonanceSigma,
+          distanceKm,
+          distanceKmSigma,
+          distanceInRingSigma: inSigmas(distanceKm, ringSigma),
+          distanceInResonanceSigma: inSigmas(distanceKm, resonanceSigma),
+          distanceInSigma: inSigmas(distanceKm, distanceKmSigma),
+        };
+      })
+      .sort((x, y) => Math.abs(x.distanceKm) - Math.abs(y.distanceKm))
+      .slice(0, NEAREST_RESONANCE_COUNT);
+    return { ring: r.ring, radiusKm: r.radius.value, radiusKmSigma: ringSigma, nearest };
+  });
+
   return {
     ...figures((q) => q.value),
-    uncertainty: figures((q) => sigmaOf(q, inputs.relativeSigmas)),
+    uncertainty: figures(sigma),
+    ringResonances,
     massFrom,
     propagation: 'first-order',
   };

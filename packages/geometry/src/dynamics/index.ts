@@ -9,6 +9,8 @@ export {
 } from './kepler.js';
 export { rocheFluidKm, rocheLimitKm, rocheRigidKm } from './roche.js';
 export {
+  contextResonanceRatios,
+  K_TO_ONE_MAX,
   meanMotionRatios,
   meanMotionResonanceKm,
   spinOrbitResonanceKm,

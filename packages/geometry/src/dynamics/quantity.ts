@@ -54,3 +54,21 @@ export function sigmaOf(quantity: Quantity, relativeSigmas: Readonly<Record<stri
   }
   return Math.abs(quantity.value) * Math.sqrt(sum);
 }
+
+/**
+ * First-order covariance of two such quantities: cov = y₁y₂ Σ e₁ᵢ e₂ᵢ (σᵢ/xᵢ)², non-zero only through the
+ * inputs they share (Taylor, An Introduction to Error Analysis, 2nd ed., §9.2, from memory).
+ */
+export function covarianceOf(
+  a: Quantity,
+  b: Quantity,
+  relativeSigmas: Readonly<Record<string, number>>,
+): number {
+  let sum = 0;
+  for (const [path, exponent] of Object.entries(a.exponents)) {
+    const other = b.exponents[path];
+    if (other === undefined) continue;
+    sum += exponent * other * (relativeSigmas[path] ?? 0) ** 2;
+  }
+  return a.value * b.value * sum;
+}

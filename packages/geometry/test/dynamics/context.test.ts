@@ -78,7 +78,8 @@ describe('computeDynamicsContext()', () => {
     expectClose(ring?.inRocheFluid ?? 0, d.ringInRocheFluid, 1e-12);
     expectClose(ring?.inBodyRadii ?? 0, d.ringInBodyRadii, 1e-12);
     expect(result.spinOrbit.map((s) => s.k)).toEqual([2, 3, 4]);
-    expect(result.meanMotion).toHaveLength(20);
+    // 20 of order 1–2, and 4:1 … 8:1 and 1:4 … 1:8 (test/dynamics/resonances.test.ts).
+    expect(result.meanMotion).toHaveLength(30);
   });
 
   it('computeDynamicsContext() first-order 1-sigma matches a seeded Monte Carlo of the formulas', () => {
