@@ -67,6 +67,29 @@ const satellite = z
 
 const ring = z.strictObject({ ring: z.string().min(1, 'must not be empty'), ...measured('radiusKm') });
 
+function greatestCommonDivisor(x: number, y: number): number {
+  return y === 0 ? x : greatestCommonDivisor(y, x % y);
+}
+
+/** A mean-motion resonance p:q (n_particle/n_satellite) to list besides the default ones. */
+const resonance = z
+  .strictObject({
+    p: z.int('must be a whole number').min(1, 'must be 1 or more').max(50, 'must be 50 or less'),
+    q: z.int('must be a whole number').min(1, 'must be 1 or more').max(50, 'must be 50 or less'),
+  })
+  .superRefine((r, ctx) => {
+    if (r.p === r.q)
+      ctx.addIssue({ code: 'custom', message: "p and q must differ (1:1 is the satellite's own orbit)" });
+    else {
+      const k = greatestCommonDivisor(r.p, r.q);
+      if (k !== 1)
+        ctx.addIssue({
+          code: 'custom',
+          message: `write ${r.p}:${r.q} in lowest terms, ${r.p / k}:${r.q / k}`,
+        });
+    }
+  });
+
 export const contextInputSchema = z.strictObject({
   format: z.literal(CONTEXT_INPUT_FORMAT),
   body,
@@ -77,6 +100,7 @@ export const contextInputSchema = z.strictObject({
   spinOrbitK: z.array(z.int().min(1, 'must be 1 or more')).min(1).optional(),
   resonanceMaxOrder: z.int().min(1).max(10).optional(),
   resonanceMaxInteger: z.int().min(2).max(50).optional(),
+  resonances: z.array(resonance).max(50, 'at most 50 resonances').optional(),
 });
 
 export type ContextInputFile = z.infer<typeof contextInputSchema>;
