@@ -7,7 +7,7 @@ import { FITS_QUEUE } from '../queue/queue.module';
 import { FitRun } from './entities/fit-run.entity';
 import { enqueueFit, type FitJobData } from './fit-queue';
 
-/** Queues again the fits stored as queued that have no job in Redis (see OrphanSweep). */
+/** Queues again the fits stored as queued or running whose job cannot finish them (see OrphanSweep). */
 @Injectable()
 export class FitRequeue extends OrphanSweep {
   protected readonly logger = new Logger(FitRequeue.name);
@@ -19,15 +19,20 @@ export class FitRequeue extends OrphanSweep {
     super();
   }
 
-  protected async queuedIds(before: Date, limit: number): Promise<string[]> {
+  protected async unfinishedIds(before: Date, limit: number): Promise<string[]> {
     const rows = await this.orm.em
       .fork()
       .find(
         FitRun,
-        { state: 'queued', createdAt: { $lt: before } },
+        { state: { $in: ['queued', 'running'] }, createdAt: { $lt: before } },
         { fields: ['id'], orderBy: { createdAt: 'asc' }, limit },
       );
     return rows.map((r) => r.id);
+  }
+
+  protected async isUnfinished(id: string): Promise<boolean> {
+    const row = await this.orm.em.fork().findOne(FitRun, { id }, { fields: ['state'] });
+    return row?.state === 'queued' || row?.state === 'running';
   }
 
   protected enqueue(id: string): Promise<unknown> {

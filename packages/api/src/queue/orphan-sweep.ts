@@ -15,10 +15,26 @@ export function requeueIntervalMs(env: NodeJS.ProcessEnv): number {
 const SUBMIT_GRACE_MS = 5_000;
 const BATCH = 200;
 
+/** Why a sweep queued a row again: its job is not in Redis, or it ended there without finishing the row. */
+export type OrphanReason = 'gone' | 'completed' | 'failed';
+
 /**
- * The row is the truth, the queue only a delivery: rows stored as queued whose job never reached Redis
- * (Redis was down at submit, or the API died between the two) are queued again by the worker, every
- * REQUEUE_INTERVAL_MS. Any number of workers may sweep at once; a row's id as job id keeps it one job.
+ * The row is the truth, the queue only a delivery. Every REQUEUE_INTERVAL_MS each worker looks at the
+ * rows still queued or running and queues again those whose job cannot finish them:
+ *
+ * - the job is not in Redis (Redis was down at submit, the API died between row and job, or Redis lost
+ *   its data);
+ * - the job ended in Redis (completed or failed) while the row is unfinished: the processor was cut off
+ *   by an infrastructure error, e.g. the database went away mid-job. Such a job is removed first, since
+ *   a job id can be added only once.
+ *
+ * A job that is waiting, delayed or active is left alone. Whether an active job's worker is alive is
+ * told by BullMQ's job lock, a key `<prefix>:<queue>:<jobId>:lock` that the worker renews every half
+ * lock duration while it runs the job: when the worker dies, the lock expires and BullMQ's stalled-job
+ * check (which every worker runs every stalled interval) puts the job back in the waiting list, or marks
+ * it failed after too many stalls, and then this sweep queues it again. Any number of workers may sweep
+ * at once; a row's id as job id keeps it one job, and the processors' conditional writes keep a fit from
+ * being recorded twice even if two workers end up computing it.
  */
 export abstract class OrphanSweep implements OnApplicationBootstrap, OnApplicationShutdown {
   private readonly intervalMs = requeueIntervalMs(process.env);
@@ -27,8 +43,10 @@ export abstract class OrphanSweep implements OnApplicationBootstrap, OnApplicati
 
   protected abstract readonly logger: Logger;
   protected abstract readonly queue: Queue;
-  /** Ids of rows still queued and created before `before`, oldest first, at most `limit`. */
-  protected abstract queuedIds(before: Date, limit: number): Promise<string[]>;
+  /** Ids of rows still queued or running and created before `before`, oldest first, at most `limit`. */
+  protected abstract unfinishedIds(before: Date, limit: number): Promise<string[]>;
+  /** Whether the row is still queued or running (read again just before acting). */
+  protected abstract isUnfinished(id: string): Promise<boolean>;
   protected abstract enqueue(id: string): Promise<unknown>;
 
   onApplicationBootstrap(): void {
@@ -54,15 +72,26 @@ export abstract class OrphanSweep implements OnApplicationBootstrap, OnApplicati
   /** Returns the ids it queued again. */
   async sweep(): Promise<string[]> {
     const requeued: string[] = [];
-    for (const id of await this.queuedIds(new Date(Date.now() - SUBMIT_GRACE_MS), BATCH)) {
-      if (await this.queue.getJob(id)) continue;
+    const reasons: string[] = [];
+    for (const id of await this.unfinishedIds(new Date(Date.now() - SUBMIT_GRACE_MS), BATCH)) {
+      const reason = await this.orphaned(id);
+      if (reason === null || !(await this.isUnfinished(id))) continue;
+      // 0 when the job is locked again: a worker took it after all.
+      if (reason !== 'gone' && (await this.queue.remove(id)) === 0) continue;
       await this.enqueue(id);
       requeued.push(id);
+      reasons.push(`${id} (${reason === 'gone' ? 'not in Redis' : `job ${reason}`})`);
     }
     if (requeued.length > 0)
-      this.logger.warn(
-        `queued again ${requeued.length} job(s) that Redis did not have: ${requeued.join(', ')}`,
-      );
+      this.logger.warn(`queued again ${requeued.length} job(s): ${reasons.join(', ')}`);
     return requeued;
+  }
+
+  /** Null while the job can still finish its row: waiting, delayed, or active under a live lock. */
+  private async orphaned(id: string): Promise<OrphanReason | null> {
+    const state = await this.queue.getJobState(id);
+    if (state === 'unknown') return 'gone';
+    if (state === 'completed' || state === 'failed') return state;
+    return null;
   }
 }

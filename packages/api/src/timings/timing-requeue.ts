@@ -6,7 +6,7 @@ import { OrphanSweep } from '../queue/orphan-sweep';
 import { LightCurveTiming } from './entities/light-curve-timing.entity';
 import { enqueueTiming, TIMINGS_QUEUE, type TimingJobData } from './timings-queue';
 
-/** Queues again the timings stored as queued that have no job in Redis (see OrphanSweep). */
+/** Queues again the timings stored as queued or running whose job cannot finish them (see OrphanSweep). */
 @Injectable()
 export class TimingRequeue extends OrphanSweep {
   protected readonly logger = new Logger(TimingRequeue.name);
@@ -18,15 +18,20 @@ export class TimingRequeue extends OrphanSweep {
     super();
   }
 
-  protected async queuedIds(before: Date, limit: number): Promise<string[]> {
+  protected async unfinishedIds(before: Date, limit: number): Promise<string[]> {
     const rows = await this.orm.em
       .fork()
       .find(
         LightCurveTiming,
-        { state: 'queued', createdAt: { $lt: before } },
+        { state: { $in: ['queued', 'running'] }, createdAt: { $lt: before } },
         { fields: ['id'], orderBy: { createdAt: 'asc' }, limit },
       );
     return rows.map((r) => r.id);
+  }
+
+  protected async isUnfinished(id: string): Promise<boolean> {
+    const row = await this.orm.em.fork().findOne(LightCurveTiming, { id }, { fields: ['state'] });
+    return row?.state === 'queued' || row?.state === 'running';
   }
 
   protected enqueue(id: string): Promise<unknown> {
