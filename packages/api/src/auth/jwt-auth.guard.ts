@@ -22,6 +22,9 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
   }
 
   override handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
+    // An error here is the user lookup failing (e.g. the database is down), not a bad token: the error
+    // filter answers it (503), so a client is not signed out by an outage.
+    if (error instanceof Error) throw error;
     if (error || !user) throw new UnauthorizedError('Sign-in required or session expired');
     return user;
   }

@@ -76,6 +76,35 @@ describe('toErrorBody', () => {
     });
   });
 
+  it('toErrorBody() answers 503 when the database cannot be reached, and 500 for other database errors', () => {
+    const unavailable = {
+      statusCode: 503,
+      error: 'Service Unavailable',
+      message: 'The database is unavailable; try again shortly',
+    };
+    // What the mariadb connector threw while the fault test had MariaDB stopped (code, errno, SQLSTATE).
+    const refused = Object.assign(new Error('connect ECONNREFUSED 127.0.0.1:33061'), {
+      code: 'ECONNREFUSED',
+      errno: -111,
+      sqlState: 'HY000',
+    });
+    expect(toErrorBody(refused)).toEqual(unavailable);
+    const closed = Object.assign(new Error('socket has unexpectedly been closed'), {
+      code: 'ER_SOCKET_UNEXPECTED_CLOSE',
+      sqlState: '08S01',
+    });
+    expect(toErrorBody(new Error('select failed', { cause: closed }))).toEqual(unavailable);
+    expect(toErrorBody(Object.assign(new Error('lost'), { sqlState: '08S01' }))).toEqual(unavailable);
+    expect(toErrorBody(Object.assign(new Error('Knex: Timeout'), { name: 'KnexTimeoutError' }))).toEqual(
+      unavailable,
+    );
+    const duplicate = Object.assign(new Error('Duplicate entry'), {
+      code: 'ER_DUP_ENTRY',
+      sqlState: '23000',
+    });
+    expect(toErrorBody(duplicate).statusCode).toBe(500);
+  });
+
   it('toErrorBody() hides the message and stack of an unexpected error', () => {
     const body = toErrorBody(new Error('connect ECONNREFUSED 10.0.0.5:3306 password=hunter2'));
     expect(body).toEqual({

@@ -5,6 +5,7 @@ import {
   DomainError,
   type FieldIssue,
   TooManyRequestsError,
+  UnavailableError,
   ValidationError,
 } from './domain-errors';
 
@@ -52,6 +53,45 @@ function isHttpLikeError(value: unknown): value is { status: number; message: st
   );
 }
 
+/**
+ * Codes of the mariadb connector (its `lib/misc/errors.js` and `lib/const/error-code.js`) and Node's
+ * socket errors that mean "no usable connection to the database", as opposed to a bad query.
+ */
+const UNREACHABLE_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'EPIPE',
+  'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ENETUNREACH',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+  'ER_CONNECTION_ALREADY_CLOSED',
+  'ER_SOCKET_UNEXPECTED_CLOSE',
+  'ER_CMD_CONNECTION_CLOSED',
+  'ER_CONNECTION_TIMEOUT',
+  'ER_SOCKET_TIMEOUT',
+  'ER_SOCKET',
+  'ER_GET_CONNECTION_TIMEOUT',
+  'ER_SERVER_SHUTDOWN',
+  'ER_CONNECTION_KILLED',
+]);
+
+/**
+ * The database (or the way to it) is down: the request may succeed later, so it is a 503, not a 500.
+ * SQLSTATE class 08 is "connection exception" in ISO/IEC 9075 (MariaDB sends 08S01 for a lost link);
+ * knex names a pool that found no connection in time KnexTimeoutError. MikroORM copies the driver's
+ * code and SQLSTATE onto its own exceptions, and a wrapped error keeps the original as `cause`.
+ */
+export function isDatabaseUnavailable(error: unknown, depth = 0): boolean {
+  if (typeof error !== 'object' || error === null || depth > 3) return false;
+  const { code, sqlState, name, cause } = error as Record<string, unknown>;
+  if (typeof code === 'string' && UNREACHABLE_CODES.has(code)) return true;
+  if (typeof sqlState === 'string' && sqlState.startsWith('08')) return true;
+  if (name === 'KnexTimeoutError') return true;
+  return isDatabaseUnavailable(cause, depth + 1);
+}
+
 export function toErrorBody(exception: unknown): ErrorBody {
   if (exception instanceof ValidationError) {
     return {
@@ -93,6 +133,8 @@ export function toErrorBody(exception: unknown): ErrorBody {
       message: exception.message,
     };
   }
+  if (isDatabaseUnavailable(exception))
+    return toErrorBody(new UnavailableError('The database is unavailable; try again shortly'));
   return { statusCode: 500, error: reasonPhrase(500), message: 'Internal server error' };
 }
 
