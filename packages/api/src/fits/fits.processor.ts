@@ -78,25 +78,30 @@ export class FitsProcessor extends WorkerHost {
     }
     await job.updateProgress(90);
     const finishedAt = new Date();
-    const written = await this.em.nativeUpdate(
-      FitRun,
-      unfinished,
-      solution
-        ? { state: 'solved', progress: 100, solution, error: null, finishedAt }
-        : { state: 'failed', progress: 100, error, finishedAt },
-    );
-    if (written === 0) return 'already finished elsewhere';
     const state = solution ? 'solved' : 'failed';
-    this.audit.record(this.em, {
-      teamId: fit.event.team.id,
-      eventId: fit.event.id,
-      actorId: null,
-      action: `fit.${state}`,
-      objectType: 'fit',
-      objectId: fit.id,
-      detail: error ? { error } : { engineVersion: solution?.engine.version ?? null },
+    // The result and its audit entry are one transaction: a worker killed or a database lost between the
+    // two would otherwise leave a finished fit that the audit never saw (and a retry would not add it).
+    const written = await this.em.transactional(async (em) => {
+      const updated = await em.nativeUpdate(
+        FitRun,
+        unfinished,
+        solution
+          ? { state: 'solved', progress: 100, solution, error: null, finishedAt }
+          : { state: 'failed', progress: 100, error, finishedAt },
+      );
+      if (updated === 0) return 0;
+      this.audit.record(em, {
+        teamId: fit.event.team.id,
+        eventId: fit.event.id,
+        actorId: null,
+        action: `fit.${state}`,
+        objectType: 'fit',
+        objectId: fit.id,
+        detail: error ? { error } : { engineVersion: solution?.engine.version ?? null },
+      });
+      return updated;
     });
-    await this.em.flush();
+    if (written === 0) return 'already finished elsewhere';
     this.logger.log(`fit ${fit.id} ${state}`);
     await this.notices.deliver({
       kind: 'fit-finished',
