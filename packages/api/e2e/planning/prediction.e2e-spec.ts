@@ -256,7 +256,7 @@ describe("planning: the event's prediction, its map and files, placement and bri
     const geo = await t.get(`/api/events/${eventId}/prediction.geojson`).set(w.auth('observer')).expect(200);
     expect(geo.headers['content-type']).toMatch(/^application\/geo\+json/);
     expect(geo.headers['content-disposition']).toBe(
-      `attachment; filename="limbus-prediction-${eventId}.geojson"`,
+      `attachment; filename="limbus-prediction-${eventId}.geojson"; filename*=UTF-8''limbus-prediction-${eventId}.geojson`,
     );
     const collection = JSON.parse(geo.text) as {
       type: string;
@@ -275,7 +275,7 @@ describe("planning: the event's prediction, its map and files, placement and bri
       .set(w.auth('observer'))
       .expect(200);
     expect(svg.headers['content-disposition']).toBe(
-      `attachment; filename="limbus-shadow-path-${eventId}-180mm.svg"`,
+      `attachment; filename="limbus-shadow-path-${eventId}-180mm.svg"; filename*=UTF-8''limbus-shadow-path-${eventId}-180mm.svg`,
     );
     const text = svg.body instanceof Buffer ? svg.body.toString('utf8') : svg.text;
     expect(text).toContain('aria-label="Shadow path map: ');

@@ -15,6 +15,7 @@ import {
 } from '@limbus/schema';
 import type { Response } from 'express';
 import { type AuthUser, CurrentUser } from '../auth/auth-user';
+import { setAttachment } from '../common/content-disposition';
 import { openApiSchema, ZodValidationPipe } from '../common/zod-validation.pipe';
 import { FIGURE_FORMATS } from '../exports/export-query';
 import { Roles, TeamMember } from '../teams/roles.decorator';
@@ -29,8 +30,7 @@ import { predictionMapOf } from './prediction-map';
 import { PredictionService } from './prediction.service';
 
 function send(res: Response, file: MapFile): StreamableFile {
-  // File names are built from the event id (a UUID) and fixed words only: nothing to escape.
-  res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
+  setAttachment(res, file.fileName);
   return new StreamableFile(file.body, { type: file.contentType, length: file.body.length });
 }
 
