@@ -43,7 +43,12 @@ export default async function bench(): Promise<void> {
   // The data are drawn from the fitter's own model here (speed, not accuracy, is measured; the accuracy
   // tests use the independent generator), plus white noise of 3 % of the star.
   const truthProfile = buildEdgeProfile(setup);
-  const model = new WellModel(times, truthProfile, SPEED, EXPOSURE_S);
+  const model = new WellModel(
+    times,
+    truthProfile,
+    { disappearanceKmPerS: SPEED, reappearanceKmPerS: SPEED },
+    EXPOSURE_S,
+  );
   const gauss = gaussianSource(42);
   const flux = times.map(
     (t) =>

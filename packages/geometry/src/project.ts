@@ -13,6 +13,7 @@ import { clamp } from './math.js';
 import { ttSecondsToUtcIso, utcIsoToTtSeconds } from './time/scales.js';
 import {
   GeometryInputError,
+  type DipOpacity,
   type EventInput,
   type SkyPointKm,
   type SolutionChord,
@@ -25,6 +26,13 @@ export interface RingDip {
   station: string;
   start: SkyPointKm;
   end: SkyPointKm;
+  /** The dip's corrected end minus start. */
+  durationSeconds: number;
+  startSigmaSeconds: number;
+  endSigmaSeconds: number;
+  /** The station's sky-plane velocity at the dip's mid-time (that of its ring point). */
+  velocity: VelocityKmPerS;
+  apparentOpacity?: DipOpacity;
 }
 
 export interface ProjectedEvent {
@@ -61,6 +69,23 @@ export const PATH_MAX_POINTS = 5001;
 interface Timed {
   ttSeconds: number;
   path: string;
+}
+
+/** One timed edge of a positive chord, at its corrected time. */
+interface TimedEdge extends Timed {
+  event: 'disappearance' | 'reappearance';
+  sigmaSeconds: number;
+}
+
+/**
+ * A chord's corrected times: [a, b] is the span it covers (a positive chord's edges, or a negative chord's
+ * start and end); a positive chord with one edge has a = b = that edge.
+ */
+interface ChordTimes {
+  station: Station;
+  a: Timed;
+  b: Timed;
+  edges: TimedEdge[];
 }
 
 function mean(values: readonly number[]): number {
@@ -118,31 +143,34 @@ export function projectEvent(event: EventInput, options: ProjectOptions = {}): P
 
   const ephemeris = buildEphemeris(event.ephemeris.rows, event.ephemeris.timeScale);
 
-  const chordTimes = event.chords.map((chord, i) => {
+  const chordTimes = event.chords.map((chord, i): ChordTimes => {
     const station = stationAt(chord.station, `chords[${i}].station`);
     if (chord.type === 'positive') {
-      requirePositiveSigma(chord.disappearance.sigmaSeconds, `chords[${i}].disappearance.sigmaSeconds`);
-      requirePositiveSigma(chord.reappearance.sigmaSeconds, `chords[${i}].reappearance.sigmaSeconds`);
-      const a = correctedTt(
-        chord.disappearance.time,
-        chord.station,
-        `chords[${i}].disappearance.time`,
-        chord.timeOffsetSeconds,
-      );
-      const b = correctedTt(
-        chord.reappearance.time,
-        chord.station,
-        `chords[${i}].reappearance.time`,
-        chord.timeOffsetSeconds,
-      );
-      if (b.ttSeconds <= a.ttSeconds)
-        throw new GeometryInputError(b.path, 'reappearance is not after disappearance');
-      return { station, a, b };
+      const edge = (event: 'disappearance' | 'reappearance'): TimedEdge | null => {
+        const mark = chord[event];
+        if (mark === undefined) return null;
+        requirePositiveSigma(mark.sigmaSeconds, `chords[${i}].${event}.sigmaSeconds`);
+        return {
+          event,
+          sigmaSeconds: mark.sigmaSeconds,
+          ...correctedTt(mark.time, chord.station, `chords[${i}].${event}.time`, chord.timeOffsetSeconds),
+        };
+      };
+      const edges = [edge('disappearance'), edge('reappearance')].filter((e): e is TimedEdge => e !== null);
+      const [first, last] = [edges[0], edges[edges.length - 1]];
+      if (first === undefined || last === undefined)
+        throw new GeometryInputError(
+          `chords[${i}]`,
+          'a positive chord needs a disappearance, a reappearance or both',
+        );
+      if (edges.length === 2 && last.ttSeconds <= first.ttSeconds)
+        throw new GeometryInputError(last.path, 'reappearance is not after disappearance');
+      return { station, a: first, b: last, edges };
     }
     const a = correctedTt(chord.start, chord.station, `chords[${i}].start`, chord.timeOffsetSeconds);
     const b = correctedTt(chord.end, chord.station, `chords[${i}].end`, chord.timeOffsetSeconds);
     if (b.ttSeconds <= a.ttSeconds) throw new GeometryInputError(b.path, 'chord ends before it starts');
-    return { station, a, b };
+    return { station, a, b, edges: [] };
   });
   const dipTimes = event.ringEvents.map((dip, i) => {
     const station = stationAt(dip.station, `ringEvents[${i}].station`);
@@ -158,6 +186,8 @@ export function projectEvent(event: EventInput, options: ProjectOptions = {}): P
     requireWithinSpan(ephemeris, t.b.ttSeconds, t.b.path);
   }
 
+  // A single-edge chord's own time stands in for its mid-time (a = b), in the reference time and for its
+  // velocity.
   const midTt = (t: { a: Timed; b: Timed }): number => (t.a.ttSeconds + t.b.ttSeconds) / 2;
   const positiveMids = chordTimes.filter((_, i) => event.chords[i]?.type === 'positive').map(midTt);
   const referenceTt =
@@ -172,11 +202,10 @@ export function projectEvent(event: EventInput, options: ProjectOptions = {}): P
   const basis = skyPlaneBasis(starDirection(event.star, referenceTt));
   const sky = new SkyPlane(basis, ephemeris, new EarthOrientation(event.earthRotation.dut1Seconds));
 
+  // Only a chord with both edges has a duration; a single-edge chord has none to scale the step by.
   const longestPositiveSeconds = Math.max(
     0,
-    ...chordTimes
-      .filter((_, i) => event.chords[i]?.type === 'positive')
-      .map((t) => t.b.ttSeconds - t.a.ttSeconds),
+    ...chordTimes.filter((t) => t.edges.length === 2).map((t) => t.b.ttSeconds - t.a.ttSeconds),
   );
   const baseStepSeconds =
     longestPositiveSeconds > 0
@@ -191,38 +220,25 @@ export function projectEvent(event: EventInput, options: ProjectOptions = {}): P
   const limbPoints: LimbPoint[] = [];
   const negatives: NegativePath[] = [];
   event.chords.forEach((chord, i) => {
-    const t = chordTimes[i] as (typeof chordTimes)[number];
+    const t = chordTimes[i] as ChordTimes;
     const velocity = sky.velocity(t.station, midTt(t));
     const speed = Math.hypot(velocity.f, velocity.g);
     if (chord.type === 'positive') {
-      const d = sky.point(t.station, t.a.ttSeconds);
-      const r = sky.point(t.station, t.b.ttSeconds);
-      chords.push({
-        station: chord.station,
-        type: 'positive',
-        points: [
-          { ...d, event: 'disappearance', sigmaKm: chord.disappearance.sigmaSeconds * speed },
-          { ...r, event: 'reappearance', sigmaKm: chord.reappearance.sigmaSeconds * speed },
-        ],
-        path: [],
-        velocityKmPerS: velocity,
-      });
-      limbPoints.push(
-        {
+      // Both edges: the velocity at the chord's mid-time, shared by its two points. One edge: the velocity
+      // at that edge's own corrected time.
+      const points: SolutionChord['points'] = [];
+      for (const edge of t.edges) {
+        const point = sky.point(t.station, edge.ttSeconds);
+        points.push({ ...point, event: edge.event, sigmaKm: edge.sigmaSeconds * speed });
+        limbPoints.push({
           station: chord.station,
-          event: 'disappearance',
-          ...d,
-          sigmaSeconds: chord.disappearance.sigmaSeconds,
+          event: edge.event,
+          ...point,
+          sigmaSeconds: edge.sigmaSeconds,
           velocity,
-        },
-        {
-          station: chord.station,
-          event: 'reappearance',
-          ...r,
-          sigmaSeconds: chord.reappearance.sigmaSeconds,
-          velocity,
-        },
-      );
+        });
+      }
+      chords.push({ station: chord.station, type: 'positive', points, path: [], velocityKmPerS: velocity });
       return;
     }
     const duration = t.b.ttSeconds - t.a.ttSeconds;
@@ -254,6 +270,11 @@ export function projectEvent(event: EventInput, options: ProjectOptions = {}): P
       station: dip.station,
       start: sky.point(t.station, t.a.ttSeconds),
       end: sky.point(t.station, t.b.ttSeconds),
+      durationSeconds: t.b.ttSeconds - t.a.ttSeconds,
+      startSigmaSeconds: dip.start.sigmaSeconds,
+      endSigmaSeconds: dip.end.sigmaSeconds,
+      velocity: point.velocity,
+      ...(dip.apparentOpacity === undefined ? {} : { apparentOpacity: dip.apparentOpacity }),
     });
     ringDips.set(dip.ring, dips);
     const mids = ringMids.get(dip.ring) ?? [];

@@ -2,12 +2,14 @@
 // numbers a light-curve timing needs to turn seconds into kilometres (Fresnel scale, star disc). Computed
 // by the same projection as the fits, so a timing and the fit that uses its times agree on the geometry.
 import { projectEvent } from './project.js';
-import { GeometryInputError, type EventInput, type VelocityKmPerS } from './types.js';
+import { GeometryInputError, type EventInput, type SkyPointKm, type VelocityKmPerS } from './types.js';
 
 export interface ShadowMotion {
   /** |v| of the station relative to the body's shadow in the sky plane, km/s. */
   speedKmPerS: number;
   velocityKmPerS: VelocityKmPerS;
+  /** The station's sky-plane position relative to the body's ephemeris centre at that instant, km. */
+  pointKm: SkyPointKm;
   /** Geocentric distance of the body, km. */
   distanceKm: number;
 }
@@ -55,10 +57,16 @@ export function shadowMotionAt(
       throw new GeometryInputError('time', error.detail);
     throw error;
   }
-  const velocity = (projected.chords[0] as { velocityKmPerS: VelocityKmPerS }).velocityKmPerS;
+  const chord = projected.chords[0] as { velocityKmPerS: VelocityKmPerS; path: SkyPointKm[] };
+  const velocity = chord.velocityKmPerS;
+  // The probe's two path ends, ±0.5 s: their mean is the position at the instant to within the track's
+  // curvature over half a second (millimetres).
+  const first = chord.path[0] as SkyPointKm;
+  const last = chord.path[chord.path.length - 1] as SkyPointKm;
   return {
     speedKmPerS: Math.hypot(velocity.f, velocity.g),
     velocityKmPerS: velocity,
+    pointKm: { fKm: (first.fKm + last.fKm) / 2, gKm: (first.gKm + last.gKm) / 2 },
     distanceKm: projected.distanceKm,
   };
 }

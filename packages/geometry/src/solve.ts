@@ -5,12 +5,8 @@ import { subMatrix } from './fit/covariance.js';
 import { fitLimbAndRings } from './fit/joint-limb-ring.js';
 import { fitLimb, type LimbFitInput, type LimbFitResult } from './fit/limb-fit.js';
 import { ringPolesWithUncertainty } from './fit/pole-uncertainty.js';
-import {
-  RING_COVARIANCE_PARAMETERS,
-  fitRing,
-  ringPlaneRadiusKm,
-  type RingFitResult,
-} from './fit/ring-fit.js';
+import { ringCrossing } from './fit/ring-crossing.js';
+import { RING_COVARIANCE_PARAMETERS, fitRing, type RingFitResult } from './fit/ring-fit.js';
 import { MAS_PER_RAD } from './math.js';
 import { projectEvent, type ProjectedEvent } from './project.js';
 import {
@@ -78,7 +74,6 @@ interface RingFitOutcome {
 
 function ringSolution(projected: ProjectedEvent, outcome: RingFitOutcome): RingSolution {
   const { ring, fit, covariance } = outcome;
-  const center = { fKm: fit.centerFKm, gKm: fit.centerGKm };
   const points = projected.ringPoints.get(ring) ?? [];
   const dips = projected.ringDips.get(ring) ?? [];
   const bp = subMatrix(covariance, [3, 4]);
@@ -105,13 +100,8 @@ function ringSolution(projected: ProjectedEvent, outcome: RingFitOutcome): RingS
     ]),
     crossings: points.map((p, k) => {
       const dip = dips[k];
-      const width = dip
-        ? Math.abs(
-            ringPlaneRadiusKm(dip.end, center, fit.openingAngleDeg, fit.positionAngleDeg) -
-              ringPlaneRadiusKm(dip.start, center, fit.openingAngleDeg, fit.positionAngleDeg),
-          )
-        : 0;
-      return { fKm: p.fKm, gKm: p.gKm, station: p.station, radialWidthKm: width };
+      const midPoint = { fKm: p.fKm, gKm: p.gKm, station: p.station };
+      return dip ? ringCrossing(dip, midPoint, fit, covariance) : { ...midPoint, radialWidthKm: 0 };
     }),
     chi2: fit.chi2,
     dof: fit.dof,

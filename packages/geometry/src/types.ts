@@ -35,11 +35,15 @@ export interface TimedMark {
   sigmaSeconds: number;
 }
 
+/**
+ * A chord on which the star disappeared. It gives both edges, or only one of them (a camera started late,
+ * a cloud): at least one of `disappearance` and `reappearance` is present (docs/file-formats.md).
+ */
 export interface PositiveChordInput {
   station: string;
   type: 'positive';
-  disappearance: TimedMark;
-  reappearance: TimedMark;
+  disappearance?: TimedMark;
+  reappearance?: TimedMark;
   timeOffsetSeconds: number;
 }
 
@@ -53,11 +57,24 @@ export interface NegativeChordInput {
 
 export type ChordInput = PositiveChordInput | NegativeChordInput;
 
+/**
+ * A dip's apparent opacity measured on its light curve (the fraction of the star's light it removed) with
+ * its 1-sigma; `lowerLimit` when the dip was not resolved or was opaque, so that the value only bounds the
+ * opacity from below (docs/method.md, "Ring dips").
+ */
+export interface DipOpacity {
+  value: number;
+  sigma: number;
+  lowerLimit: boolean;
+}
+
 export interface RingEventInput {
   station: string;
   ring: string;
   start: TimedMark;
   end: TimedMark;
+  /** Absent when the dip was timed without its depth (by eye, or in a file that does not state it). */
+  apparentOpacity?: DipOpacity;
 }
 
 export const LIMB_PARAMETERS = [
@@ -185,6 +202,44 @@ export interface RingPole {
   uncertainty?: { raDeg: number; decDeg: number; correlation: number };
 }
 
+/** A value and its 1-sigma. */
+export interface Measured {
+  value: number;
+  sigma: number;
+}
+
+/**
+ * What a dip says about the ring where it was crossed, from its apparent opacity p (light curve), its
+ * length L = |v|·(end − start) along the station's track, its radial width W_r in the ring plane and the
+ * ring's opening angle B (docs/method.md, "Ring dips"): apparent τ = −ln(1 − p), normal τ_N = τ·|sin B|,
+ * apparent equivalent width p·L and depth τ·L, normal equivalent width p·W_r·|sin B| and depth τ_N·W_r.
+ * The optical depths and depths are null for an opaque dip; with `lowerLimit` every value but the
+ * equivalent widths bounds the truth from below.
+ */
+export interface RingCrossingDip {
+  lowerLimit: boolean;
+  apparentOpacity: Measured;
+  apparentOpticalDepth: Measured | null;
+  normalOpticalDepth: Measured | null;
+  equivalentWidthKm: Measured;
+  normalEquivalentWidthKm: Measured;
+  equivalentDepthKm: Measured | null;
+  normalEquivalentDepthKm: Measured | null;
+}
+
+export interface RingCrossing extends SkyPointKm {
+  station: string;
+  /** |r_end − r_start|: the ring-plane radii of the dip's deprojected start and end points. */
+  radialWidthKm: number;
+  /**
+   * 1-sigma of radialWidthKm from the dip's two timing sigmas and the ring's covariance (absent in
+   * solutions stored before it was added).
+   */
+  radialWidthKmSigma?: number;
+  /** Present when the ring event states its apparent opacity. */
+  dip?: RingCrossingDip;
+}
+
 export interface RingSolution {
   ring: string;
   /** Where the centre came from; "joint" without a positive chord is reported as "free". */
@@ -210,7 +265,7 @@ export interface RingSolution {
   /** The sampler's diagnostics when the ring was fitted on its own (not jointly); absent in older fits. */
   sampler?: SamplerDiagnostics;
   poles: [RingPole, RingPole];
-  crossings: Array<SkyPointKm & { station: string; radialWidthKm: number }>;
+  crossings: RingCrossing[];
   chi2: number;
   dof: number;
 }

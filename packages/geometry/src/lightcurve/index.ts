@@ -10,6 +10,8 @@ export {
 export {
   fitTiming,
   fitMainEvent,
+  edgeSpeedsOf,
+  type EdgeOutside,
   searchDips,
   type MainEventFit,
   DEFAULT_DETECTION_SIGMA,
@@ -20,3 +22,6 @@ export {
   type DipResult,
 } from './timing.js';
 export { starAngularDiameterMasFromVK, starDiameterKmFromMas } from './star.js';
+export { dipProducts, type DipProducts, type DipLowerLimits, type DipResolution } from './dip-products.js';
+export { limbCrossing, predictedLimb, type LimbCrossing } from './edge-speed.js';
+export type { EdgeSpeeds } from './well-model.js';

@@ -4,13 +4,19 @@
 // The two levels enter linearly and are solved exactly for every trial pair of times, so the search is
 // two-dimensional; each time's 1-sigma is the mean half-width of its χ²min + 1 profile, profiling over
 // the other time and the levels (Press et al., Numerical Recipes, 3rd ed., §15.6.5, Δχ² = 1 for one
-// parameter of interest).
+// parameter of interest). A curve that starts or ends inside the event holds one edge: the other is put
+// beyond the curve's reach and only the edge the curve holds is timed. Each edge sweeps across the
+// station at its own speed (the limb-normal component of the shadow's velocity there).
 
 import { GeometryInputError } from '../types.js';
 import { strongestResidualBox, strongestStep } from './box-search.js';
+import { Matrix } from 'ml-matrix';
+
+import { normalMatrixCovariance } from '../fit/covariance.js';
+import { dipProducts, type DipProducts, type DipResolution } from './dip-products.js';
 import type { EdgeProfile } from './edge-profile.js';
-import { minimizeAlternating, parabolicMinimum, profileHalfWidth } from './minimize.js';
-import { WellModel, weightedSeries, type WeightedSeries } from './well-model.js';
+import { minimizeAlternating, parabolicMinimum, profileHalfWidth, scanThenRefine } from './minimize.js';
+import { WellModel, weightedSeries, type EdgeSpeeds, type WeightedSeries } from './well-model.js';
 
 /** Detection threshold of the main event and of secondary dips, in standard errors of the box mean. */
 export const DEFAULT_DETECTION_SIGMA = 6;
@@ -28,7 +34,13 @@ export interface TimingInput {
   flux: ArrayLike<number>;
   /** Per-point 1-sigma; when given the weights are 1/fluxErr² with no rescaling. */
   fluxErr?: ArrayLike<number>;
+  /** Sky-plane speed of the shadow across the station: the dips' edges, and both main edges by default. */
   speedKmPerS: number;
+  /**
+   * The limb-normal speed of each main edge (what spreads it); both default to speedKmPerS. For a chord at
+   * 0.9 R across a round limb the normal speed is √(1 − 0.9²) ≈ 0.44 of the full speed.
+   */
+  edgeSpeedsKmPerS?: EdgeSpeeds;
   exposureSeconds: number;
   profile: EdgeProfile;
   bottom: 'free' | 'zero';
@@ -42,21 +54,21 @@ export interface TimedEdge {
   sigmaSeconds: number;
 }
 
-export interface DipResult {
+export interface DipResult extends DipProducts {
   start: TimedEdge;
   end: TimedEdge;
-  apparentOpacity: number;
-  /** −ln(1 − opacity); null when the dip is opaque. */
-  apparentOpticalDepth: number | null;
-  equivalentWidthKm: number;
   /** √(χ²(no dip) − χ²(dip)). */
   significance: number;
   marked: boolean;
 }
 
 export interface TimingResult {
+  /** Null when no event was found, or when the curve starts inside the event (it holds no disappearance). */
   disappearance: TimedEdge | null;
+  /** Null when no event was found, or when the curve ends inside the event. */
   reappearance: TimedEdge | null;
+  /** The speeds the main edges were modelled with. */
+  edgeSpeedsKmPerS: EdgeSpeeds;
   baselineFlux: number;
   bottomFlux: number | null;
   /** χ² of the full model (main well and dips); dof subtracts 3 per dip (two times and an opacity). */
@@ -98,6 +110,13 @@ function validate(input: TimingInput): void {
     }
   }
   if (!(input.speedKmPerS > 0)) throw new GeometryInputError('speedKmPerS', 'must be a positive number');
+  const edges = input.edgeSpeedsKmPerS;
+  if (edges !== undefined) {
+    if (!(edges.disappearanceKmPerS > 0 && Number.isFinite(edges.disappearanceKmPerS)))
+      throw new GeometryInputError('edgeSpeedsKmPerS.disappearanceKmPerS', 'must be a positive number');
+    if (!(edges.reappearanceKmPerS > 0 && Number.isFinite(edges.reappearanceKmPerS)))
+      throw new GeometryInputError('edgeSpeedsKmPerS.reappearanceKmPerS', 'must be a positive number');
+  }
   if (!(input.exposureSeconds >= 0))
     throw new GeometryInputError('exposureSeconds', 'must be zero or positive');
 }
@@ -245,16 +264,71 @@ function fitEdgePair(
   };
 }
 
+/**
+ * Minimum of a one-time χ² (an edge whose partner lies outside the curve) and the mean half-width of its
+ * Δχ² = 1 interval; the levels are solved exactly inside χ², so this is already the profile.
+ */
+function fitOneEdge(
+  chi2: (t: number) => number,
+  tStart: number,
+  spanSeconds: number,
+  bounds: { lo: number; hi: number },
+  firstStepSeconds: number,
+  lookFurtherSeconds: number,
+): { t: number; chi2: number; sigma: number } {
+  let t = Math.min(bounds.hi, Math.max(bounds.lo, tStart));
+  let best = chi2(t);
+  let span = spanSeconds;
+  for (let round = 0; round < 40; round++) {
+    const m = scanThenRefine(
+      chi2,
+      Math.max(bounds.lo, t - span),
+      Math.min(bounds.hi, t + span),
+      20,
+      TIME_TOLERANCE_SECONDS,
+    );
+    const moved = Math.abs(m.x - t);
+    if (m.fx <= best) {
+      t = m.x;
+      best = m.fx;
+    }
+    if (moved <= TIME_TOLERANCE_SECONDS) break;
+    span = Math.max(4 * moved, 20 * TIME_TOLERANCE_SECONDS, span / 4);
+  }
+  const tol = Math.max(TIME_TOLERANCE_SECONDS, firstStepSeconds * 1e-3);
+  const half = (direction: 1 | -1): number =>
+    profileHalfWidth(
+      chi2,
+      t,
+      best,
+      direction,
+      firstStepSeconds,
+      direction > 0 ? bounds.hi : bounds.lo,
+      tol,
+      lookFurtherSeconds,
+    );
+  return { t, chi2: best, sigma: (half(1) + half(-1)) / 2 };
+}
+
+/** Which edge of the event lies outside the light curve (the curve starts or ends inside the event). */
+export type EdgeOutside = 'disappearance' | 'reappearance' | null;
+
 /** The main well's fit, as the dip search needs it. */
 export interface MainEventFit {
   input: TimingInput;
   model: WellModel;
+  /** The dips' model: both edges at the full sky-plane speed. */
+  dipModel: WellModel;
   weights: Float64Array;
   series: WeightedSeries;
   levels: Levels;
+  /** With an edge outside the curve, its time is a stand-in beyond the curve's reach and its sigma NaN. */
   edges: EdgePairFit;
+  outside: EdgeOutside;
   cadenceSeconds: number;
   smoothSeconds: number;
+  /** The dips' smoothing (full speed). */
+  dipSmoothSeconds: number;
   threshold: number;
   noiseSigmaFlux: number | null;
   eventSignificance: number;
@@ -265,30 +339,50 @@ export interface MainEventFit {
 interface Start {
   t1: number;
   t2: number;
+  outside: EdgeOutside;
   /** Null when fluxErr gives the weights. */
   noiseSigmaFlux: number | null;
 }
 
+/** The edge speeds a timing models: the given ones, or the full speed for both. */
+export function edgeSpeedsOf(input: Pick<TimingInput, 'speedKmPerS' | 'edgeSpeedsKmPerS'>): EdgeSpeeds {
+  return (
+    input.edgeSpeedsKmPerS ?? {
+      disappearanceKmPerS: input.speedKmPerS,
+      reappearanceKmPerS: input.speedKmPerS,
+    }
+  );
+}
+
 /**
- * Detects the main well and fits its two times and two levels; null when no well passes the detection
- * threshold. `restart` (internal) refits from a known solution with a known noise scale.
+ * Detects the main well and fits its two times (or the one the curve holds) and two levels; null when no
+ * well passes the detection threshold. `restart` (internal) refits from a known solution with a known
+ * noise scale.
  */
 export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit | null {
   validate(input);
   const { timesSeconds: t, flux, profile } = input;
   const n = t.length;
   const threshold = input.detectionSigma ?? DEFAULT_DETECTION_SIGMA;
-  const parameters = input.bottom === 'free' ? 4 : 3;
   const cadenceSeconds = medianSpacing(t);
-  const model = new WellModel(t, profile, input.speedKmPerS, input.exposureSeconds);
-  const smoothSeconds =
-    (profile.fresnelScaleKm + profile.starDiameterKm / 2) / input.speedKmPerS + input.exposureSeconds / 2;
+  const speeds = edgeSpeedsOf(input);
+  const slowest = Math.min(speeds.disappearanceKmPerS, speeds.reappearanceKmPerS);
+  const model = new WellModel(t, profile, speeds, input.exposureSeconds);
+  const full = { disappearanceKmPerS: input.speedKmPerS, reappearanceKmPerS: input.speedKmPerS };
+  const dipModel = new WellModel(t, profile, full, input.exposureSeconds);
+  const spread = profile.fresnelScaleKm + profile.starDiameterKm / 2;
+  const smoothSeconds = spread / slowest + input.exposureSeconds / 2;
+  const dipSmoothSeconds = spread / input.speedKmPerS + input.exposureSeconds / 2;
   const bounds = { lo: t[0] ?? 0, hi: t[n - 1] ?? 0 };
   const span = 2 * Math.max(cadenceSeconds, smoothSeconds);
   const firstStep = Math.max(cadenceSeconds / 20, 1e-5);
+  // An edge outside the curve stands beyond the reach of every sample's exposure: no sample sees it.
+  const beyond = model.zoneSeconds + cadenceSeconds;
+  const virtual = { disappearance: bounds.lo - beyond, reappearance: bounds.hi + beyond };
 
   let t1Start: number;
   let t2Start: number;
+  let outside: EdgeOutside;
   let eventSignificance = Infinity;
   const weights = new Float64Array(n);
   if (restart === undefined) {
@@ -301,24 +395,18 @@ export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit 
     const step = strongestStep(flux, weights);
     eventSignificance = step?.significance ?? 0;
     if (step === null || !(step.significance >= threshold)) return null;
-    if (step.lo === 0) {
-      throw new GeometryInputError(
-        'flux[0]',
-        'the light curve starts inside the event; both edges are needed',
-      );
-    }
-    if (step.hi === n) {
-      throw new GeometryInputError(
-        `flux[${n - 1}]`,
-        'the light curve ends inside the event; both edges are needed',
-      );
-    }
-    t1Start = ((t[step.lo - 1] ?? 0) + (t[step.lo] ?? 0)) / 2;
-    t2Start = ((t[step.hi - 1] ?? 0) + (t[step.hi] ?? 0)) / 2;
+    // A curve that starts (ends) inside the event holds only the reappearance (disappearance).
+    outside = step.lo === 0 ? 'disappearance' : step.hi === n ? 'reappearance' : null;
+    t1Start =
+      outside === 'disappearance' ? virtual.disappearance : ((t[step.lo - 1] ?? 0) + (t[step.lo] ?? 0)) / 2;
+    t2Start =
+      outside === 'reappearance' ? virtual.reappearance : ((t[step.hi - 1] ?? 0) + (t[step.hi] ?? 0)) / 2;
   } else {
     t1Start = restart.t1;
     t2Start = restart.t2;
+    outside = restart.outside;
   }
+  const parameters = (input.bottom === 'free' ? 4 : 3) - (outside === null ? 0 : 1);
 
   for (let i = 0; i < n; i++) {
     const e = input.fluxErr?.[i] ?? restart?.noiseSigmaFlux ?? undefined;
@@ -330,34 +418,44 @@ export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit 
     t2 > t1
       ? solveLevels(model.sums(t1, t2, s, 0, n), s.wyyTotal, input.bottom).chi2
       : s.wyyTotal - ((s.wy[n] ?? 0) * (s.wy[n] ?? 0)) / (s.w[n] ?? 1);
+  /** The fit of the edges the curve holds, from a start. */
+  const fitEdges = (s: WeightedSeries, t1: number, t2: number, startIsMinimum: boolean): EdgePairFit => {
+    const chi2 = chi2Of(s);
+    if (outside === 'disappearance') {
+      const one = fitOneEdge((x) => chi2(virtual.disappearance, x), t2, span, bounds, firstStep, span / 2);
+      return { t1: virtual.disappearance, t2: one.t, chi2: one.chi2, sigma1: NaN, sigma2: one.sigma };
+    }
+    if (outside === 'reappearance') {
+      const one = fitOneEdge((x) => chi2(x, virtual.reappearance), t1, span, bounds, firstStep, span / 2);
+      return { t1: one.t, t2: virtual.reappearance, chi2: one.chi2, sigma1: one.sigma, sigma2: NaN };
+    }
+    return fitEdgePair(chi2, t1, t2, span, bounds, firstStep, span / 2, startIsMinimum);
+  };
 
   let noiseSigmaFlux: number | null = restart?.noiseSigmaFlux ?? null;
+  let startIsMinimum = false;
   if (input.fluxErr === undefined && restart === undefined) {
     // Unit weights first; the residual scatter of that fit is the noise scale (no errors were given).
-    const first = minimizeAlternating(chi2Of(series), t1Start, t2Start, {
-      span,
-      tolerance: TIME_TOLERANCE_SECONDS,
-      bounds,
-    });
-    const sigma = noiseFloor(Math.sqrt(Math.max(0, first.fxy) / (n - parameters)), flux);
+    let firstChi2: number;
+    if (outside === null) {
+      const first = minimizeAlternating(chi2Of(series), t1Start, t2Start, {
+        span,
+        tolerance: TIME_TOLERANCE_SECONDS,
+        bounds,
+      });
+      [t1Start, t2Start, firstChi2] = [first.x, first.y, first.fxy];
+      // Uniform weights rescaled by one factor leave the minimum where the first pass found it.
+      startIsMinimum = true;
+    } else {
+      const first = fitEdges(series, t1Start, t2Start, false);
+      [t1Start, t2Start, firstChi2] = [first.t1, first.t2, first.chi2];
+    }
+    const sigma = noiseFloor(Math.sqrt(Math.max(0, firstChi2) / (n - parameters)), flux);
     noiseSigmaFlux = sigma;
     weights.fill(1 / (sigma * sigma));
     series = weightedSeries(flux, weights);
-    t1Start = first.x;
-    t2Start = first.y;
   }
-  // Uniform weights rescaled by one factor leave the minimum where the first pass found it.
-  const startIsMinimum = input.fluxErr === undefined && restart === undefined;
-  const edges = fitEdgePair(
-    chi2Of(series),
-    t1Start,
-    t2Start,
-    span,
-    bounds,
-    firstStep,
-    span / 2,
-    startIsMinimum,
-  );
+  const edges = fitEdges(series, t1Start, t2Start, startIsMinimum);
   const levels = solveLevels(model.sums(edges.t1, edges.t2, series, 0, n), series.wyyTotal, input.bottom);
   const modelFlux = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -367,12 +465,15 @@ export function fitMainEvent(input: TimingInput, restart?: Start): MainEventFit 
   return {
     input,
     model,
+    dipModel,
     weights,
     series,
     levels,
     edges,
+    outside,
     cadenceSeconds,
     smoothSeconds,
+    dipSmoothSeconds,
     threshold,
     noiseSigmaFlux,
     eventSignificance,
@@ -385,7 +486,7 @@ export function fitTiming(input: TimingInput): TimingResult {
   if (main === null) return noEventResult(input);
   let dips = searchDips(main);
   const n = input.timesSeconds.length;
-  const parameters = input.bottom === 'free' ? 4 : 3;
+  const parameters = (input.bottom === 'free' ? 4 : 3) - (main.outside === null ? 0 : 1);
   // The dips pulled the baseline level down and (without fluxErr) inflated the residual scatter: fit the
   // main well again to the light with the dips' deficit restored, with the noise of the full model's
   // residuals, then the dips again on top of it, until the noise scale settles.
@@ -405,7 +506,7 @@ export function fitTiming(input: TimingInput): TimingResult {
     const previousNoise = main.noiseSigmaFlux;
     const refit = fitMainEvent(
       { ...input, flux: corrected },
-      { t1: main.edges.t1, t2: main.edges.t2, noiseSigmaFlux },
+      { t1: main.edges.t1, t2: main.edges.t2, outside: main.outside, noiseSigmaFlux },
     );
     if (refit === null) break;
     refit.input = input;
@@ -416,14 +517,15 @@ export function fitTiming(input: TimingInput): TimingResult {
     if (noiseSigmaFlux === null) break;
     if (previousNoise !== null && Math.abs(noiseSigmaFlux / previousNoise - 1) < NOISE_SETTLED) break;
   }
-  const { levels, edges } = main;
+  const { levels, edges, outside } = main;
   const modelFlux = fullModel(main, dips);
   let chi2 = 0;
   for (let i = 0; i < n; i++)
     chi2 += (main.weights[i] ?? 0) * ((input.flux[i] ?? 0) - (modelFlux[i] ?? 0)) ** 2;
   return {
-    disappearance: { timeSeconds: edges.t1, sigmaSeconds: edges.sigma1 },
-    reappearance: { timeSeconds: edges.t2, sigmaSeconds: edges.sigma2 },
+    disappearance: outside === 'disappearance' ? null : { timeSeconds: edges.t1, sigmaSeconds: edges.sigma1 },
+    reappearance: outside === 'reappearance' ? null : { timeSeconds: edges.t2, sigmaSeconds: edges.sigma2 },
+    edgeSpeedsKmPerS: edgeSpeedsOf(input),
     baselineFlux: levels.baseline,
     bottomFlux: levels.bottom,
     chi2,
@@ -443,7 +545,7 @@ function fullModel(main: MainEventFit, dips: DipResult[]): Float64Array {
   const starFlux = main.levels.baseline - main.levels.bottom;
   for (const dip of dips) {
     for (let i = 0; i < out.length; i++) {
-      const J = 1 - main.model.intensityAt(t[i] ?? 0, dip.start.timeSeconds, dip.end.timeSeconds);
+      const J = 1 - main.dipModel.intensityAt(t[i] ?? 0, dip.start.timeSeconds, dip.end.timeSeconds);
       out[i] = (out[i] ?? 0) - dip.apparentOpacity * starFlux * J;
     }
   }
@@ -480,6 +582,7 @@ function noEventResult(input: TimingInput): TimingResult {
   return {
     disappearance: null,
     reappearance: null,
+    edgeSpeedsKmPerS: edgeSpeedsOf(input),
     baselineFlux: mean,
     bottomFlux: null,
     chi2,
@@ -499,7 +602,7 @@ function noEventResult(input: TimingInput): TimingResult {
  * then fitted as a scaled well. `previous` (internal) refits known dips instead of searching again.
  */
 export function searchDips(main: MainEventFit, previous?: DipResult[]): DipResult[] {
-  const { input, model, modelFlux, weights, levels, edges, cadenceSeconds: cadence, smoothSeconds } = main;
+  const { input, dipModel, modelFlux, weights, levels, edges, cadenceSeconds: cadence, smoothSeconds } = main;
   const { timesSeconds: t, flux } = input;
   const n = t.length;
   const starFlux = levels.baseline - levels.bottom;
@@ -541,7 +644,11 @@ export function searchDips(main: MainEventFit, previous?: DipResult[]): DipResul
 
   const dips: DipResult[] = [];
   for (const w of windows) {
-    const dip = fitDip(model, series, w.start, w.end, starFlux, cadence, smoothSeconds, input.speedKmPerS);
+    const dip = fitDip(dipModel, series, w.start, w.end, starFlux, cadence, main.dipSmoothSeconds, {
+      fresnelScaleKm: input.profile.fresnelScaleKm,
+      starDiameterKm: input.profile.starDiameterKm,
+      exposureKm: input.speedKmPerS * input.exposureSeconds,
+    });
     if (dip !== null) dips.push({ ...dip, marked: w.marked });
   }
   return dips.sort((a, b) => a.start.timeSeconds - b.start.timeSeconds);
@@ -550,7 +657,8 @@ export function searchDips(main: MainEventFit, previous?: DipResult[]): DipResul
 /**
  * One dip as the same smoothed well scaled by its opacity, on top of the main fit's residuals:
  * r = −c·(1 − I(t; start, end)), c = opacity·(baseline − bottom) with 0 ≤ opacity ≤ 1. χ² is measured
- * from the no-dip fit, so its minimum is −(significance²).
+ * from the no-dip fit, so its minimum is −(significance²). The times' 1-sigma are the Δχ² = 1 profile
+ * half-widths; the products' come from the linearised covariance of (start, end, opacity).
  */
 function fitDip(
   model: WellModel,
@@ -560,7 +668,7 @@ function fitDip(
   starFlux: number,
   cadence: number,
   smoothSeconds: number,
-  speedKmPerS: number,
+  resolution: DipResolution,
 ): Omit<DipResult, 'marked'> | null {
   const t = model.timesSeconds;
   const n = t.length;
@@ -583,13 +691,47 @@ function fitDip(
   const fit = fitEdgePair(chi2, start, end, span, bounds, Math.max(cadence / 20, 1e-5), span / 2);
   const { c } = depthOf(fit.t1, fit.t2);
   const opacity = c / starFlux;
-  const durationSeconds = fit.t2 - fit.t1;
+  const speedKmPerS = model.speeds.disappearanceKmPerS;
+  const cov = dipCovariance(model, residuals, lo, hi, fit.t1, fit.t2, opacity, starFlux);
   return {
     start: { timeSeconds: fit.t1, sigmaSeconds: fit.sigma1 },
     end: { timeSeconds: fit.t2, sigmaSeconds: fit.sigma2 },
-    apparentOpacity: opacity,
-    apparentOpticalDepth: opacity < 1 ? -Math.log(1 - opacity) : null,
-    equivalentWidthKm: opacity * speedKmPerS * durationSeconds,
+    ...dipProducts({ startSeconds: fit.t1, endSeconds: fit.t2, opacity }, cov, speedKmPerS, resolution),
     significance: Math.sqrt(Math.max(0, -fit.chi2)),
   };
+}
+
+/**
+ * (JᵀWJ)⁻¹ of the dip model m_i = −opacity·S·(1 − I_i(start, end)) over samples [lo, hi), J by central
+ * differences in the times (a few table nodes wide, where the interpolated profile is piecewise linear)
+ * and exactly in the opacity (Numerical Recipes 3rd ed., §15.5.1). Null when the normal matrix is
+ * singular (no sample sees an edge move).
+ */
+function dipCovariance(
+  model: WellModel,
+  series: WeightedSeries,
+  lo: number,
+  hi: number,
+  t1: number,
+  t2: number,
+  opacity: number,
+  starFlux: number,
+): number[][] | null {
+  const t = model.timesSeconds;
+  const h = Math.max((2 * model.profile.stepKm) / model.speeds.disappearanceKmPerS, 1e-7);
+  const jac = new Matrix(hi - lo, 3);
+  const c = opacity * starFlux;
+  for (let i = lo; i < hi; i++) {
+    const ti = t[i] ?? 0;
+    const root = Math.sqrt(series.weights[i] ?? 0);
+    const I = (a: number, b: number): number => model.intensityAt(ti, a, b);
+    jac.set(i - lo, 0, root * c * ((I(t1 + h, t2) - I(t1 - h, t2)) / (2 * h)));
+    jac.set(i - lo, 1, root * c * ((I(t1, t2 + h) - I(t1, t2 - h)) / (2 * h)));
+    jac.set(i - lo, 2, -root * starFlux * (1 - I(t1, t2)));
+  }
+  try {
+    return normalMatrixCovariance(jac, new Map(), () => new Error('singular')).to2DArray();
+  } catch {
+    return null;
+  }
 }

@@ -43,48 +43,65 @@ export interface WellSums {
   swyI: number;
 }
 
+/**
+ * The sky-plane speed at which each edge sweeps across the station: the limb-normal component of the
+ * shadow's velocity there, which is what spreads diffraction, the star's disc and the exposure over the
+ * edge (docs/method.md, "Light-curve timing", edge speed).
+ */
+export interface EdgeSpeeds {
+  disappearanceKmPerS: number;
+  reappearanceKmPerS: number;
+}
+
 export class WellModel {
-  /** Time from an edge beyond which a whole exposure sees the exact step. */
+  /** Time from an edge beyond which a whole exposure sees the exact step (the slower edge's). */
   readonly zoneSeconds: number;
-  private readonly halfExposureKm: number;
+  private readonly halfExposureDKm: number;
+  private readonly halfExposureRKm: number;
   private readonly quadratureNodes: number;
 
   constructor(
     readonly timesSeconds: ArrayLike<number>,
     readonly profile: EdgeProfile,
-    readonly speedKmPerS: number,
+    readonly speeds: EdgeSpeeds,
     readonly exposureSeconds: number,
   ) {
-    this.halfExposureKm = (speedKmPerS * exposureSeconds) / 2;
-    this.zoneSeconds = profile.halfWidthKm / speedKmPerS + exposureSeconds / 2;
-    const nodes = Math.ceil(this.halfExposureKm / profile.stepKm);
+    const slowest = Math.min(speeds.disappearanceKmPerS, speeds.reappearanceKmPerS);
+    this.halfExposureDKm = (speeds.disappearanceKmPerS * exposureSeconds) / 2;
+    this.halfExposureRKm = (speeds.reappearanceKmPerS * exposureSeconds) / 2;
+    this.zoneSeconds = profile.halfWidthKm / slowest + exposureSeconds / 2;
+    const nodes = Math.ceil(Math.max(this.halfExposureDKm, this.halfExposureRKm) / profile.stepKm);
     this.quadratureNodes = Math.min(MAX_QUADRATURE_NODES, Math.max(MIN_QUADRATURE_NODES, nodes));
   }
 
   /**
-   * I = 1 − (1 − G_D)(1 − G_R) averaged over the exposure centred on t. Each edge's own average is
-   * exact from the cumulative table; the product is separable whenever one edge is constant over the
-   * exposure, and otherwise (an event or dip not much longer than one exposure) is integrated directly.
+   * I = 1 − (1 − G_D)(1 − G_R) averaged over the exposure centred on t, G_D and G_R each at its own edge's
+   * speed. Each edge's own average is exact from the cumulative table; the product is separable whenever
+   * one edge is constant over the exposure, and otherwise (an event or dip not much longer than one
+   * exposure) is integrated directly.
    */
   intensityAt(tSeconds: number, disappearanceSeconds: number, reappearanceSeconds: number): number {
-    const v = this.speedKmPerS;
-    const xD = v * (disappearanceSeconds - tSeconds);
-    const xR = v * (tSeconds - reappearanceSeconds);
-    const h = this.halfExposureKm;
-    const reach = this.profile.halfWidthKm + h;
-    if (h > 0 && Math.abs(xD) < reach && Math.abs(xR) < reach) {
+    const vD = this.speeds.disappearanceKmPerS;
+    const vR = this.speeds.reappearanceKmPerS;
+    const xD = vD * (disappearanceSeconds - tSeconds);
+    const xR = vR * (tSeconds - reappearanceSeconds);
+    const hD = this.halfExposureDKm;
+    const hR = this.halfExposureRKm;
+    const reach = this.profile.halfWidthKm;
+    if (this.exposureSeconds > 0 && Math.abs(xD) < reach + hD && Math.abs(xR) < reach + hR) {
       const n = this.quadratureNodes;
       let sum = 0;
       for (let k = 0; k < n; k++) {
-        const shiftKm = -h + ((k + 0.5) * 2 * h) / n;
-        const gD = profileAt(this.profile, xD - shiftKm);
-        const gR = profileAt(this.profile, xR + shiftKm);
+        // The same instant of the exposure for both edges: a fraction of the way from its start.
+        const shift = -1 + (2 * (k + 0.5)) / n;
+        const gD = profileAt(this.profile, xD - shift * hD);
+        const gR = profileAt(this.profile, xR + shift * hR);
         sum += gD + gR - gD * gR;
       }
       return sum / n;
     }
-    const aD = boxMean(this.profile, xD, h);
-    const aR = boxMean(this.profile, xR, h);
+    const aD = boxMean(this.profile, xD, hD);
+    const aR = boxMean(this.profile, xR, hR);
     return aD + aR - aD * aR;
   }
 

@@ -56,9 +56,7 @@ describe('fitTiming() dips', () => {
     expect(Math.abs(dip.end.timeSeconds - ring.endSeconds)).toBeLessThan(3 * dip.end.sigmaSeconds);
     // Opacity of a 1.56 s dip (15 samples at 25/950 per sample): σ ≈ 25/(950·√15) ≈ 0.007.
     expectClose(dip.apparentOpacity, ring.opacity, 0.025);
-    expectClose(dip.apparentOpticalDepth ?? NaN, -Math.log(1 - dip.apparentOpacity), 1e-12);
-    const durationSeconds = dip.end.timeSeconds - dip.start.timeSeconds;
-    expectClose(dip.equivalentWidthKm, dip.apparentOpacity * setup.speedKmPerS * durationSeconds, 1e-9);
+    expect(dip.lowerLimits).toBeNull();
     expectClose(
       dip.equivalentWidthKm,
       ring.opacity * setup.speedKmPerS * (ring.endSeconds - ring.startSeconds),
@@ -88,6 +86,73 @@ describe('fitTiming() dips', () => {
     expectClose(dip.equivalentWidthKm, truthKm, 0.25 * truthKm);
     expect(dip.start.timeSeconds).toBeGreaterThan(29.9);
     expect(dip.end.timeSeconds).toBeLessThan(30.6);
+    // 0.32 km of dip against a Fresnel scale √(λD/2) = √(0.65e-9 km × 6e9 km / 2) = 1.40 km, a 0.4 km star
+    // and 0.8 km of shadow motion per exposure: not resolved, so only lower limits, each at or below the
+    // truth (opacity 1; optical depth and equivalent depth unbounded).
+    const limits = dip.lowerLimits;
+    if (limits === null) throw new Error('an unresolved dip must give lower limits');
+    expect(limits.reason).toContain('Fresnel scale');
+    expect(limits.reason).toContain('one exposure');
+    expect(limits.apparentOpacity).toBeLessThanOrEqual(ring.opacity);
+    // The bound is a dip as wide as the widest smoothing (here the Fresnel scale) removing the same light.
+    expectClose(limits.apparentOpacity, dip.equivalentWidthKm / 1.3964, 1e-3);
+  });
+
+  it('fitTiming() dip products cover the truth in 68 % ± 10 % of 100 realisations (opacity, τ, widths, depth)', () => {
+    // A resolved dip of opacity 0.4 over 1.56 s at 8 km/s: L = 12.44 km, τ = −ln 0.6 = 0.5108, E = p·L,
+    // A = τ·L (the definitions in docs/method.md, "Ring dips"), against the linearised 1-sigma of the fit.
+    // 100 realisations give a binomial spread of 4.7 %, so ±10 % is about two of them; the benchmark
+    // (bench/lightcurve-dips.bench.ts) runs 300 and its figures are in docs/method.md.
+    const ring = { startSeconds: 4.4321, endSeconds: 5.9876, opacity: 0.4 };
+    const shortTimes = evenTimes(0, 0.1, 200);
+    const shortMain = { ...main, disappearanceSeconds: 12.3117, reappearanceSeconds: 15.6042 };
+    const clean = syntheticFlux(setup, { timesSeconds: shortTimes, ...shortMain, dips: [ring] });
+    const lengthKm = setup.speedKmPerS * (ring.endSeconds - ring.startSeconds);
+    const tau = -Math.log(1 - ring.opacity);
+    const truth = {
+      opacity: ring.opacity,
+      tau,
+      widthKm: lengthKm,
+      equivalentWidthKm: ring.opacity * lengthKm,
+      equivalentDepthKm: tau * lengthKm,
+    };
+    const inside = { opacity: 0, tau: 0, widthKm: 0, equivalentWidthKm: 0, equivalentDepthKm: 0 };
+    const gauss = gaussianSource(2027);
+    const realisations = 100;
+    for (let k = 0; k < realisations; k++) {
+      const flux = clean.map((f) => f + 25 * gauss());
+      const result = fitTiming({
+        timesSeconds: shortTimes,
+        flux,
+        fluxErr: flux.map(() => 25),
+        speedKmPerS: setup.speedKmPerS,
+        exposureSeconds: setup.exposureSeconds,
+        profile,
+        bottom: 'free',
+      });
+      const dip = result.dips[0];
+      if (dip === undefined || result.dips.length !== 1)
+        throw new Error(`realisation ${k}: one dip expected`);
+      const within = (value: number | null, sigma: number | null, t: number) =>
+        value !== null && sigma !== null && Math.abs(value - t) <= sigma ? 1 : 0;
+      inside.opacity += within(dip.apparentOpacity, dip.apparentOpacitySigma, truth.opacity);
+      inside.tau += within(dip.apparentOpticalDepth, dip.apparentOpticalDepthSigma, truth.tau);
+      inside.widthKm += within(dip.widthKm, dip.widthKmSigma, truth.widthKm);
+      inside.equivalentWidthKm += within(
+        dip.equivalentWidthKm,
+        dip.equivalentWidthKmSigma,
+        truth.equivalentWidthKm,
+      );
+      inside.equivalentDepthKm += within(
+        dip.equivalentDepthKm,
+        dip.equivalentDepthKmSigma,
+        truth.equivalentDepthKm,
+      );
+    }
+    for (const [key, count] of Object.entries(inside)) {
+      expect(count / realisations, key).toBeGreaterThanOrEqual(0.58);
+      expect(count / realisations, key).toBeLessThanOrEqual(0.78);
+    }
   });
 
   it('fitTiming() finds no dip in 20 noise realisations of a curve without one (6-sigma threshold)', () => {

@@ -110,24 +110,29 @@ export interface SyntheticEvent {
   baselineFlux: number;
   bottomFlux: number;
   dips?: Array<{ startSeconds: number; endSeconds: number; opacity: number }>;
+  /** Speeds of the main well's two edges; both setup.speedKmPerS when absent (dips always use it). */
+  edgeSpeedsKmPerS?: { disappearance: number; reappearance: number };
 }
 
 /** Noiseless flux at each time: the well, then each dip's well scaled by its opacity, exposure-averaged. */
 export function syntheticFlux(setup: SyntheticSetup, event: SyntheticEvent): number[] {
   const steps = setup.exposureSeconds > 0 ? (setup.exposureSteps ?? 24) : 1;
   const v = setup.speedKmPerS;
-  const light = (t: number, t1: number, t2: number): number => {
-    const gD = syntheticEdge(setup, v * (t1 - t));
-    const gR = syntheticEdge(setup, v * (t - t2));
+  const light = (t: number, t1: number, t2: number, vD = v, vR = v): number => {
+    const gD = syntheticEdge(setup, vD * (t1 - t));
+    const gR = syntheticEdge(setup, vR * (t - t2));
     return 1 - (1 - gD) * (1 - gR);
   };
+  const vD = event.edgeSpeedsKmPerS?.disappearance ?? v;
+  const vR = event.edgeSpeedsKmPerS?.reappearance ?? v;
   return event.timesSeconds.map((tMid) => {
     let sum = 0;
     for (let k = 0; k < steps; k++) {
       const t =
         steps === 1 ? tMid : tMid - setup.exposureSeconds / 2 + ((k + 0.5) * setup.exposureSeconds) / steps;
       const star = event.baselineFlux - event.bottomFlux;
-      let f = event.bottomFlux + star * light(t, event.disappearanceSeconds, event.reappearanceSeconds);
+      let f =
+        event.bottomFlux + star * light(t, event.disappearanceSeconds, event.reappearanceSeconds, vD, vR);
       for (const dip of event.dips ?? []) {
         f -= dip.opacity * star * (1 - light(t, dip.startSeconds, dip.endSeconds));
       }

@@ -2,7 +2,21 @@ import { describe, expect, it } from 'vitest';
 import { projectEvent } from '../../src/project.js';
 import type { ChordInput, EventInput } from '../../src/types.js';
 import { expectClose } from '../expect-close.js';
-import { STATIONS, expectedFG, isoUtc, scenario, type Scenario } from './fixtures.js';
+import { AstroTime, BaryState, Body } from 'astronomy-engine';
+import {
+  STATIONS,
+  TT_MINUS_UTC,
+  basisOf,
+  dot3,
+  expectedFG,
+  isoUtc,
+  scenario,
+  type Scenario,
+  type V3,
+} from './fixtures.js';
+
+/** Milliarcseconds in a radian: 180/π × 3600 × 1000. */
+const MAS_PER_RAD_TEST = (180 / Math.PI) * 3_600_000;
 
 const CENTRAL = '2028-03-14T02:10:00.000Z';
 
@@ -148,14 +162,81 @@ describe('projectEvent()', () => {
     const withParallax = projectEvent(withChords(sc, chords, { star }));
     const df = withParallax.limbPoints[0]!.fKm - plain.limbPoints[0]!.fKm;
     const dg = withParallax.limbPoints[0]!.gKm - plain.limbPoints[0]!.gKm;
-    // 1 mas = 4.848e-9 rad; at 41.2 au = 6.16e9 km that is 29.9 km times the Earth's offset from the
-    // barycentre projected on the sky (≤ 1.017 au; common practice, no source).
-    const shift = Math.hypot(df, dg);
-    expect(shift).toBeGreaterThan(5);
-    expect(shift).toBeLessThan(29.9 * 1.02);
+    // A parallax ϖ turns the star's direction by Δs = −ϖ·b⊥ (b the Earth's barycentric position in au, ⊥
+    // to s; the classical parallax displacement, Explanatory Supplement, from memory), which turns the sky
+    // plane and moves a point at the body's distance D by D·(Δs·e_f, Δs·e_g). b from astronomy-engine's
+    // BaryState at the reference time (the chord's mid-time), basis from the catalogue RA/Dec.
+    const midMs = sc.centralMs - 2500;
+    const ttDays = (midMs + TT_MINUS_UTC * 1000 - Date.UTC(2000, 0, 1, 12)) / 86_400_000;
+    const earth = BaryState(Body.Earth, AstroTime.FromTerrestrialTime(ttDays));
+    const { eF, eG } = basisOf(sc.event.star.raDeg, sc.event.star.decDeg);
+    const b: V3 = [earth.x, earth.y, earth.z];
+    const radians = 1 / MAS_PER_RAD_TEST;
+    const distanceKm = plain.distanceKm;
+    // Second-order terms (Δs² and the station's offset from the line of sight) are below a millimetre.
+    expectClose(df, -distanceKm * radians * dot3(b, eF), 0.001);
+    expectClose(dg, -distanceKm * radians * dot3(b, eG), 0.001);
+  });
+
+  it('projectEvent() gives a single-edge chord one point, its velocity at that edge, its time as mid-time', () => {
+    // Only the reappearance, 30 s after the central instant: (f, g) from the independent fixture, the
+    // velocity the finite difference at the edge itself (not at a mid-time, which it does not have).
+    const only: ChordInput = {
+      station: b.id,
+      type: 'positive',
+      reappearance: { time: isoUtc(sc.centralMs + 30_000), sigmaSeconds: 0.2 },
+      timeOffsetSeconds: 0,
+    };
+    const p = projectEvent(withChords(sc, [only]));
+    expect(p.limbPoints).toHaveLength(1);
+    expect(p.chords[0]!.points.map((q) => q.event)).toEqual(['reappearance']);
+    const expected = expectedFG(sc, b, sc.centralMs + 30_000);
+    expectClose(p.limbPoints[0]!.fKm, expected.fKm, 0.005);
+    expectClose(p.limbPoints[0]!.gKm, expected.gKm, 0.005);
+    const ahead = expectedFG(sc, b, sc.centralMs + 30_500);
+    const behind = expectedFG(sc, b, sc.centralMs + 29_500);
+    const v = p.chords[0]!.velocityKmPerS;
+    expectClose(v.f, ahead.fKm - behind.fKm, 2e-5);
+    expectClose(v.g, ahead.gKm - behind.gKm, 2e-5);
+    expect(p.limbPoints[0]!.velocity).toEqual(v);
+    expectClose(p.chords[0]!.points[0]!.sigmaKm, 0.2 * Math.hypot(v.f, v.g), 1e-12);
+    // Its own time stands in for the mid-time: with a two-edge chord of mid-time −2.5 s the reference
+    // time is the mean of −2.5 s and +30 s.
+    expect(p.referenceTimeUtc).toBe(isoUtc(sc.centralMs + 30_000));
+    const both = projectEvent(withChords(sc, [positive(a.id, sc.centralMs, -20, 15), only]));
+    expect(both.referenceTimeUtc).toBe(isoUtc(sc.centralMs + 13_750));
+    expect(both.limbPoints.map((q) => `${q.station} ${q.event}`)).toEqual([
+      `${a.id} disappearance`,
+      `${a.id} reappearance`,
+      `${b.id} reappearance`,
+    ]);
+  });
+
+  it("projectEvent() takes the negative chords' step from chords with both edges only", () => {
+    const negative: ChordInput = {
+      station: b.id,
+      type: 'negative',
+      start: isoUtc(sc.centralMs - 60_000),
+      end: isoUtc(sc.centralMs + 60_000),
+      timeOffsetSeconds: 0,
+    };
+    const lone: ChordInput = {
+      station: a.id,
+      type: 'positive',
+      disappearance: { time: isoUtc(sc.centralMs), sigmaSeconds: 0.1 },
+      timeOffsetSeconds: 0,
+    };
+    // No chord with a duration: the step is the 5 s cap, 24 intervals over 120 s.
+    expect(projectEvent(withChords(sc, [lone, negative])).negatives[0]!.pathKm.length).toBe(25);
+    // A 8 s chord beside it: 2 s, 60 intervals, as without the single edge.
+    const withFull = projectEvent(withChords(sc, [lone, positive(a.id, sc.centralMs, -4, 4), negative]));
+    expect(withFull.negatives[0]!.pathKm.length).toBe(61);
   });
 
   it('projectEvent() reports bad input at its JSON path', () => {
+    expect(() =>
+      projectEvent(withChords(sc, [{ station: a.id, type: 'positive', timeOffsetSeconds: 0 }])),
+    ).toThrow('chords[0]: a positive chord needs a disappearance, a reappearance or both');
     const outside = positive(a.id, sc.centralMs, -20, 21 * 60);
     expect(() => projectEvent(withChords(sc, [positive(a.id, sc.centralMs, -1, 1), outside]))).toThrow(
       /^chords\[1\]\.reappearance\.time: outside the ephemeris span 2028-03-14T01:51:09\.184 – 02:31:09\.184 TT$/,
