@@ -177,32 +177,36 @@ export function minClearance(problem: EllipseFitProblem, fr: EllipseFrame): numb
   return q;
 }
 
-export function fitEllipse(problem: EllipseFitProblem): EllipseFitOutcome {
+/**
+ * The least-squares form of one ellipse problem: its free entries (those of `problem.fixed` left undefined;
+ * a profile may hold clock offsets there too), and Levenberg–Marquardt refinement from a start with the
+ * negative paths held outside by the penalty continuation (docs/method.md, "Negative chords").
+ */
+export interface EllipseRefiner {
+  free: number[];
+  toFull(x: Float64Array): Float64Array;
+  toFree(full: Float64Array): Float64Array;
+  /** The problem without the negative paths' penalty: its χ² is the fit's. */
+  unconstrained: LeastSquaresProblem;
+  /** Refines a full start vector; x holds the free entries of the result. */
+  refine(startFull: Float64Array): { x: Float64Array; chi2: number; clear: boolean };
+}
+
+/** scaleKm sets the finite-difference steps of the lengths (10⁻⁶ of it). */
+export function ellipseRefiner(problem: EllipseFitProblem, scaleKm: number): EllipseRefiner {
   const n = problem.points.length;
+  const width = SHAPE_PARAMETER_COUNT + problem.offsetCount;
   const free: number[] = [];
-  for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) if (problem.fixed[j] === undefined) free.push(j);
-  for (let j = 0; j < problem.offsetCount; j++) free.push(SHAPE_PARAMETER_COUNT + j);
-  const k = free.length;
-  if (n < k)
-    throw new GeometryInputError(problem.errorPath, `fewer points (${n}) than free parameters (${k})`);
-  checkNotCollinear(problem);
+  for (let j = 0; j < width; j++) if (problem.fixed[j] === undefined) free.push(j);
   const canSwapAxes = free.includes(IX_A) && free.includes(IX_EPS) && free.includes(IX_P);
 
   const toFull = (x: Float64Array): Float64Array => {
-    const full = new Float64Array(SHAPE_PARAMETER_COUNT + problem.offsetCount);
-    for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) full[j] = problem.fixed[j] ?? 0;
+    const full = new Float64Array(width);
+    for (let j = 0; j < width; j++) full[j] = problem.fixed[j] ?? 0;
     free.forEach((j, i) => (full[j] = x[i] as number));
     return full;
   };
   const toFree = (full: Float64Array): Float64Array => Float64Array.from(free, (j) => full[j] as number);
-
-  const starts = startingPoints(problem).map((e) => {
-    const full = new Float64Array(SHAPE_PARAMETER_COUNT + problem.offsetCount);
-    full.set([e.centerFKm, e.centerGKm, e.equatorialRadiusKm, e.oblateness, e.positionAngleDeg * DEG]);
-    for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) full[j] = problem.fixed[j] ?? (full[j] as number);
-    return full;
-  });
-  const scaleKm = Math.max(...starts.map((s) => s[IX_A] as number), 1);
   const stepSizes = Float64Array.from(free, (j) =>
     j <= IX_A ? 1e-6 * scaleKm : j === IX_EPS || j === IX_P ? 1e-7 : (1e-6 * scaleKm) / maxSpeed(problem),
   );
@@ -247,18 +251,41 @@ export function fitEllipse(problem: EllipseFitProblem): EllipseFitOutcome {
   });
 
   const unconstrained = makeProblem(0);
-  let bestFree: Float64Array | null = null;
-  let bestChi2 = Infinity;
-  let bestClear = false;
-  for (const start of starts) {
-    let x = levenbergMarquardt(unconstrained, toFree(start)).x;
+  const refine = (startFull: Float64Array): { x: Float64Array; chi2: number; clear: boolean } => {
+    let x = levenbergMarquardt(unconstrained, toFree(startFull)).x;
     let clear = minClearance(problem, frameOf(toFull(x))) >= 1;
     for (const weight of PENALTY_WEIGHTS) {
       if (clear) break;
       x = levenbergMarquardt(makeProblem(weight), x).x;
       clear = minClearance(problem, frameOf(toFull(x))) >= 1;
     }
-    const chi2 = chi2Of(problem, toFull(x));
+    return { x, chi2: chi2Of(problem, toFull(x)), clear };
+  };
+  return { free, toFull, toFree, unconstrained, refine };
+}
+
+export function fitEllipse(problem: EllipseFitProblem): EllipseFitOutcome {
+  const n = problem.points.length;
+  let k = 0;
+  for (let j = 0; j < SHAPE_PARAMETER_COUNT + problem.offsetCount; j++)
+    if (problem.fixed[j] === undefined) k++;
+  if (n < k)
+    throw new GeometryInputError(problem.errorPath, `fewer points (${n}) than free parameters (${k})`);
+  checkNotCollinear(problem);
+  const starts = startingPoints(problem).map((e) => {
+    const full = new Float64Array(SHAPE_PARAMETER_COUNT + problem.offsetCount);
+    full.set([e.centerFKm, e.centerGKm, e.equatorialRadiusKm, e.oblateness, e.positionAngleDeg * DEG]);
+    for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) full[j] = problem.fixed[j] ?? (full[j] as number);
+    return full;
+  });
+  const refiner = ellipseRefiner(problem, Math.max(...starts.map((s) => s[IX_A] as number), 1));
+  const { free, toFull, unconstrained } = refiner;
+
+  let bestFree: Float64Array | null = null;
+  let bestChi2 = Infinity;
+  let bestClear = false;
+  for (const start of starts) {
+    const { x, chi2, clear } = refiner.refine(start);
     // A fit that honours the negative paths beats any that does not, whatever their χ².
     if ((clear && !bestClear) || (clear === bestClear && chi2 < bestChi2)) {
       bestFree = x;

@@ -67,7 +67,7 @@ export interface JointLimbRingInput {
   rings: JointRingInput[];
   /** The sequential solution the joint fit starts from: the limb fit, then each ring about its centre. */
   start: {
-    limb: LimbFitResult;
+    limb: Pick<LimbFitResult, 'ellipse' | 'timeOffsets'>;
     rings: Array<Pick<RingFitResult, 'radiusKm' | 'openingAngleDeg' | 'positionAngleDeg'>>;
   };
 }
@@ -83,7 +83,7 @@ export interface JointLimbRingResult {
   covariance: ParameterCovariance;
 }
 
-interface Layout {
+export interface Layout {
   /** Length of the full vector: 5 limb + offsets + 3 per ring. */
   size: number;
   offsetCount: number;
@@ -132,7 +132,31 @@ function ringEllipseVector(full: Float64Array, layout: Layout, r: number, out: F
     out[SHAPE_PARAMETER_COUNT + j] = full[SHAPE_PARAMETER_COUNT + j] as number;
 }
 
-export function fitLimbAndRings(input: JointLimbRingInput): JointLimbRingResult {
+/**
+ * The joint problem's least-squares form: its layout, the free entries (the limb's fixed parameters and the
+ * entries of `held` stay out, at their given values; a χ² map holds two), the residual vector, and
+ * Levenberg–Marquardt refinement from a start with the negative chords held outside the limb.
+ */
+export interface JointLeastSquares {
+  layout: Layout;
+  limbWidth: number;
+  limbProb: EllipseFitProblem;
+  nLimb: number;
+  nAll: number;
+  /** The sequential solution as a full vector (fixed and held entries in place). */
+  startFull: Float64Array;
+  toFull(x: Float64Array): Float64Array;
+  toFree(full: Float64Array): Float64Array;
+  unconstrained: LeastSquaresProblem;
+  residualsInto(full: Float64Array, out: Float64Array): void;
+  /** Refines from a vector of free entries; chi2 is that of the unpenalised residuals. */
+  refine(startFree: Float64Array): { x: Float64Array; chi2: number; clear: boolean };
+}
+
+export function jointLeastSquares(
+  input: JointLimbRingInput,
+  held: ReadonlyMap<number, number> = new Map(),
+): JointLeastSquares {
   const limbProb = limbProblem(input.limb);
   const offsetCount = limbProb.offsetCount;
   const offsetIndex = new Map(input.limb.fitTimeOffsets.map((s, i) => [s, i]));
@@ -152,10 +176,9 @@ export function fitLimbAndRings(input: JointLimbRingInput): JointLimbRingResult 
     ringStart: (r) => limbWidth + 3 * r,
     free: [],
   };
-  for (let j = 0; j < SHAPE_PARAMETER_COUNT; j++) if (limbProb.fixed[j] === undefined) layout.free.push(j);
-  for (let j = SHAPE_PARAMETER_COUNT; j < layout.size; j++) layout.free.push(j);
+  for (let j = 0; j < layout.size; j++)
+    if ((j >= SHAPE_PARAMETER_COUNT || limbProb.fixed[j] === undefined) && !held.has(j)) layout.free.push(j);
   const free = layout.free;
-  const limbFreeCount = free.filter((j) => j < limbWidth).length;
   const nLimb = limbProb.points.length;
   const nRings = ringProbs.map((p) => p.points.length);
   const nAll = nLimb + nRings.reduce((s, n) => s + n, 0);
@@ -184,6 +207,7 @@ export function fitLimbAndRings(input: JointLimbRingInput): JointLimbRingResult 
     const v = limbProb.fixed[j];
     if (v !== undefined) fixedFull[j] = v;
   }
+  for (const [j, v] of held) fixedFull[j] = v;
 
   const toFull = (x: Float64Array): Float64Array => {
     const full = new Float64Array(fixedFull);
@@ -266,13 +290,51 @@ export function fitLimbAndRings(input: JointLimbRingInput): JointLimbRingResult 
     minClearance(limbProb, frameOf(toFull(x).subarray(0, limbWidth))) >= 1;
 
   const unconstrained = makeProblem(0);
-  let x = levenbergMarquardt(unconstrained, toFree(fixedFull)).x;
-  let clear = clearOf(x);
-  for (const weight of PENALTY_WEIGHTS) {
-    if (clear) break;
-    x = levenbergMarquardt(makeProblem(weight), x).x;
-    clear = clearOf(x);
-  }
+  const refine = (startFree: Float64Array): { x: Float64Array; chi2: number; clear: boolean } => {
+    let x = levenbergMarquardt(unconstrained, startFree).x;
+    let clear = clearOf(x);
+    for (const weight of PENALTY_WEIGHTS) {
+      if (clear) break;
+      x = levenbergMarquardt(makeProblem(weight), x).x;
+      clear = clearOf(x);
+    }
+    const out = new Float64Array(nAll);
+    residualsInto(toFull(x), out);
+    let chi2 = 0;
+    for (const r of out) chi2 += r * r;
+    return { x, chi2, clear };
+  };
+  return {
+    layout,
+    limbWidth,
+    limbProb,
+    nLimb,
+    nAll,
+    startFull: fixedFull,
+    toFull,
+    toFree,
+    unconstrained,
+    residualsInto,
+    refine,
+  };
+}
+
+export function fitLimbAndRings(input: JointLimbRingInput): JointLimbRingResult {
+  const {
+    layout,
+    limbWidth,
+    limbProb,
+    nLimb,
+    nAll,
+    startFull,
+    toFull,
+    unconstrained,
+    residualsInto,
+    refine,
+  } = jointLeastSquares(input);
+  const free = layout.free;
+  const limbFreeCount = free.filter((j) => j < limbWidth).length;
+  const { x, clear } = refine(Float64Array.from(free, (j) => startFull[j] as number));
   const best = toFull(x);
 
   // Round ellipses cannot show their position angle: that column is left out and P gets the spread of an

@@ -7,7 +7,13 @@ import { DEG, RAD, asin, wrap } from '../math.js';
 import { GeometryInputError } from '../types.js';
 import type { ParameterCovariance, SamplerDiagnostics, SkyPointKm, VelocityKmPerS } from '../types.js';
 import { sampledCovariance } from './covariance.js';
-import { SHAPE_PARAMETER_COUNT, centralSigma, fitEllipse, sampleMap } from './ellipse-fit.js';
+import {
+  type EllipseFitProblem,
+  SHAPE_PARAMETER_COUNT,
+  centralSigma,
+  fitEllipse,
+  sampleMap,
+} from './ellipse-fit.js';
 import { checkPoint } from './limb-fit.js';
 import { samplerDiagnostics } from './sampler-diagnostics.js';
 
@@ -57,7 +63,8 @@ export const RING_COVARIANCE_PARAMETERS = [
   'positionAngleDeg',
 ] as const;
 
-export function fitRing(input: RingFitInput): RingFitResult {
+/** The ring's dips as an apparent-ellipse problem: a = R, ε = 1 − |sin B|, the centre held when given. */
+export function ringProblem(input: RingFitInput): EllipseFitProblem {
   if (input.center && !(Number.isFinite(input.center.fKm) && Number.isFinite(input.center.gKm))) {
     throw new GeometryInputError(
       'fit.ring.centerFrom',
@@ -82,17 +89,22 @@ export function fitRing(input: RingFitInput): RingFitResult {
     fixed[0] = input.center.fKm;
     fixed[1] = input.center.gKm;
   }
+  return {
+    points,
+    negatives: [],
+    fixed,
+    modelErrorKm: 0,
+    offsetCount: 0,
+    seed: input.seed,
+    errorPath: 'ringEvents',
+  };
+}
+
+export function fitRing(input: RingFitInput): RingFitResult {
+  const problem = ringProblem(input);
   let outcome: ReturnType<typeof fitEllipse>;
   try {
-    outcome = fitEllipse({
-      points,
-      negatives: [],
-      fixed,
-      modelErrorKm: 0,
-      offsetCount: 0,
-      seed: input.seed,
-      errorPath: 'ringEvents',
-    });
+    outcome = fitEllipse(problem);
   } catch (err) {
     // Several rings share the ringEvents list, so the message names the ring.
     if (err instanceof GeometryInputError)
