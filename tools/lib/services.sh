@@ -18,6 +18,14 @@ _check_socket_path() {
 
 _pid_alive() { [ -n "$1" ] && kill -0 "$1" 2>/dev/null; }
 
+# _registered VALUE LIST...: whether VALUE is one of LIST.
+_registered() {
+  local value="$1" item
+  shift
+  for item in "$@"; do [ "$item" = "$value" ] && return 0; done
+  return 1
+}
+
 _wait_pid_gone() {
   local pid="$1" seconds="$2" i
   for ((i = 0; i < seconds * 10; i++)); do
@@ -54,8 +62,11 @@ start_mariadb() {
     --pid-file="$pidfile" --port="$port" --bind-address=127.0.0.1 --skip-name-resolve \
     --log-error="$logfile" --innodb-buffer-pool-size=64M "$@" >/dev/null 2>&1 &
   local pid=$!
-  LIMBUS_MARIADB_SOCKETS+=("$socket")
-  LIMBUS_MARIADB_PIDFILES+=("$pidfile")
+  # Started again after a stop (the fault test) it is still one server to stop at the end.
+  if ! _registered "$socket" "${LIMBUS_MARIADB_SOCKETS[@]}"; then
+    LIMBUS_MARIADB_SOCKETS+=("$socket")
+    LIMBUS_MARIADB_PIDFILES+=("$pidfile")
+  fi
   local i
   for ((i = 0; i < 300; i++)); do
     if mariadb-admin --no-defaults --socket="$socket" -u "$(_os_user)" ping >/dev/null 2>&1; then
@@ -93,16 +104,20 @@ stop_mariadb() {
   fi
 }
 
-# start_redis DIR PORT: no persistence; the demo's queue is rebuilt from the database state.
+# start_redis DIR PORT: data in DIR/redis as an append-only file written to disk every second
+# (no snapshots), so queued and running jobs outlive a restart or a crash of Redis; BullMQ must not
+# lose them (docs/operations.md, "Faults"). Starting it again on the same DIR reloads that file.
 start_redis() {
   local dir="$1" port="$2" pidfile="$1/redis.pid"
   require_free_port "$port" redis
   mkdir -p "$dir/redis"
-  redis-server --bind 127.0.0.1 --port "$port" --save '' --appendonly no --daemonize yes \
-    --pidfile "$pidfile" --dir "$dir/redis" --logfile "$dir/redis.log" >/dev/null ||
+  redis-server --bind 127.0.0.1 --port "$port" --save '' --appendonly yes --appendfsync everysec \
+    --daemonize yes --pidfile "$pidfile" --dir "$dir/redis" --logfile "$dir/redis.log" >/dev/null ||
     die "redis-server failed to start (log: $dir/redis.log)"
-  LIMBUS_REDIS_PORTS+=("$port")
-  LIMBUS_REDIS_PIDFILES+=("$pidfile")
+  if ! _registered "$port" "${LIMBUS_REDIS_PORTS[@]}"; then
+    LIMBUS_REDIS_PORTS+=("$port")
+    LIMBUS_REDIS_PIDFILES+=("$pidfile")
+  fi
   local i
   for ((i = 0; i < 100; i++)); do
     if [ "$(redis-cli -h 127.0.0.1 -p "$port" ping 2>/dev/null)" = PONG ]; then
@@ -121,15 +136,71 @@ stop_redis() {
   if _pid_alive "$pid" && ! _wait_pid_gone "$pid" 10; then kill -KILL "$pid" 2>/dev/null || true; fi
 }
 
-# start_node NAME LOGFILE COMMAND...: runs a node entry point in the background, its output in
-# LOGFILE. The pid is left in LIMBUS_LAST_PID.
+# start_node NAME LOGFILE COMMAND...: runs a node entry point in the background under
+# supervise_node, its output in LOGFILE (emptied first). LIMBUS_LAST_PID is the supervisor's pid; the
+# process's own is in LOGFILE's .pid beside it.
 start_node() {
   local name="$1" logfile="$2"
   shift 2
-  "$@" >"$logfile" 2>&1 &
+  : >"$logfile"
+  supervise_node "$name" "$logfile" "$@" &
   LIMBUS_LAST_PID=$!
   LIMBUS_NODE_PIDS+=("$LIMBUS_LAST_PID")
   LIMBUS_NODE_NAMES+=("$name")
+}
+
+# describe_exit STATUS: "status 1", or "status 137 (SIGKILL)" for a process a signal ended.
+describe_exit() {
+  if [ "$1" -gt 128 ]; then
+    printf 'status %s (SIG%s)' "$1" "$(kill -l "$(($1 - 128))" 2>/dev/null || echo '?')"
+  else printf 'status %s' "$1"; fi
+}
+
+# supervise_node NAME LOGFILE COMMAND...: runs COMMAND (output appended to LOGFILE, pid in LOGFILE's
+# .pid) and runs it again whenever it exits, 1 s later, then 2, 4, … up to 30 s while it keeps dying,
+# back to 1 s once a run has lasted a minute; each restart is logged on stderr and in LOGFILE. One
+# crashed process so never takes the stack down. A process that exits before it ever printed its
+# `ready …` line is not restarted: that is a set-up problem, which wait_ready then reports. SIGTERM
+# stops the process (SIGKILL after 9 s) and the supervisor. Runs in the background (start_node).
+supervise_node() {
+  local name="$1" logfile="$2"
+  shift 2
+  local pidfile="${logfile%.log}.pid" child='' pause='' status started delay=1 stop=0 message
+  set +e
+  trap - EXIT
+  trap 'stop=1; kill -TERM ${child:+"$child"} ${pause:+"$pause"} 2>/dev/null' TERM
+  while :; do
+    started=$SECONDS
+    "$@" >>"$logfile" 2>&1 &
+    child=$!
+    echo "$child" >"$pidfile"
+    wait "$child" 2>/dev/null
+    status=$?
+    if [ "$stop" -eq 1 ]; then
+      _wait_pid_gone "$child" 9 || kill -KILL "$child" 2>/dev/null
+      if _pid_alive "$child"; then wait "$child" 2>/dev/null; fi
+      rm -f "$pidfile"
+      exit 0
+    fi
+    child=''
+    grep -qE '^ready |"msg":"ready ' "$logfile" 2>/dev/null || exit "$status"
+    [ $((SECONDS - started)) -ge 60 ] && delay=1
+    # A Ctrl-C reaches our process too; give the caller's TERM the moment to arrive first.
+    sleep 0.5 &
+    pause=$!
+    wait "$pause"
+    pause=''
+    [ "$stop" -eq 1 ] && exit 0
+    message="$name exited with $(describe_exit "$status"); restarting in $delay s"
+    log "$message"
+    printf '[limbus] %s\n' "$message" >>"$logfile"
+    sleep "$delay" &
+    pause=$!
+    wait "$pause"
+    pause=''
+    [ "$stop" -eq 1 ] && exit 0
+    delay=$((delay * 2 > 30 ? 30 : delay * 2))
+  done
 }
 
 # wait_ready NAME LOGFILE PID SECONDS: waits for the contract's `ready <what> <url>` line.
@@ -181,7 +252,8 @@ stop_node_from() {
         kill -KILL "$pid" 2>/dev/null || true
       fi
     fi
-    wait "$pid" 2>/dev/null || true
+    # Only a live one: bash (5.2) can block for good in `wait` on a child it reaped during a trap.
+    if _pid_alive "$pid"; then wait "$pid" 2>/dev/null || true; fi
     unset 'LIMBUS_NODE_PIDS[i]' 'LIMBUS_NODE_NAMES[i]'
   done
   LIMBUS_NODE_PIDS=("${LIMBUS_NODE_PIDS[@]}")
