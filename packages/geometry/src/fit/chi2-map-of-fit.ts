@@ -14,7 +14,7 @@ import {
   CHI2_MAP_LEVELS,
   type ContourSegment,
   contourSegments,
-  profileGrid,
+  profileGridCells,
   type ProfileSource,
 } from './chi2-map.js';
 import { type EllipseFitProblem, SHAPE_PARAMETER_COUNT, ellipseRefiner } from './ellipse-fit.js';
@@ -36,9 +36,9 @@ export interface Chi2MapParameter {
   unit: Chi2MapUnit;
   best: number;
   sigma: number;
-  /** Admissible values: a range outside them has no ellipse. */
-  min: number;
-  max: number;
+  /** Admissible values (null: unbounded); a range outside them has no ellipse. */
+  min: number | null;
+  max: number | null;
 }
 
 export interface Chi2MapRange {
@@ -94,9 +94,8 @@ function limbParameters(solution: Solution, fixed: Partial<Record<string, number
     unit: (name === 'oblateness' ? '' : name === 'positionAngleDeg' ? 'deg' : 'km') as Chi2MapUnit,
     best: limb[name],
     sigma: limb.uncertainty[name],
-    min:
-      name === 'equatorialRadiusKm' ? 1e-6 * limb.equatorialRadiusKm : name === 'oblateness' ? 0 : -Infinity,
-    max: name === 'oblateness' ? 0.999 : Infinity,
+    min: name === 'equatorialRadiusKm' ? 1e-6 * limb.equatorialRadiusKm : name === 'oblateness' ? 0 : null,
+    max: name === 'oblateness' ? 0.999 : null,
     index,
     toInternal: name === 'positionAngleDeg' ? DEG_TO_RAD : SAME,
   })).filter((p) => fixed[p.parameter] === undefined);
@@ -105,8 +104,8 @@ function limbParameters(solution: Solution, fixed: Partial<Record<string, number
     unit: 's' as Chi2MapUnit,
     best: o.seconds,
     sigma: o.sigma,
-    min: -Infinity,
-    max: Infinity,
+    min: null,
+    max: null,
     index: SHAPE_PARAMETER_COUNT + i,
     toInternal: SAME,
   }));
@@ -123,7 +122,7 @@ function ringParameters(ring: RingSolution, start: number, openingAsOblateness: 
       best: ring.radiusKm,
       sigma: u.radiusKm,
       min: 1e-6 * ring.radiusKm,
-      max: Infinity,
+      max: null,
       index: start,
       toInternal: SAME,
     },
@@ -142,8 +141,8 @@ function ringParameters(ring: RingSolution, start: number, openingAsOblateness: 
       unit: 'deg' as Chi2MapUnit,
       best: ring.positionAngleDeg,
       sigma: u.positionAngleDeg,
-      min: -Infinity,
-      max: Infinity,
+      min: null,
+      max: null,
       index: start + 2,
       toInternal: DEG_TO_RAD,
     },
@@ -177,8 +176,8 @@ export function chi2MapParameters(solution: Solution, event: Pick<EventInput, 'f
         unit: 'km' as Chi2MapUnit,
         best: r[c],
         sigma: u[c] ?? 0,
-        min: -Infinity,
-        max: Infinity,
+        min: null,
+        max: null,
         index: 0,
         toInternal: SAME,
       })),
@@ -219,8 +218,8 @@ function resolve(solution: Solution, event: Pick<EventInput, 'fit'>, request: Ch
     unit: 'km' as Chi2MapUnit,
     best: ring[c],
     sigma: ring.uncertainty[c] ?? 0,
-    min: -Infinity,
-    max: Infinity,
+    min: null,
+    max: null,
     index,
     toInternal: SAME,
   }));
@@ -238,8 +237,11 @@ function axisOf(
   if (range) {
     if (!(Number.isFinite(range.from) && Number.isFinite(range.to) && range.from < range.to))
       throw new GeometryInputError(path, 'give finite from < to');
-    if (range.from < p.min || range.to > p.max)
-      throw new GeometryInputError(path, `${p.parameter} must stay within [${p.min}, ${p.max}]`);
+    if ((p.min !== null && range.from < p.min) || (p.max !== null && range.to > p.max))
+      throw new GeometryInputError(
+        path,
+        `${p.parameter} must stay ${p.min !== null && p.max !== null ? `within [${p.min}, ${p.max}]` : p.min !== null ? `at or above ${p.min}` : `at or below ${p.max}`}`,
+      );
     ({ from, to } = range);
   } else {
     if (!(p.sigma > 0))
@@ -249,8 +251,8 @@ function axisOf(
       CHI2_MAP_DEFAULT_HALF_WIDTH_SIGMA * p.sigma,
       p.unit === 'deg' && p.parameter.endsWith('positionAngleDeg') ? ANGLE_HALF_TURN_DEG : Infinity,
     );
-    from = Math.max(p.best - half, p.min);
-    to = Math.min(p.best + half, p.max);
+    from = Math.max(p.best - half, p.min ?? -Infinity);
+    to = Math.min(p.best + half, p.max ?? Infinity);
   }
   const values = Array.from({ length: steps }, (_, k) => from + ((to - from) * k) / (steps - 1));
   return { ...p, values };
@@ -326,6 +328,20 @@ export function chi2MapOfFit(
   request: Chi2MapRequest,
   onProgress?: (done: number, total: number) => void,
 ): Chi2Map {
+  const steps = chi2MapSteps(event, solution, request);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+    onProgress?.(step.value.done, step.value.total);
+  }
+}
+
+/** chi2MapOfFit one grid cell at a time, for a caller that must not block for the whole map (the worker). */
+export function* chi2MapSteps(
+  event: EventInput,
+  solution: Solution,
+  request: Chi2MapRequest,
+): Generator<{ done: number; total: number }, Chi2Map> {
   const plan = planChi2Map(solution, event, request);
   const first = projectEvent(event);
   const limb = solution.limb;
@@ -424,14 +440,13 @@ export function chi2MapOfFit(
   const ix = index(plan.x.parameter);
   const iy = index(plan.y.parameter);
   const best = source.minimise(new Map(), bestFull);
-  const grid = profileGrid(
+  const grid = yield* profileGridCells(
     source,
     best.full,
     ix.index,
     iy.index,
     plan.x.values.map(ix.toInternal),
     plan.y.values.map(iy.toInternal),
-    onProgress,
   );
   let gridMin = Infinity;
   let at: [number, number] = [0, 0];

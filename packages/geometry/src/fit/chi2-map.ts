@@ -100,20 +100,21 @@ export interface ProfileGrid {
 }
 
 /**
- * The profile χ² over the grid xs × ys of the entries xIndex, yIndex. Cells are visited outward from the
- * one nearest the best fit (breadth first), each started from its lowest finished neighbour's optimum and
- * from the best fit, the lower kept: the continuation follows a valley, the second start keeps a cell
- * from inheriting a neighbour's side minimum.
+ * The profile χ² over the grid xs × ys of the entries xIndex, yIndex, one cell per step: the generator
+ * yields the cells finished and the total after each, so that a caller can report progress or let other
+ * work run between cells, and returns the grid. Cells are visited outward from the one nearest the best
+ * fit (breadth first), each started from its lowest finished neighbour's optimum and from the best fit,
+ * the lower kept: the continuation follows a valley, the second start keeps a cell from inheriting a
+ * neighbour's side minimum.
  */
-export function profileGrid(
+export function* profileGridCells(
   source: ProfileSource,
   bestFull: Float64Array,
   xIndex: number,
   yIndex: number,
   xs: readonly number[],
   ys: readonly number[],
-  onCell?: (done: number, total: number) => void,
-): ProfileGrid {
+): Generator<{ done: number; total: number }, ProfileGrid> {
   const nx = xs.length;
   const ny = ys.length;
   const chi2: Array<Array<number | null>> = Array.from({ length: ny }, () =>
@@ -172,7 +173,7 @@ export function profileGrid(
       optimum[cell] = result.full;
     }
     done[cell] = 1;
-    onCell?.(++finished, nx * ny);
+    yield { done: ++finished, total: nx * ny };
     for (const c of neighbours)
       if (!queued[c]) {
         queued[c] = 1;
@@ -180,4 +181,22 @@ export function profileGrid(
       }
   }
   return { chi2 };
+}
+
+/** profileGridCells run to the end, onCell told after each cell. */
+export function profileGrid(
+  source: ProfileSource,
+  bestFull: Float64Array,
+  xIndex: number,
+  yIndex: number,
+  xs: readonly number[],
+  ys: readonly number[],
+  onCell?: (done: number, total: number) => void,
+): ProfileGrid {
+  const cells = profileGridCells(source, bestFull, xIndex, yIndex, xs, ys);
+  for (;;) {
+    const step = cells.next();
+    if (step.done) return step.value;
+    onCell?.(step.value.done, step.value.total);
+  }
 }

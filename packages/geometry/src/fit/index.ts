@@ -24,6 +24,7 @@ export {
   CHI2_MAP_MIN_STEPS,
   chi2MapOfFit,
   chi2MapParameters,
+  chi2MapSteps,
   planChi2Map,
 } from './chi2-map-of-fit.js';
 export type {
