@@ -27,3 +27,4 @@ export * from './angles.js';
 export * from './views.js';
 export * from './prediction.js';
 export * from './planning.js';
+export * from './chi2-map.js';
