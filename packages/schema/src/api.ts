@@ -159,18 +159,21 @@ export interface ReportTimings {
   observedToUtc?: string | null;
 }
 
+/** Said at `disappearance` of a positive report without either time (and not awaiting its light curve). */
+export const POSITIVE_REPORT_NEEDS_A_TIME =
+  'a positive report needs the disappearance, the reappearance or both (one alone when the camera started late or a cloud hid the other)';
+
 /**
- * What a result needs: a positive its two timings in order (or, when its times are to come from its
- * light curve, none or both in order), a negative the span watched.
+ * What a result needs: a positive at least one of its two timings, in order when both are given (none
+ * when its times are to come from its light curve), a negative the span watched. A positive with one
+ * time becomes a single-edge chord (docs/file-formats.md, "Event file").
  */
 export function reportTimingProblems(report: ReportTimings): Array<{ path: string; message: string }> {
   const problems: Array<{ path: string; message: string }> = [];
   if (report.result === 'positive') {
     const fromCurve = report.timesFromLightCurve === true;
-    if (!report.disappearance && (!fromCurve || report.reappearance))
-      problems.push({ path: 'disappearance', message: 'a positive report needs the disappearance' });
-    if (!report.reappearance && (!fromCurve || report.disappearance))
-      problems.push({ path: 'reappearance', message: 'a positive report needs the reappearance' });
+    if (!report.disappearance && !report.reappearance && !fromCurve)
+      problems.push({ path: 'disappearance', message: POSITIVE_REPORT_NEEDS_A_TIME });
     const d = orderOf(report.disappearance?.time);
     const r = orderOf(report.reappearance?.time);
     if (d !== undefined && r !== undefined && r <= d)

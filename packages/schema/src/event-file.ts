@@ -84,16 +84,29 @@ function notAfter(a: string, b: string): boolean {
   return aSeconds !== undefined && bSeconds !== undefined && bSeconds <= aSeconds;
 }
 
+/** Said at `chords[i]` of a positive chord with neither edge (geometry's projectEvent says the same). */
+export const POSITIVE_CHORD_NEEDS_AN_EDGE = 'a positive chord needs a disappearance, a reappearance or both';
+
+/**
+ * A positive chord gives both edges, or only one (a camera started late, a cloud): one limb point, its
+ * velocity at that edge's corrected time, its own time standing in for the chord's mid-time.
+ */
 const positiveChord = z
   .strictObject({
     station: label('station'),
     type: z.literal('positive'),
-    disappearance: timedMark,
-    reappearance: timedMark,
+    disappearance: timedMark.optional(),
+    reappearance: timedMark.optional(),
     timeOffsetSeconds: finite().default(0),
   })
   .superRefine((chord, ctx) => {
-    if (notAfter(chord.disappearance.time, chord.reappearance.time))
+    if (chord.disappearance === undefined && chord.reappearance === undefined)
+      ctx.addIssue({ code: 'custom', path: [], message: POSITIVE_CHORD_NEEDS_AN_EDGE });
+    if (
+      chord.disappearance !== undefined &&
+      chord.reappearance !== undefined &&
+      notAfter(chord.disappearance.time, chord.reappearance.time)
+    )
       ctx.addIssue({
         code: 'custom',
         path: ['reappearance', 'time'],
@@ -114,8 +127,23 @@ const negativeChord = z
       ctx.addIssue({ code: 'custom', path: ['end'], message: `end must come after start (${chord.start})` });
   });
 
+/** A dip's apparent opacity from its light curve, 1-sigma, and whether it is only a lower limit. */
+const dipOpacity = z.strictObject({
+  value: finite()
+    .gt(0, 'apparentOpacity.value is a fraction of the star light, above 0')
+    .max(1, 'apparentOpacity.value is a fraction of the star light, at most 1'),
+  sigma: finite().nonnegative('apparentOpacity.sigma must be 0 or more (a 1-σ uncertainty)'),
+  lowerLimit: z.boolean().default(false),
+});
+
 const ringEvent = z
-  .strictObject({ station: label('station'), ring: label('ring label'), start: timedMark, end: timedMark })
+  .strictObject({
+    station: label('station'),
+    ring: label('ring label'),
+    start: timedMark,
+    end: timedMark,
+    apparentOpacity: dipOpacity.optional(),
+  })
   .superRefine((ring, ctx) => {
     if (notAfter(ring.start.time, ring.end.time))
       ctx.addIssue({

@@ -1,5 +1,6 @@
 export {
   EVENT_FORMAT,
+  POSITIVE_CHORD_NEEDS_AN_EDGE,
   eventFileSchema,
   utcTimeSchema,
   validateEventFile,
@@ -28,3 +29,4 @@ export * from './views.js';
 export * from './prediction.js';
 export * from './planning.js';
 export * from './chi2-map.js';
+export * from './timing.js';

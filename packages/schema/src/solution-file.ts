@@ -90,6 +90,20 @@ const pole = z.object({
 // list equal to geometry's RING_CENTER_SOURCES.
 const RING_CENTER_SOURCES = ['limb', 'free', 'joint'] as const satisfies readonly RingCenterFrom[];
 
+const measured = z.object({ value: z.number(), sigma: z.number() });
+
+/** A ring crossing's dip products (docs/file-formats.md, "Solution file"); null optical depths when opaque. */
+const crossingDip = z.object({
+  lowerLimit: z.boolean(),
+  apparentOpacity: measured,
+  apparentOpticalDepth: measured.nullable(),
+  normalOpticalDepth: measured.nullable(),
+  equivalentWidthKm: measured,
+  normalEquivalentWidthKm: measured,
+  equivalentDepthKm: measured.nullable(),
+  normalEquivalentDepthKm: measured.nullable(),
+});
+
 const ring = z.object({
   ring: z.string(),
   centerFrom: z.enum(RING_CENTER_SOURCES).optional(),
@@ -108,7 +122,15 @@ const ring = z.object({
   covariance: covariance.optional(),
   sampler: sampler.optional(),
   poles: z.tuple([pole, pole]),
-  crossings: z.array(z.object({ ...skyPoint, station: z.string(), radialWidthKm: z.number() })),
+  crossings: z.array(
+    z.object({
+      ...skyPoint,
+      station: z.string(),
+      radialWidthKm: z.number(),
+      radialWidthKmSigma: z.number().optional(),
+      dip: crossingDip.optional(),
+    }),
+  ),
   chi2: z.number(),
   dof: z.int(),
 });

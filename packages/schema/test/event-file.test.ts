@@ -122,6 +122,65 @@ describe('validateEventFile()', () => {
     expect(equal).toHaveLength(1);
   });
 
+  it('validateEventFile() accepts a positive chord with one edge and leaves the other out', () => {
+    for (const missing of ['disappearance', 'reappearance'] as const) {
+      const result = validateEventFile(
+        withChange((doc) => {
+          delete (positive(doc) as Json)[missing];
+        }),
+      );
+      if (!result.ok) throw new Error(result.problems.map((p) => `${p.path}: ${p.message}`).join('; '));
+      const chord = result.event.chords[0];
+      if (chord?.type !== 'positive') throw new Error('the first chord is positive');
+      expect(missing in chord).toBe(false);
+      expect(chord[missing === 'disappearance' ? 'reappearance' : 'disappearance']).toBeDefined();
+    }
+  });
+
+  it('validateEventFile() refuses a positive chord with neither edge, naming the chord', () => {
+    const lines = problemLines(
+      withChange((doc) => {
+        const chord: Json = positive(doc);
+        delete chord.disappearance;
+        delete chord.reappearance;
+      }),
+    );
+    expect(lines).toEqual(['chords[0]: a positive chord needs a disappearance, a reappearance or both']);
+  });
+
+  it("validateEventFile() reads a ring dip's apparent opacity and refuses one outside (0, 1]", () => {
+    const dip = {
+      station: 'north-ridge',
+      ring: 'R1',
+      start: { time: '2028-03-14T02:13:31.100Z', sigmaSeconds: 0.04 },
+      end: { time: '2028-03-14T02:13:31.900Z', sigmaSeconds: 0.04 },
+    };
+    const result = validateEventFile(
+      withChange((doc) => {
+        doc.ringEvents = [{ ...dip, apparentOpacity: { value: 0.35, sigma: 0.02 } }];
+      }),
+    );
+    if (!result.ok) throw new Error(result.problems.map((p) => `${p.path}: ${p.message}`).join('; '));
+    expect(result.event.ringEvents[0]?.apparentOpacity).toEqual({
+      value: 0.35,
+      sigma: 0.02,
+      lowerLimit: false,
+    });
+    const lines = problemLines(
+      withChange((doc) => {
+        doc.ringEvents = [
+          { ...dip, apparentOpacity: { value: 0, sigma: 0.02 } },
+          { ...dip, apparentOpacity: { value: 1.2, sigma: -1 } },
+        ];
+      }),
+    );
+    expect(lines).toEqual([
+      'ringEvents[0].apparentOpacity.value: apparentOpacity.value is a fraction of the star light, above 0',
+      'ringEvents[1].apparentOpacity.value: apparentOpacity.value is a fraction of the star light, at most 1',
+      'ringEvents[1].apparentOpacity.sigma: apparentOpacity.sigma must be 0 or more (a 1-σ uncertainty)',
+    ]);
+  });
+
   it('validateEventFile() orders sub-millisecond times correctly', () => {
     const result = validateEventFile(
       withChange((doc) => {
