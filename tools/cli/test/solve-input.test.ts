@@ -74,6 +74,14 @@ describe('limbus solve (bad input)', () => {
     ]);
   });
 
+  it('solve refuses a positive chord with neither edge, naming the chord', () => {
+    const result = solveWith((doc) => {
+      const { disappearance: _d, reappearance: _r, ...rest } = doc.chords[0] as Json;
+      doc.chords[0] = rest;
+    });
+    expectRefused(result, ['chords[0]: a positive chord needs a disappearance, a reappearance or both']);
+  });
+
   it('solve refuses a chord naming an unknown station', () => {
     const result = solveWith((doc) => (doc.chords[1] = { ...doc.chords[1], station: 'hilltop' }));
     expectRefused(result, [

@@ -52,6 +52,24 @@ describe('limbus solve (geometry)', () => {
     expect(solution.rings.map((r) => r.ring)).toEqual(['R1']);
   });
 
+  it('solve takes a positive chord with one edge as one limb point (a camera started late)', () => {
+    const doc = example();
+    const index = doc.chords.findIndex((c) => c.type === 'positive');
+    const { disappearance: _dropped, ...lateStart } = doc.chords[index] as Json;
+    doc.chords[index] = lateStart;
+    const result = runCli(['solve', writeScratchFile(doc)]);
+    expect(result.code, result.stderr).toBe(0);
+    const validation = validateSolutionFile(JSON.parse(result.stdout));
+    if (!validation.ok) throw new Error('invalid solution');
+    const { solution } = validation;
+    expect(solution.chords[index]?.points.map((p) => p.event)).toEqual(['reappearance']);
+    const full = example();
+    const positives = full.chords.filter((c) => c.type === 'positive').length;
+    expect(solution.limb?.radialResidualsKm).toHaveLength(2 * positives - 1);
+    // One point fewer: dof = points − 5 free parameters.
+    expect(solution.limb?.dof).toBe(2 * positives - 1 - 5);
+  });
+
   it('solve refuses a timing outside the ephemeris span', () => {
     const doc = example();
     doc.chords[0] = {

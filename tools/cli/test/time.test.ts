@@ -121,14 +121,19 @@ describe('limbus time', () => {
       'format',
       'disappearance',
       'reappearance',
+      'edgeSpeedsKmPerS',
       'baselineFlux',
       'bottomFlux',
       'chi2',
       'dof',
       'fresnelScaleKm',
       'starDiameterKm',
+      'noiseSigmaFlux',
+      'eventSignificance',
       'dips',
     ]);
+    // Without --speed-d-km-s and --speed-r-km-s both edges take --speed-km-s.
+    expect(out.edgeSpeedsKmPerS).toEqual({ disappearance: 6, reappearance: 6 });
     expect(out.format).toBe('limbus-timing/1');
     if (out.disappearance === null || out.reappearance === null) throw new Error('event not found');
     // At least four decimals of a second.
@@ -144,9 +149,10 @@ describe('limbus time', () => {
     // √(λD/2) at the central 0.65 µm (Roques, Moncuquet & Sicardy 1987; from memory).
     expect(Math.abs(out.fresnelScaleKm - Math.sqrt(1.95))).toBeLessThan(1e-9);
     expect(out.starDiameterKm).toBe(0.6);
-    // Without fluxErr the noise scale comes from the residuals, so χ² = dof; one dip costs 3 dof.
+    // Four parameters for the well (two levels, two times); one dip costs 3 dof.
     expect(out.dof).toBe(300 - 4 - 3);
-    expect(Math.abs(out.chi2 - out.dof)).toBeLessThan(1e-3);
+    // The noise scale comes from the residuals: the generator's 30 within its own sampling spread.
+    expect(Math.abs((out.noiseSigmaFlux ?? NaN) - 30)).toBeLessThan(4 * (30 / Math.sqrt(2 * out.dof)));
 
     expect(out.dips).toHaveLength(1);
     const dip = out.dips[0];
@@ -155,20 +161,39 @@ describe('limbus time', () => {
       'start',
       'end',
       'apparentOpacity',
+      'apparentOpacitySigma',
       'apparentOpticalDepth',
+      'apparentOpticalDepthSigma',
+      'normalOpticalDepth',
+      'normalOpticalDepthSigma',
+      'widthKm',
+      'widthKmSigma',
       'equivalentWidthKm',
+      'equivalentWidthKmSigma',
+      'equivalentDepthKm',
+      'equivalentDepthKmSigma',
+      'lowerLimits',
       'significance',
+      'marked',
     ]);
     const start = seconds(dip.start.time);
     const end = seconds(dip.end.time);
     expect(Math.abs(start - dipTruth.startSeconds)).toBeLessThan(3 * dip.start.sigmaSeconds);
     expect(Math.abs(end - dipTruth.endSeconds)).toBeLessThan(3 * dip.end.sigmaSeconds);
     expect(Math.abs(dip.apparentOpacity - dipTruth.opacity)).toBeLessThan(0.05);
-    expect(Math.abs((dip.apparentOpticalDepth ?? NaN) + Math.log(1 - dip.apparentOpacity))).toBeLessThan(
-      1e-12,
+    // Against the generator's truth, within 3 sigma: τ = −ln(1 − 0.5), E = 0.5 × 6 km/s × 0.8 s = 2.4 km,
+    // A = τ × 4.8 km; no opening angle given, so no normal optical depth; 4.8 km is resolved (F = 1.4 km).
+    const tau = -Math.log(1 - dipTruth.opacity);
+    expect(Math.abs((dip.apparentOpticalDepth ?? NaN) - tau)).toBeLessThan(
+      3 * (dip.apparentOpticalDepthSigma ?? 0),
     );
-    // Equivalent width = opacity × speed × duration; the time strings round to 1 µs.
-    expect(Math.abs(dip.equivalentWidthKm - dip.apparentOpacity * 6 * (end - start))).toBeLessThan(1e-4);
+    expect(Math.abs(dip.equivalentWidthKm - 2.4)).toBeLessThan(3 * (dip.equivalentWidthKmSigma ?? 0));
+    expect(Math.abs((dip.equivalentDepthKm ?? NaN) - tau * 4.8)).toBeLessThan(
+      3 * (dip.equivalentDepthKmSigma ?? 0),
+    );
+    expect(dip.normalOpticalDepth).toBeNull();
+    expect(dip.lowerLimits).toBeNull();
+    expect(dip.marked).toBe(false);
     expect(dip.significance).toBeGreaterThan(6);
   });
 
@@ -215,6 +240,68 @@ describe('limbus time', () => {
     expect(out.reappearance).toBeNull();
     expect(out.dips).toEqual([]);
     expect(stderr).toMatch(/^limbus time: no event found/);
+  });
+
+  it('run() times the one edge of a light curve that ends inside the event, and says so', async () => {
+    // Rows up to 16 s: the disappearance (12.54 s) is in, the reappearance (19.08 s) is not.
+    const cut = mainCsv.trimEnd().split('\n').slice(0, 161).join('\n') + '\n';
+    expect(await run([writeCsv(cut), ...FLAGS])).toBe(0);
+    const out = JSON.parse(stdout) as TimingOutput;
+    expect(out.reappearance).toBeNull();
+    if (out.disappearance === null) throw new Error('disappearance not timed');
+    expect(Math.abs(seconds(out.disappearance.time) - truth.disappearanceSeconds)).toBeLessThan(
+      3 * out.disappearance.sigmaSeconds,
+    );
+    // Three parameters (two levels, one time) and the dip's three.
+    expect(out.dof).toBe(160 - 3 - 3);
+    expect(stderr).toBe(
+      'limbus time: the light curve ends inside the event: only the disappearance is timed; the other is null (a single-edge chord, docs/file-formats.md)\n',
+    );
+  });
+
+  it('run() models each edge at --speed-d-km-s and --speed-r-km-s and gives τ_N with --ring-opening-deg', async () => {
+    // A curve whose disappearance sweeps at 0.436 × 6 km/s (a chord at 0.9 R, docs/method.md) and whose
+    // reappearance at 6 km/s, timed with those speeds: each time within 3 sigma of the generator's.
+    const times = evenTimes(0, CADENCE, 300);
+    const clean = syntheticFlux(setup, {
+      timesSeconds: times,
+      ...truth,
+      baselineFlux: 1000,
+      bottomFlux: 80,
+      dips: [dipTruth],
+      edgeSpeedsKmPerS: { disappearance: 0.436 * 6, reappearance: 6 },
+    });
+    const gauss = gaussianSource(5);
+    const csv =
+      [
+        'time,flux',
+        ...times.map((t, i) => `${isoAt(t)},${((clean[i] ?? 0) + 30 * gauss()).toFixed(3)}`),
+      ].join('\n') + '\n';
+    const flags = [
+      ...FLAGS,
+      '--speed-d-km-s',
+      String(0.436 * 6),
+      '--ring-opening-deg',
+      '30',
+      '--ring-opening-sigma-deg',
+      '0',
+    ];
+    expect(await run([writeCsv(csv), ...flags])).toBe(0);
+    const out = JSON.parse(stdout) as TimingOutput;
+    expect(out.edgeSpeedsKmPerS).toEqual({ disappearance: 0.436 * 6, reappearance: 6 });
+    if (out.disappearance === null || out.reappearance === null) throw new Error('event not found');
+    expect(Math.abs(seconds(out.disappearance.time) - truth.disappearanceSeconds)).toBeLessThan(
+      3 * out.disappearance.sigmaSeconds,
+    );
+    expect(Math.abs(seconds(out.reappearance.time) - truth.reappearanceSeconds)).toBeLessThan(
+      3 * out.reappearance.sigmaSeconds,
+    );
+    // τ_N = τ·|sin B| (PDS4 Rings dictionary, normal_optical_depth): the truth −ln(0.5)·sin 30° = 0.3466.
+    const dip = out.dips[0];
+    if (dip === undefined) throw new Error('no dip');
+    expect(Math.abs((dip.normalOpticalDepth ?? NaN) - 0.34657)).toBeLessThan(
+      3 * (dip.normalOpticalDepthSigma ?? 0),
+    );
   });
 
   it('run() reports a dip marked by hand with --dip even where the search finds none', async () => {
@@ -286,12 +373,18 @@ describe('limbus time', () => {
       await expectBad(withErr.join('\n'), 'row 6, column fluxErr: must be a positive number, not "0"');
     });
 
-    it('run() names the last row when the light curve ends inside the event', async () => {
-      const cut = rows.slice(0, 161);
-      await expectBad(
-        cut.join('\n'),
-        'row 161, column flux: the light curve ends inside the event; both edges are needed',
-      );
+    it('run() names a non-positive edge speed and an opening-angle sigma without the angle', async () => {
+      await expectBad(mainCsv, '--speed-d-km-s: must be positive', [...FLAGS, '--speed-d-km-s', '0']);
+      await expectBad(mainCsv, '--ring-opening-sigma-deg: needs --ring-opening-deg', [
+        ...FLAGS,
+        '--ring-opening-sigma-deg',
+        '1',
+      ]);
+      await expectBad(mainCsv, '--ring-opening-deg: must be within ±90°', [
+        ...FLAGS,
+        '--ring-opening-deg',
+        '95',
+      ]);
     });
 
     it('run() names a missing required option and conflicting star diameters', async () => {

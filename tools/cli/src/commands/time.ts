@@ -10,25 +10,36 @@ import {
   GeometryInputError,
   starAngularDiameterMasFromVK,
   starDiameterKmFromMas,
-  type TimedEdge,
   type TimingResult,
 } from '@limbus/geometry';
 
-import { formatUtc, parseLightCurveCsv, parseUtc, secondsBetweenUtc, type LightCurve } from '@limbus/schema';
+import {
+  parseLightCurveCsv,
+  parseUtc,
+  secondsBetweenUtc,
+  TIMING_FORMAT,
+  timingDocument,
+  type LightCurve,
+  type TimingDocument,
+} from '@limbus/schema';
 
 import { InputProblems, readFileBytes, runCommand, type Problem } from '../io.js';
 
-export const TIMING_OUTPUT_FORMAT = 'limbus-timing/1';
+export const TIMING_OUTPUT_FORMAT = TIMING_FORMAT;
 
 const USAGE =
-  'usage: limbus time LIGHTCURVE.csv --speed-km-s V --distance-km D --exposure-s E [--wavelength-um 0.65] ' +
+  'usage: limbus time LIGHTCURVE.csv --speed-km-s V [--speed-d-km-s VD] [--speed-r-km-s VR] ' +
+  '--distance-km D --exposure-s E [--wavelength-um 0.65] ' +
   '[--bandwidth-um 0.3] [--star-diameter-km S | --star-diameter-mas M | --star-v-mag V --star-k-mag K] ' +
-  '[--bottom free|zero] ' +
+  '[--bottom free|zero] [--ring-opening-deg B [--ring-opening-sigma-deg SB]] ' +
   '[--dip START/END ...] [--detection-sigma 6]';
 
 export interface TimingOptions {
   file: string;
   speedKmPerS: number;
+  /** The limb-normal speeds of the two edges; each defaults to speedKmPerS. */
+  speedDisappearanceKmPerS: number;
+  speedReappearanceKmPerS: number;
   distanceKm: number;
   exposureSeconds: number;
   wavelengthUm: number;
@@ -38,32 +49,21 @@ export interface TimingOptions {
   starVMag?: number;
   starKMag?: number;
   bottom: 'free' | 'zero';
+  /** The ring's opening angle and its 1-sigma, for the dips' normal optical depth. */
+  ringOpeningAngle?: { valueDeg: number; sigmaDeg: number };
   detectionSigma: number;
   dips: Array<{ start: string; end: string }>;
 }
 
-export interface TimingOutput {
-  format: typeof TIMING_OUTPUT_FORMAT;
-  disappearance: { time: string; sigmaSeconds: number } | null;
-  reappearance: { time: string; sigmaSeconds: number } | null;
-  baselineFlux: number;
-  bottomFlux: number | null;
-  chi2: number;
-  dof: number;
-  fresnelScaleKm: number;
-  starDiameterKm: number;
-  dips: Array<{
-    start: { time: string; sigmaSeconds: number };
-    end: { time: string; sigmaSeconds: number };
-    apparentOpacity: number;
-    apparentOpticalDepth: number | null;
-    equivalentWidthKm: number;
-    significance: number;
-  }>;
-}
+/** The limbus-timing/1 document (one builder in @limbus/schema, shared with the server). */
+export type TimingOutput = TimingDocument;
 
 const NUMBER_OPTIONS = {
   '--speed-km-s': 'speedKmPerS',
+  '--speed-d-km-s': 'speedDisappearanceKmPerS',
+  '--speed-r-km-s': 'speedReappearanceKmPerS',
+  '--ring-opening-deg': 'ringOpeningDeg',
+  '--ring-opening-sigma-deg': 'ringOpeningSigmaDeg',
   '--distance-km': 'distanceKm',
   '--exposure-s': 'exposureSeconds',
   '--wavelength-um': 'wavelengthUm',
@@ -149,6 +149,22 @@ export function parseTimingArguments(args: string[]): TimingOptions {
     return x;
   };
   const speedKmPerS = required('speedKmPerS', '--speed-km-s', 'positive');
+  const edgeSpeed = (key: 'speedDisappearanceKmPerS' | 'speedReappearanceKmPerS', flag: string): number => {
+    const x = numbers[key];
+    if (x === undefined) return speedKmPerS;
+    if (!(x > 0)) problems.push({ path: flag, message: 'must be positive' });
+    return x;
+  };
+  const speedDisappearanceKmPerS = edgeSpeed('speedDisappearanceKmPerS', '--speed-d-km-s');
+  const speedReappearanceKmPerS = edgeSpeed('speedReappearanceKmPerS', '--speed-r-km-s');
+  const ringOpeningDeg = numbers.ringOpeningDeg;
+  const ringOpeningSigmaDeg = numbers.ringOpeningSigmaDeg ?? 0;
+  if (ringOpeningDeg !== undefined && !(Math.abs(ringOpeningDeg) <= 90))
+    problems.push({ path: '--ring-opening-deg', message: 'must be within ±90°' });
+  if (!(ringOpeningSigmaDeg >= 0))
+    problems.push({ path: '--ring-opening-sigma-deg', message: 'must be zero or positive' });
+  if (ringOpeningDeg === undefined && numbers.ringOpeningSigmaDeg !== undefined)
+    problems.push({ path: '--ring-opening-sigma-deg', message: 'needs --ring-opening-deg' });
   const distanceKm = required('distanceKm', '--distance-km', 'positive');
   const exposureSeconds = required('exposureSeconds', '--exposure-s', 'positive');
   const wavelengthUm = numbers.wavelengthUm ?? 0.65;
@@ -191,6 +207,8 @@ export function parseTimingArguments(args: string[]): TimingOptions {
   return {
     file: files[0] ?? '',
     speedKmPerS,
+    speedDisappearanceKmPerS,
+    speedReappearanceKmPerS,
     distanceKm,
     exposureSeconds,
     wavelengthUm,
@@ -200,6 +218,9 @@ export function parseTimingArguments(args: string[]): TimingOptions {
     ...(numbers.starVMag === undefined ? {} : { starVMag: numbers.starVMag }),
     ...(numbers.starKMag === undefined ? {} : { starKMag: numbers.starKMag }),
     bottom,
+    ...(ringOpeningDeg === undefined
+      ? {}
+      : { ringOpeningAngle: { valueDeg: ringOpeningDeg, sigmaDeg: ringOpeningSigmaDeg } }),
     detectionSigma,
     dips,
   };
@@ -261,6 +282,11 @@ export async function timingFromFile(
       flux: curve.flux,
       ...(curve.fluxErr === undefined ? {} : { fluxErr: curve.fluxErr }),
       speedKmPerS: options.speedKmPerS,
+      edgeSpeedsKmPerS: {
+        disappearanceKmPerS: options.speedDisappearanceKmPerS,
+        reappearanceKmPerS: options.speedReappearanceKmPerS,
+      },
+      ...(options.ringOpeningAngle === undefined ? {} : { ringOpeningAngle: options.ringOpeningAngle }),
       exposureSeconds: options.exposureSeconds,
       profile,
       bottom: options.bottom,
@@ -271,29 +297,7 @@ export async function timingFromFile(
     if (error instanceof GeometryInputError) throw new InputProblems([locate(error, curve)]);
     throw error;
   }
-  const mark = (e: TimedEdge) => ({
-    time: formatUtc(curve.origin, e.timeSeconds),
-    sigmaSeconds: e.sigmaSeconds,
-  });
-  const output: TimingOutput = {
-    format: TIMING_OUTPUT_FORMAT,
-    disappearance: result.disappearance === null ? null : mark(result.disappearance),
-    reappearance: result.reappearance === null ? null : mark(result.reappearance),
-    baselineFlux: result.baselineFlux,
-    bottomFlux: result.bottomFlux,
-    chi2: result.chi2,
-    dof: result.dof,
-    fresnelScaleKm: result.fresnelScaleKm,
-    starDiameterKm: result.starDiameterKm,
-    dips: result.dips.map((d) => ({
-      start: mark(d.start),
-      end: mark(d.end),
-      apparentOpacity: d.apparentOpacity,
-      apparentOpticalDepth: d.apparentOpticalDepth,
-      equivalentWidthKm: d.equivalentWidthKm,
-      significance: d.significance,
-    })),
-  };
+  const output: TimingOutput = timingDocument(result, curve.origin);
   return { output, result };
 }
 
@@ -301,10 +305,17 @@ export async function run(args: string[]): Promise<number> {
   return runCommand(async () => {
     const options = parseTimingArguments(args);
     const { output, result } = await timingFromFile(options);
-    if (output.disappearance === null) {
+    if (output.disappearance === null && output.reappearance === null) {
       process.stderr.write(
         `limbus time: no event found: the strongest drop is ${result.eventSignificance.toFixed(1)} sigma, ` +
           `below the detection threshold of ${options.detectionSigma} sigma; disappearance and reappearance are null\n`,
+      );
+    } else if (output.disappearance === null || output.reappearance === null) {
+      const held = output.disappearance === null ? 'reappearance' : 'disappearance';
+      const where = held === 'reappearance' ? 'starts' : 'ends';
+      process.stderr.write(
+        `limbus time: the light curve ${where} inside the event: only the ${held} is timed; ` +
+          `the other is null (a single-edge chord, docs/file-formats.md)\n`,
       );
     }
     process.stdout.write(JSON.stringify(output, null, 2) + '\n');
