@@ -213,8 +213,8 @@ export interface Measured {
  * length L = |v|·(end − start) along the station's track, its radial width W_r in the ring plane and the
  * ring's opening angle B (docs/method.md, "Ring dips"): apparent τ = −ln(1 − p), normal τ_N = τ·|sin B|,
  * apparent equivalent width p·L and depth τ·L, normal equivalent width p·W_r·|sin B| and depth τ_N·W_r.
- * The optical depths and depths are null for an opaque dip; with `lowerLimit` every value but the
- * equivalent widths bounds the truth from below.
+ * The optical depths and depths are null for an opaque dip; with `lowerLimit` (a dip not resolved, or
+ * opaque) the opacity stated is itself a lower bound and every value here bounds the truth from below.
  */
 export interface RingCrossingDip {
   lowerLimit: boolean;

@@ -15,6 +15,7 @@
 // opaque dip (p = 1) has τ unbounded above; its 1-sigma lower bound is −ln(σp).
 
 import { propagateCovariance } from '../fit/covariance.js';
+import { DEG } from '../math.js';
 
 /** What limits the resolution along the track, in km. */
 export interface DipResolution {
@@ -30,7 +31,15 @@ export interface DipLowerLimits {
   reason: string;
   apparentOpacity: number;
   apparentOpticalDepth: number;
+  /** τ·|sin B|, when the ring's opening angle was given. */
+  normalOpticalDepth: number | null;
   equivalentDepthKm: number;
+}
+
+/** A ring's opening angle B and its 1-sigma, degrees: what turns an apparent optical depth normal. */
+export interface OpeningAngle {
+  valueDeg: number;
+  sigmaDeg: number;
 }
 
 export interface DipProducts {
@@ -49,6 +58,13 @@ export interface DipProducts {
   /** optical depth × v × (end − start); null when the dip is opaque. */
   equivalentDepthKm: number | null;
   equivalentDepthKmSigma: number | null;
+  /**
+   * τ_N = τ·|sin B| with B the ring's opening angle, when it was given (PDS4 Rings data dictionary,
+   * "normal_optical_depth"); its 1-sigma adds B's: σ² = (|sin B|·στ)² + (τ·cos B·σB)². Null without B or
+   * when the dip is opaque.
+   */
+  normalOpticalDepth: number | null;
+  normalOpticalDepthSigma: number | null;
   /** Null for a resolved dip that is not opaque: its products are measurements. */
   lowerLimits: DipLowerLimits | null;
 }
@@ -65,6 +81,7 @@ export function dipProducts(
   cov: readonly number[][] | null,
   speedKmPerS: number,
   resolution: DipResolution,
+  openingAngle?: OpeningAngle,
 ): DipProducts {
   const v = speedKmPerS;
   const p = fit.opacity;
@@ -87,6 +104,15 @@ export function dipProducts(
   if (widthKm < resolution.fresnelScaleKm) reasons.push('narrower than the Fresnel scale');
   if (widthKm < resolution.starDiameterKm) reasons.push("narrower than the star's disc");
   if (widthKm < resolution.exposureKm) reasons.push('narrower than one exposure');
+  const sinB = openingAngle === undefined ? null : Math.abs(Math.sin(openingAngle.valueDeg * DEG));
+  const normal = (t: number | null): number | null => (t === null || sinB === null ? null : t * sinB);
+  let normalSigma: number | null = null;
+  const sigmaTau = tau === null ? null : sigma(3);
+  if (tau !== null && sigmaTau !== null && sinB !== null && openingAngle !== undefined)
+    normalSigma = Math.hypot(
+      sinB * sigmaTau,
+      tau * Math.cos(openingAngle.valueDeg * DEG) * openingAngle.sigmaDeg * DEG,
+    );
   let lowerLimits: DipLowerLimits | null = null;
   if (reasons.length > 0) {
     const smoothingKm = Math.max(resolution.fresnelScaleKm, resolution.starDiameterKm, resolution.exposureKm);
@@ -96,6 +122,7 @@ export function dipProducts(
       reason: reasons.join(', '),
       apparentOpacity: pMin,
       apparentOpticalDepth: tauMin,
+      normalOpticalDepth: normal(tauMin),
       equivalentDepthKm: tauMin * smoothingKm,
     };
   } else if (opaque) {
@@ -105,6 +132,7 @@ export function dipProducts(
       reason: 'opaque',
       apparentOpacity: sigmaP === null ? p : Math.max(0, p - sigmaP),
       apparentOpticalDepth: tauMin,
+      normalOpticalDepth: normal(tauMin),
       equivalentDepthKm: tauMin * widthKm,
     };
   }
@@ -119,6 +147,8 @@ export function dipProducts(
     equivalentWidthKmSigma: sigma(2),
     equivalentDepthKm: tau === null ? null : tau * widthKm,
     equivalentDepthKmSigma: tau === null ? null : sigma(4),
+    normalOpticalDepth: normal(tau),
+    normalOpticalDepthSigma: normalSigma,
     lowerLimits,
   };
 }

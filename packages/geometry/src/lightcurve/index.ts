@@ -22,6 +22,12 @@ export {
   type DipResult,
 } from './timing.js';
 export { starAngularDiameterMasFromVK, starDiameterKmFromMas } from './star.js';
-export { dipProducts, type DipProducts, type DipLowerLimits, type DipResolution } from './dip-products.js';
+export {
+  dipProducts,
+  type DipProducts,
+  type DipLowerLimits,
+  type DipResolution,
+  type OpeningAngle,
+} from './dip-products.js';
 export { limbCrossing, predictedLimb, type LimbCrossing } from './edge-speed.js';
 export type { EdgeSpeeds } from './well-model.js';

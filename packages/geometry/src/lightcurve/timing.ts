@@ -13,7 +13,7 @@ import { strongestResidualBox, strongestStep } from './box-search.js';
 import { Matrix } from 'ml-matrix';
 
 import { normalMatrixCovariance } from '../fit/covariance.js';
-import { dipProducts, type DipProducts, type DipResolution } from './dip-products.js';
+import { dipProducts, type DipProducts, type DipResolution, type OpeningAngle } from './dip-products.js';
 import type { EdgeProfile } from './edge-profile.js';
 import { minimizeAlternating, parabolicMinimum, profileHalfWidth, scanThenRefine } from './minimize.js';
 import { WellModel, weightedSeries, type EdgeSpeeds, type WeightedSeries } from './well-model.js';
@@ -41,6 +41,8 @@ export interface TimingInput {
    * 0.9 R across a round limb the normal speed is √(1 − 0.9²) ≈ 0.44 of the full speed.
    */
   edgeSpeedsKmPerS?: EdgeSpeeds;
+  /** The ring's opening angle B, when known: each dip then also gets its normal optical depth τ·|sin B|. */
+  ringOpeningAngle?: OpeningAngle;
   exposureSeconds: number;
   profile: EdgeProfile;
   bottom: 'free' | 'zero';
@@ -110,6 +112,13 @@ function validate(input: TimingInput): void {
     }
   }
   if (!(input.speedKmPerS > 0)) throw new GeometryInputError('speedKmPerS', 'must be a positive number');
+  const b = input.ringOpeningAngle;
+  if (b !== undefined) {
+    if (!(Math.abs(b.valueDeg) <= 90))
+      throw new GeometryInputError('ringOpeningAngle.valueDeg', 'must be within ±90°');
+    if (!(b.sigmaDeg >= 0))
+      throw new GeometryInputError('ringOpeningAngle.sigmaDeg', 'must be zero or positive');
+  }
   const edges = input.edgeSpeedsKmPerS;
   if (edges !== undefined) {
     if (!(edges.disappearanceKmPerS > 0 && Number.isFinite(edges.disappearanceKmPerS)))
@@ -644,11 +653,21 @@ export function searchDips(main: MainEventFit, previous?: DipResult[]): DipResul
 
   const dips: DipResult[] = [];
   for (const w of windows) {
-    const dip = fitDip(dipModel, series, w.start, w.end, starFlux, cadence, main.dipSmoothSeconds, {
+    const resolution = {
       fresnelScaleKm: input.profile.fresnelScaleKm,
       starDiameterKm: input.profile.starDiameterKm,
       exposureKm: input.speedKmPerS * input.exposureSeconds,
-    });
+    };
+    const dip = fitDip(
+      dipModel,
+      series,
+      w,
+      starFlux,
+      cadence,
+      main.dipSmoothSeconds,
+      resolution,
+      input.ringOpeningAngle,
+    );
     if (dip !== null) dips.push({ ...dip, marked: w.marked });
   }
   return dips.sort((a, b) => a.start.timeSeconds - b.start.timeSeconds);
@@ -663,12 +682,12 @@ export function searchDips(main: MainEventFit, previous?: DipResult[]): DipResul
 function fitDip(
   model: WellModel,
   residuals: WeightedSeries,
-  start: number,
-  end: number,
+  { start, end }: { start: number; end: number },
   starFlux: number,
   cadence: number,
   smoothSeconds: number,
   resolution: DipResolution,
+  openingAngle: OpeningAngle | undefined,
 ): Omit<DipResult, 'marked'> | null {
   const t = model.timesSeconds;
   const n = t.length;
@@ -696,7 +715,13 @@ function fitDip(
   return {
     start: { timeSeconds: fit.t1, sigmaSeconds: fit.sigma1 },
     end: { timeSeconds: fit.t2, sigmaSeconds: fit.sigma2 },
-    ...dipProducts({ startSeconds: fit.t1, endSeconds: fit.t2, opacity }, cov, speedKmPerS, resolution),
+    ...dipProducts(
+      { startSeconds: fit.t1, endSeconds: fit.t2, opacity },
+      cov,
+      speedKmPerS,
+      resolution,
+      openingAngle,
+    ),
     significance: Math.sqrt(Math.max(0, -fit.chi2)),
   };
 }

@@ -98,7 +98,7 @@ describe('fitTiming() dips', () => {
     expectClose(limits.apparentOpacity, dip.equivalentWidthKm / 1.3964, 1e-3);
   });
 
-  it('fitTiming() dip products cover the truth in 68 % ± 10 % of 100 realisations (opacity, τ, widths, depth)', () => {
+  it('fitTiming() dip products cover the truth in 68 % ± 10 % of 100 realisations (opacity, τ, τ_N, widths, depth)', () => {
     // A resolved dip of opacity 0.4 over 1.56 s at 8 km/s: L = 12.44 km, τ = −ln 0.6 = 0.5108, E = p·L,
     // A = τ·L (the definitions in docs/method.md, "Ring dips"), against the linearised 1-sigma of the fit.
     // 100 realisations give a binomial spread of 4.7 %, so ±10 % is about two of them; the benchmark
@@ -116,7 +116,14 @@ describe('fitTiming() dips', () => {
       equivalentWidthKm: ring.opacity * lengthKm,
       equivalentDepthKm: tau * lengthKm,
     };
-    const inside = { opacity: 0, tau: 0, widthKm: 0, equivalentWidthKm: 0, equivalentDepthKm: 0 };
+    const inside = {
+      opacity: 0,
+      tau: 0,
+      normalTau: 0,
+      widthKm: 0,
+      equivalentWidthKm: 0,
+      equivalentDepthKm: 0,
+    };
     const gauss = gaussianSource(2027);
     const realisations = 100;
     for (let k = 0; k < realisations; k++) {
@@ -129,6 +136,8 @@ describe('fitTiming() dips', () => {
         exposureSeconds: setup.exposureSeconds,
         profile,
         bottom: 'free',
+        // A ring at B = 30° measured with a 2° error: τ_N = τ·sin 30° = 0.2554, its σ adding τ·cos B·σB.
+        ringOpeningAngle: { valueDeg: 30 + 2 * gauss(), sigmaDeg: 2 },
       });
       const dip = result.dips[0];
       if (dip === undefined || result.dips.length !== 1)
@@ -137,6 +146,7 @@ describe('fitTiming() dips', () => {
         value !== null && sigma !== null && Math.abs(value - t) <= sigma ? 1 : 0;
       inside.opacity += within(dip.apparentOpacity, dip.apparentOpacitySigma, truth.opacity);
       inside.tau += within(dip.apparentOpticalDepth, dip.apparentOpticalDepthSigma, truth.tau);
+      inside.normalTau += within(dip.normalOpticalDepth, dip.normalOpticalDepthSigma, 0.5 * truth.tau);
       inside.widthKm += within(dip.widthKm, dip.widthKmSigma, truth.widthKm);
       inside.equivalentWidthKm += within(
         dip.equivalentWidthKm,
