@@ -6,6 +6,7 @@ import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { BodiesModule } from './bodies/bodies.module';
+import { Chi2MapsModule } from './chi2-maps/chi2-maps.module';
 import { ComparisonsModule } from './comparisons/comparisons.module';
 import { ChordsModule } from './chords/chords.module';
 import { JwtAuthGuard } from './auth/jwt-auth.guard';
@@ -98,6 +99,7 @@ export class AppModule {
         DynamicsModule,
         ShapesModule,
         PlanningModule,
+        Chi2MapsModule,
       ],
       providers: [
         // Order matters: authentication first, then roles read the authenticated user.

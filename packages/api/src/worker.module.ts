@@ -1,5 +1,6 @@
 import { DynamicModule, Module } from '@nestjs/common';
 import { coreImports } from './app.module';
+import { Chi2MapsWorkerModule } from './chi2-maps/chi2-maps-worker.module';
 import { ComparisonsWorkerModule } from './comparisons/comparisons-worker.module';
 import type { AppConfig } from './config/app-config';
 import { FitsWorkerModule } from './fits/fits-worker.module';
@@ -18,6 +19,7 @@ export class WorkerModule {
         FitsWorkerModule,
         TimingsWorkerModule,
         ComparisonsWorkerModule,
+        Chi2MapsWorkerModule,
       ],
     };
   }

@@ -4,6 +4,8 @@
 
 import { z } from 'zod';
 
+import { plainErrorMap, problemsFromIssues, type Problem } from './problems.js';
+
 import type {
   CHI2_MAP_MAX_STEPS as GEOMETRY_MAX_STEPS,
   CHI2_MAP_MIN_STEPS as GEOMETRY_MIN_STEPS,
@@ -33,6 +35,16 @@ export const chi2MapRequestSchema = z.strictObject({
     .optional(),
 });
 export type Chi2MapRequestPayload = z.infer<typeof chi2MapRequestSchema>;
+
+/** Checks a request body; every problem names its path, an unknown key by its own name. */
+export function validateChi2MapRequest(
+  json: unknown,
+): { ok: true; request: Chi2MapRequestPayload } | { ok: false; problems: Problem[] } {
+  const parsed = chi2MapRequestSchema.safeParse(json, { error: plainErrorMap });
+  return parsed.success
+    ? { ok: true, request: parsed.data }
+    : { ok: false, problems: problemsFromIssues(parsed.error.issues) };
+}
 
 const unit = z.enum(['km', 'deg', 's', '']);
 

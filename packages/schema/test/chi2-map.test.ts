@@ -5,26 +5,25 @@ import type { Chi2Map } from '@limbus/geometry';
 
 import {
   chi2BandOf,
-  chi2MapRequestSchema,
   chi2MapResultSchema,
   parseChi2MapResult,
+  validateChi2MapRequest,
 } from '../src/chi2-map.js';
-import { plainErrorMap, problemsFromIssues } from '../src/problems.js';
 
 const problems = (json: unknown) => {
-  const parsed = chi2MapRequestSchema.safeParse(json, { error: plainErrorMap });
-  return parsed.success ? [] : problemsFromIssues(parsed.error.issues);
+  const result = validateChi2MapRequest(json);
+  return result.ok ? [] : result.problems;
 };
 
-describe('chi2MapRequestSchema', () => {
-  it('chi2MapRequestSchema takes two parameters, optional ranges and steps', () => {
+describe('validateChi2MapRequest()', () => {
+  it('validateChi2MapRequest() takes two parameters, optional ranges and steps', () => {
     expect(
       problems({ x: 'centerFKm', y: 'ring R1 radiusKm', ranges: { x: { from: -3, to: 4 } }, steps: 31 }),
     ).toEqual([]);
     expect(problems({ x: 'centerFKm', y: 'centerGKm' })).toEqual([]);
   });
 
-  it('chi2MapRequestSchema refuses, by path, an empty name, a reversed range, fractional steps and unknown keys', () => {
+  it('validateChi2MapRequest() refuses, by path, an empty name, a reversed range, fractional steps and unknown keys', () => {
     expect(
       problems({ x: '', y: 'centerGKm', ranges: { y: { from: 5, to: 1 } }, steps: 7.5, colour: 'red' }).map(
         (p) => p.path,

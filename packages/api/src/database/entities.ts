@@ -2,6 +2,7 @@ import { PasswordResetToken } from '../auth/entities/password-reset-token.entity
 import { RefreshToken } from '../auth/entities/refresh-token.entity';
 import { AuditEntry } from '../audit/entities/audit-entry.entity';
 import { Body } from '../bodies/entities/body.entity';
+import { Chi2MapRun } from '../chi2-maps/entities/chi2-map-run.entity';
 import { Chord } from '../chords/entities/chord.entity';
 import { DynamicsContext } from '../dynamics/entities/dynamics-context.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
@@ -42,4 +43,5 @@ export const ENTITIES = [
   AuditEntry,
   LightCurveTiming,
   DynamicsContext,
+  Chi2MapRun,
 ];

@@ -184,7 +184,7 @@ export function neutraliseCell(cell: string): string {
 }
 
 /** RFC 4180 quoting: cells with a comma, quote or line break go in double quotes, quotes doubled. */
-function csvCell(cell: string): string {
+export function csvCell(cell: string): string {
   const safe = neutraliseCell(printableText(cell));
   return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
