@@ -37,6 +37,31 @@ describe('GET /api/me and PUT /api/me/notices', () => {
     });
   });
 
+  it('GET /api/me lists several teams by name with the roles of each, and none for a user in no team', async () => {
+    const suffix = Date.now().toString(36);
+    const later = await t.createTeam(`Zenith Occultation Circle ${suffix}`);
+    const earlier = await t.createTeam(`Aphelion Timing Club ${suffix}`);
+    const member = await t.createUser({
+      teams: [
+        { team: later, roles: ['observer'] },
+        { team: earlier, roles: ['coordinator'] },
+      ],
+    });
+    const token = await t.signIn(member.email, member.password);
+    const response = await t.get('/api/me').set('Authorization', `Bearer ${token}`).expect(200);
+    expect((response.body as { teams: unknown[] }).teams).toEqual([
+      { id: earlier.id, name: earlier.name, roles: ['coordinator'] },
+      { id: later.id, name: later.name, roles: ['observer'] },
+    ]);
+
+    const loner = await t.createUser();
+    const alone = await t
+      .get('/api/me')
+      .set('Authorization', `Bearer ${await t.signIn(loner.email, loner.password)}`)
+      .expect(200);
+    expect(alone.body).toMatchObject({ id: loner.user.id, teams: [], noticeOptOuts: [] });
+  });
+
   it('PUT /api/me/notices stores the opt-outs, sorted and without repeats, and answers the me view', async () => {
     const { user, email, password } = await t.createUser();
     const token = await t.signIn(email, password);

@@ -1,4 +1,5 @@
 import { EntityRepository } from '@mikro-orm/mariadb';
+import { jsonColumn } from '../database/json-column';
 import type { Membership } from './entities/membership.entity';
 import type { TeamRole } from './roles';
 
@@ -16,6 +17,6 @@ export class MembershipRepository extends EntityRepository<Membership> {
         [teamId, userId],
       );
     if (!row) return null;
-    return typeof row.roles === 'string' ? (JSON.parse(row.roles) as TeamRole[]) : row.roles;
+    return jsonColumn<TeamRole[]>(row.roles);
   }
 }

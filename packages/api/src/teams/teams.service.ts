@@ -2,6 +2,7 @@ import { EntityManager, LockMode } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { MemberView, MeView, NoticeKind } from '@limbus/schema';
 import { AuditService } from '../audit/audit.service';
+import { jsonColumn } from '../database/json-column';
 import { ConflictError, NotFoundError } from '../common/domain-errors';
 import { Station } from '../stations/entities/station.entity';
 import { User } from '../users/entities/user.entity';
@@ -13,6 +14,18 @@ import { TeamRepository } from './team.repository';
 import { UserRepository } from '../users/user.repository';
 
 export type { MemberView, MeView };
+
+/** One row of the /api/me query: the user's columns, repeated once per membership (nulls without). */
+interface MeRow {
+  id: string;
+  email: string;
+  name: string;
+  is_admin: number | boolean;
+  notice_opt_outs: string | NoticeKind[];
+  team_id: string | null;
+  team_name: string | null;
+  roles: string | TeamRole[] | null;
+}
 
 export interface TeamSummary {
   id: string;
@@ -40,17 +53,34 @@ export class TeamsService {
     private readonly audit: AuditService,
   ) {}
 
-  /** GET /api/me, also returned with every new access token so the client needs no second call. */
+  /**
+   * GET /api/me, also returned with every new access token so the client needs no second call. The
+   * client reads it on every page, so it is one query and builds no entity: as two ORM finds (user,
+   * then memberships with their teams) it cost most of the route's time (docs/performance.md, "API").
+   */
   async me(userId: string): Promise<MeView> {
-    const user = await this.users.findOne({ id: userId });
+    const rows = await this.em
+      .getConnection()
+      .execute<MeRow[]>(
+        'select u.`id`, u.`email`, u.`name`, u.`is_admin`, u.`notice_opt_outs`, t.`id` as `team_id`, ' +
+          't.`name` as `team_name`, m.`roles` from `users` u ' +
+          'left join `memberships` m on m.`user_id` = u.`id` left join `teams` t on t.`id` = m.`team_id` ' +
+          'where u.`id` = ? order by t.`name` asc',
+        [userId],
+      );
+    const [user] = rows;
     if (!user) throw new NotFoundError();
     return {
       id: user.id,
       email: user.email,
       name: user.name,
-      isAdmin: user.isAdmin,
-      teams: await this.teamsOf(user.id),
-      noticeOptOuts: user.noticeOptOuts,
+      isAdmin: Boolean(user.is_admin),
+      teams: rows.flatMap((r) =>
+        r.team_id === null || r.team_name === null || r.roles === null
+          ? []
+          : [{ id: r.team_id, name: r.team_name, roles: jsonColumn<TeamRole[]>(r.roles) }],
+      ),
+      noticeOptOuts: jsonColumn<NoticeKind[]>(user.notice_opt_outs),
     };
   }
 
