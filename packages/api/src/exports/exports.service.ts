@@ -13,6 +13,7 @@ import { type FigureQuery, TABLE_TYPES, type TableQuery } from './export-query';
 import { renderFitFigureSvg } from './figure-svg';
 import { type Provenance, provenanceOf } from './provenance';
 import { renderPdf, renderPng } from './raster';
+import { samplerRows } from './sampler-rows';
 import { parameterRows, tableCsv, tableJson, tableTex } from './table';
 
 export interface ExportFile {
@@ -78,7 +79,7 @@ export class ExportsService {
 
   async table(fitId: string, query: TableQuery): Promise<ExportFile> {
     const { event, solution, provenance, dynamics } = await this.solved(fitId);
-    const rows = [...parameterRows(solution, event.fit), ...dynamicsRows(dynamics)];
+    const rows = [...parameterRows(solution, event.fit), ...samplerRows(solution), ...dynamicsRows(dynamics)];
     const text =
       query.format === 'csv'
         ? tableCsv(rows, provenance)
