@@ -172,4 +172,42 @@ describe('dynamics context routes', () => {
     expect(Math.abs(ring.inSynchronous - 2030 / view.result.synchronousKm)).toBeLessThan(1e-12);
     expect(ring.uncertainty.inBodyRadii).toBeGreaterThan(0);
   });
+
+  it('PUT /api/events/:eventId/dynamics keeps named p:q resonances and sets each ring against its nearest ones', async () => {
+    // Oru at 14 500 km: its 6:1 resonance lies at 14 500 × 6^(−2/3) = 4391.37 km (a = a_sat (q/p)^(2/3),
+    // Kepler's third law; Murray & Dermott, Solar System Dynamics, 1999, §8.4, from memory). A ring put
+    // 20 km outside it, with 8 km 1-sigma against the resonance's 50 × 6^(−2/3) = 15.14 km.
+    const sixToOneKm = 14_500 * Math.cbrt(1 / 36);
+    const document = {
+      ...CONTEXT,
+      rings: [{ ring: 'R1', radiusKm: sixToOneKm + 20, radiusKmSigma: 8 }],
+      resonances: [{ p: 11, q: 2 }],
+    };
+    const view = (await put('modeller', document).expect(200)).body as DynamicsView;
+    expect(view.input).toMatchObject({ resonances: [{ p: 11, q: 2 }] });
+    expect(view.result.meanMotion.find((m) => m.p === 11 && m.q === 2)).toMatchObject({
+      satellite: 'Oru',
+      named: true,
+    });
+    const nearest = view.result.ringResonances[0]?.nearest[0];
+    expect(nearest).toMatchObject({ kind: 'mean-motion', satellite: 'Oru', p: 6, q: 1 });
+    expect(Math.abs((nearest?.radiusKm ?? 0) - 4391.37)).toBeLessThan(0.01);
+    expect(Math.abs((nearest?.distanceKm ?? 0) - 20)).toBeLessThan(1e-9);
+    expect(Math.abs((nearest?.distanceKmSigma ?? 0) - Math.hypot(8, 50 * Math.cbrt(1 / 36)))).toBeLessThan(
+      1e-9,
+    );
+    // The fitted ring (2030 ± 12 km) is set against the same resonances with its own 1-sigma.
+    const fitted = view.ringFits[0]?.nearestResonances ?? [];
+    const validation = validateContextInput(document);
+    if (!validation.ok) throw new Error('the context does not validate');
+    const direct = computeDynamicsContext({
+      ...validation.input,
+      rings: [{ ring: 'R1', radiusKm: 2030, radiusKmSigma: 12 }],
+    });
+    expect(fitted).toEqual(direct.ringResonances[0]?.nearest);
+    const refused = await put('modeller', { ...document, resonances: [{ p: 4, q: 2 }] }).expect(400);
+    expect((refused.body as { issues: Array<{ path: string; message: string }> }).issues).toEqual([
+      { path: 'resonances[0]', message: 'write 4:2 in lowest terms, 2:1' },
+    ]);
+  });
 });

@@ -1,6 +1,11 @@
 // Step in the data flow: stored context input (+ the latest solved ring fit) -> geometry
 // computeDynamicsContext -> the limbus-context/1 document and each fitted ring radius set against it.
-import { computeDynamicsContext, type ContextResult, type RingSolution } from '@limbus/geometry';
+import {
+  computeDynamicsContext,
+  type ContextResult,
+  type ResonanceNearRing,
+  type RingSolution,
+} from '@limbus/geometry';
 import { contextSources, type ContextInputFile, validateContextInput } from '@limbus/schema';
 
 export const CONTEXT_OUTPUT_FORMAT = 'limbus-context/1';
@@ -8,7 +13,8 @@ export const CONTEXT_OUTPUT_FORMAT = 'limbus-context/1';
 /** The same assumptions `limbus context` prints (tools/cli/src/commands/context.ts). */
 export const CONTEXT_NOTES = [
   'Roche limits use the bulk density of a sphere of radiusKm and the classical coefficients 2.44 (fluid) and 2^(1/3) ≈ 1.26 (rigid).',
-  'Resonance and synchronous radii are Keplerian (point-mass body, no J2).',
+  "Resonance and synchronous radii are Keplerian (point-mass body, no J2); a body's J2 moves real resonances outward by up to about a per cent.",
+  "Each ring's nearest resonances include the k:1 and 1:k ones up to 8 and every p:q named in the input; a ring within a few sigma of one is near it, not shown to be in it.",
   'The Hill radius takes a circular orbit at the present heliocentric distance.',
   '1-sigma by first-order propagation of the inputs taken as independent.',
 ];
@@ -29,6 +35,8 @@ export interface RingFitAgainstContext {
   inRocheRigid: number;
   inSynchronous: number;
   uncertainty: { inBodyRadii: number; inRocheFluid: number; inRocheRigid: number; inSynchronous: number };
+  /** The fitted radius's nearest resonances, its 1-sigma and the context's carried into the distances. */
+  nearestResonances: ResonanceNearRing[];
 }
 
 export function contextOutput(file: ContextInputFile): ContextOutput {
@@ -81,6 +89,7 @@ export function ringFitsAgainst(
         inRocheRigid: sigma?.inRocheRigid ?? 0,
         inSynchronous: sigma?.inSynchronous ?? 0,
       },
+      nearestResonances: result.ringResonances[i]?.nearest ?? [],
     };
   });
 }

@@ -15,6 +15,22 @@ const RING: RingFitAgainstContext = {
   inRocheRigid: 2.33,
   inSynchronous: 0.97,
   uncertainty: { inBodyRadii: 0.066, inRocheFluid: 0.052, inRocheRigid: 0.1, inSynchronous: 0.012 },
+  nearestResonances: [],
+};
+
+// An invented resonance 12 km inside the ring: 2010 − 1998 km, σ √(8² + 5²) = 9.43 km.
+const NEAR = {
+  kind: 'mean-motion' as const,
+  satellite: 'Oru',
+  p: 6,
+  q: 1,
+  radiusKm: 1998,
+  radiusKmSigma: 5,
+  distanceKm: 12,
+  distanceKmSigma: Math.hypot(8, 5),
+  distanceInRingSigma: 12 / 8,
+  distanceInResonanceSigma: 12 / 5,
+  distanceInSigma: 12 / Math.hypot(8, 5),
 };
 
 describe('dynamicsRows', () => {
@@ -59,5 +75,29 @@ describe('dynamicsCaption', () => {
     expect(dynamicsCaption([{ ...RING, inRocheFluid: 0.95, inRocheRigid: 0.5 }])).toMatch(
       /0\.950 ± 0\.052 of the fluid Roche limit \(inside\) and 0\.50 ± 0\.10 of the rigid one \(inside\)/,
     );
+  });
+});
+
+describe('the nearest resonance in the exports', () => {
+  it('dynamicsRows() and dynamicsCaption() add the nearest resonance with its distance and both 1-sigma', () => {
+    const ring = { ...RING, nearestResonances: [NEAR, { ...NEAR, p: 7, distanceKm: -40 }] };
+    const rows = dynamicsRows([ring]);
+    expect(rows).toHaveLength(5);
+    expect(rows[4]).toEqual({
+      group: 'ring R1 context',
+      parameter: 'distanceKm to 6:1 with Oru',
+      value: 12,
+      sigma: Math.hypot(8, 5),
+      unit: 'km',
+      status: 'derived',
+    });
+    expect(dynamicsCaption([ring])).toMatch(
+      /Its nearest resonance is the 6:1 with Oru at 1998\.0 ± 5\.0 km, 12\.0 ± 9\.4 km outside it \(1\.3σ\)\.$/,
+    );
+    expect(
+      dynamicsCaption([
+        { ...RING, nearestResonances: [{ ...NEAR, kind: 'spin-orbit', satellite: null, p: 1, q: 3 }] },
+      ]),
+    ).toMatch(/the 1:3 spin–orbit at/);
   });
 });

@@ -13,7 +13,8 @@ export const CONTEXT_OUTPUT_FORMAT = 'limbus-context/1';
 
 const NOTES = [
   'Roche limits use the bulk density of a sphere of radiusKm and the classical coefficients 2.44 (fluid) and 2^(1/3) ≈ 1.26 (rigid).',
-  'Resonance and synchronous radii are Keplerian (point-mass body, no J2).',
+  "Resonance and synchronous radii are Keplerian (point-mass body, no J2); a body's J2 moves real resonances outward by up to about a per cent.",
+  "Each ring's nearest resonances include the k:1 and 1:k ones up to 8 and every p:q named in the input; a ring within a few sigma of one is near it, not shown to be in it.",
   'The Hill radius takes a circular orbit at the present heliocentric distance.',
   '1-sigma by first-order propagation of the inputs taken as independent.',
 ];
