@@ -23,6 +23,8 @@ const figures = {
       order: z.number(),
       side: z.enum(['inner', 'outer']),
       radiusKm: z.number(),
+      /** Listed because the input named it; absent from answers made before named resonances. */
+      named: z.boolean().default(false),
     }),
   ),
   ringRadii: z.array(
@@ -37,9 +39,38 @@ const figures = {
   ),
 };
 
+/**
+ * A resonance near a ring (geometry's ResonanceNearRing): distanceKm = ring radius − resonance radius, with
+ * its 1-sigma from both, and that distance in units of each 1-sigma (null where one is 0).
+ */
+export const resonanceNearRingSchema = z.object({
+  kind: z.enum(['mean-motion', 'spin-orbit']),
+  satellite: z.string().nullable(),
+  p: z.number(),
+  q: z.number(),
+  radiusKm: z.number(),
+  radiusKmSigma: z.number(),
+  distanceKm: z.number(),
+  distanceKmSigma: z.number(),
+  distanceInRingSigma: z.number().nullable(),
+  distanceInResonanceSigma: z.number().nullable(),
+  distanceInSigma: z.number().nullable(),
+});
+export type ResonanceNearRing = z.infer<typeof resonanceNearRingSchema>;
+
 export const contextResultSchema = z.object({
   format: z.literal('limbus-context/1'),
   ...figures,
+  ringResonances: z
+    .array(
+      z.object({
+        ring: z.string(),
+        radiusKm: z.number(),
+        radiusKmSigma: z.number(),
+        nearest: z.array(resonanceNearRingSchema),
+      }),
+    )
+    .default([]),
   massFrom: z.enum(['massKg', 'densityKgM3', 'satellite']),
   propagation: z.literal('first-order'),
   sources: z.record(z.string(), z.string()),
@@ -66,6 +97,7 @@ export const ringFitSchema = z.object({
     inRocheRigid: z.number(),
     inSynchronous: z.number(),
   }),
+  nearestResonances: z.array(resonanceNearRingSchema).default([]),
 });
 export type RingFit = z.infer<typeof ringFitSchema>;
 

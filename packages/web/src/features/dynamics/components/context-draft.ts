@@ -23,8 +23,27 @@ export interface ContextDraft {
   satellites: SatelliteDraft[];
   /** Rings come from the file as stored; the fitted rings are added by the server. */
   rings: ContextInputFile['rings'];
+  /** Mean-motion resonances named besides the default ones, as typed: "6:1, 11:2". */
+  resonances: string;
   /** Resonance settings the form does not show, kept so that saving does not drop them. */
   kept: Pick<ContextInputFile, 'spinOrbitK' | 'resonanceMaxOrder' | 'resonanceMaxInteger'>;
+}
+
+/** "6:1, 11:2" from [{ p: 6, q: 1 }, { p: 11, q: 2 }]. */
+export function resonancesText(resonances: ContextInputFile['resonances']): string {
+  return (resonances ?? []).map((r) => `${r.p}:${r.q}`).join(', ');
+}
+
+/** The named resonances typed as "p:q" separated by commas or spaces; null when one is not p:q. */
+export function parseResonances(text: string): Array<{ p: number; q: number }> | null {
+  const parts = text.split(/[\s,;]+/).filter((t) => t !== '');
+  const out: Array<{ p: number; q: number }> = [];
+  for (const part of parts) {
+    const m = /^(\d+):(\d+)$/.exec(part);
+    if (!m) return null;
+    out.push({ p: Number(m[1]), q: Number(m[2]) });
+  }
+  return out;
 }
 
 export const MEASURED = [
@@ -80,6 +99,7 @@ export function draftOf(input: ContextInputFile | null): ContextDraft {
       periodDaysSource: s.periodDaysSource ?? '',
     })),
     rings: input?.rings ?? [],
+    resonances: resonancesText(input?.resonances),
     kept: {
       ...(input?.spinOrbitK === undefined ? {} : { spinOrbitK: input.spinOrbitK }),
       ...(input?.resonanceMaxOrder === undefined ? {} : { resonanceMaxOrder: input.resonanceMaxOrder }),
@@ -147,6 +167,9 @@ export function fileOf(draft: ContextDraft): DraftResult {
     }
     return out;
   });
+  const resonances = parseResonances(draft.resonances);
+  if (resonances === null)
+    errors.resonances = 'resonances: write each as p:q with whole numbers, e.g. 6:1, 11:2';
   if (Object.keys(errors).length > 0) return { ok: false, errors };
   const file = {
     format: 'limbus-context-input/1',
@@ -155,6 +178,7 @@ export function fileOf(draft: ContextDraft): DraftResult {
     ...measured('heliocentricDistanceAu', 'heliocentricDistanceAu', true),
     satellites,
     rings: draft.rings,
+    ...(resonances !== null && resonances.length > 0 ? { resonances } : {}),
     ...draft.kept,
   };
   // Shape checked field by field above; the server validates the whole file again with its schema.

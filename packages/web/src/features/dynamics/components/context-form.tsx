@@ -97,6 +97,7 @@ export function ContextForm({ bodyId, input }: { bodyId: string; input: ContextI
       !MEASURED.some((m) => path.startsWith(m.path)) &&
       !Object.values(MASS_FIELDS).some((m) => path.startsWith(m.path)) &&
       !path.startsWith('satellites[') &&
+      !path.startsWith('resonances') &&
       path !== 'body.massFromSatellite',
   );
 
@@ -189,6 +190,21 @@ export function ContextForm({ bodyId, input }: { bodyId: string; input: ContextI
           Add satellite
         </Button>
       </div>
+      <Field
+        label="Resonances to list besides k:1 and the first and second order (p:q, n_ring : n_satellite)"
+        hint="Comma-separated, e.g. 6:1, 11:2; each is listed for every satellite."
+        validationMessage={
+          Object.entries(errors)
+            .filter(([path]) => path.startsWith('resonances'))
+            .map(([, message]) => message)
+            .join(' ') || undefined
+        }
+      >
+        <Input
+          value={draft.resonances}
+          onChange={(_, d) => setDraft((x) => ({ ...x, resonances: d.value }))}
+        />
+      </Field>
       {unplaced.map(([path, message]) => (
         <FormError key={path} title="The physical parameters were refused" message={message} />
       ))}

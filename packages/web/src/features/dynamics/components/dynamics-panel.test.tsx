@@ -1,4 +1,4 @@
-import { screen } from '@testing-library/react';
+import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { DynamicsPanel, EventDynamicsPanel } from './dynamics-panel';
@@ -63,6 +63,42 @@ describe('DynamicsPanel', () => {
         semiMajorAxisKmSigma: 50,
         periodDaysSource: 'invented discovery paper',
       },
+    ]);
+  });
+
+  it('DynamicsPanel shows each fitted ring’s nearest resonances with the distance ± 1σ and in each σ', async () => {
+    stubFetch(() => jsonResponse(200, TEST_VIEW));
+    renderWithProviders(<DynamicsPanel bodyId="b1" canEdit={false} />);
+    const table = await screen.findByRole('table', { name: 'Nearest resonances of each ring' });
+    const row = within(table).getByRole('row', { name: /1:2 spin–orbit/ });
+    expect(row).toHaveTextContent('Invented occultation, night one');
+    expect(row).toHaveTextContent('R1 (fit): 2030 ± 40');
+    expect(row).toHaveTextContent('2222 ± 88');
+    // formatValueSigma rounds the 1σ to two digits and the value to the same place.
+    expect(row).toHaveTextContent('-192 ± 97');
+    expect(row).toHaveTextContent('-4.8σ');
+    expect(row).toHaveTextContent('-2.2σ');
+    expect(row).toHaveTextContent('-2.0σ');
+    expect(screen.getByText(/near it, not shown to be in it/)).toBeInTheDocument();
+  });
+
+  it('DynamicsPanel form sends the named resonances as p:q pairs and names a malformed one before sending', async () => {
+    const calls = stubFetch(() => jsonResponse(200, TEST_VIEW));
+    const user = userEvent.setup();
+    renderWithProviders(<DynamicsPanel bodyId="b1" canEdit />);
+    const field = await screen.findByRole('textbox', { name: /^Resonances to list/ });
+    await user.type(field, '6-1');
+    await user.click(screen.getByRole('button', { name: 'Save physical parameters' }));
+    expect(await screen.findByText(/resonances: write each as p:q/)).toBeInTheDocument();
+    expect(calls.filter((c) => c.method === 'PUT')).toHaveLength(0);
+    await user.clear(field);
+    await user.type(field, '6:1, 11:2');
+    await user.click(screen.getByRole('button', { name: 'Save physical parameters' }));
+    await screen.findByRole('status');
+    const sent = calls.find((c) => c.method === 'PUT')?.body as { resonances: unknown };
+    expect(sent.resonances).toEqual([
+      { p: 6, q: 1 },
+      { p: 11, q: 2 },
     ]);
   });
 

@@ -17,6 +17,7 @@ import { useBodyDynamics } from '../api/get-body-dynamics';
 import { useEventDynamics } from '../api/get-event-dynamics';
 import { ContextForm } from './context-form';
 import { DynamicsStrip } from './dynamics-strip';
+import { NearestResonances } from './nearest-resonances';
 import { Loading, RequestFailed } from '@/components/request-state';
 import { ScrollArea } from '@/components/scroll-area';
 
@@ -68,6 +69,20 @@ function DynamicsResult({ view, showEvent }: { view: DynamicsView; showEvent: bo
           </Table>
         </ScrollArea>
       )}
+      <NearestResonances
+        showEvent={showEvent}
+        rings={[
+          ...view.result.ringResonances.map((r) => ({ key: `context-${r.ring}`, event: null, ...r })),
+          ...view.ringFits.map((r) => ({
+            key: `${r.fitId}-${r.ring}`,
+            event: r.eventTitle,
+            ring: `${r.ring} (fit)`,
+            radiusKm: r.radiusKm,
+            radiusKmSigma: r.radiusKmSigma,
+            nearest: r.nearestResonances,
+          })),
+        ]}
+      />
       <Body1 as="p">
         Hill radius {km(view.result.hillKm, view.result.uncertainty.hillKm)} km (off the strip).{' '}
         {view.result.notes.join(' ')}

@@ -1,4 +1,4 @@
-import type { ContextResult, DynamicsView, RingFit } from '../api/dynamics-schema';
+import type { ContextResult, DynamicsView, ResonanceNearRing, RingFit } from '../api/dynamics-schema';
 
 // An invented body: radius 560 km, density 1700 kg/m³, particles 900 kg/m³, one satellite "Oru".
 // Hand-made figures for drawing only (the API end-to-end test checks the computation itself): Roche
@@ -17,16 +17,34 @@ const figures = {
     { k: 3, radiusKm: 2912.2 },
   ],
   meanMotion: [
-    { satellite: 'Oru', p: 3, q: 1, order: 2, side: 'inner' as const, radiusKm: 6970.9 },
-    { satellite: 'Oru', p: 2, q: 1, order: 1, side: 'inner' as const, radiusKm: 9134.2 },
+    { satellite: 'Oru', p: 3, q: 1, order: 2, side: 'inner' as const, radiusKm: 6970.9, named: false },
+    { satellite: 'Oru', p: 2, q: 1, order: 1, side: 'inner' as const, radiusKm: 9134.2, named: false },
   ],
   ringRadii: [],
+};
+
+// The fitted ring 2030 ± 40 km against the 1:2 spin–orbit radius 2222.4 ± 88 km of the figures above:
+// 2030 − 2222.4 = −192.4 km, 1σ √(40² + 88²) = 96.7 km, i.e. −4.81, −2.19 and −1.99 of the ring's, the
+// resonance's and the combined 1σ.
+export const TEST_NEAREST: ResonanceNearRing = {
+  kind: 'spin-orbit',
+  satellite: null,
+  p: 1,
+  q: 2,
+  radiusKm: 2222.4,
+  radiusKmSigma: 88,
+  distanceKm: -192.4,
+  distanceKmSigma: 96.7,
+  distanceInRingSigma: -4.81,
+  distanceInResonanceSigma: -2.19,
+  distanceInSigma: -1.99,
 };
 
 export const TEST_CONTEXT: ContextResult = {
   format: 'limbus-context/1',
   ...figures,
   massFrom: 'densityKgM3',
+  ringResonances: [],
   propagation: 'first-order',
   sources: { 'body.densityKgM3': 'invented' },
   notes: ['1-sigma by first-order propagation of the inputs taken as independent.'],
@@ -43,8 +61,8 @@ export const TEST_CONTEXT: ContextResult = {
       { k: 3, radiusKm: 116 },
     ],
     meanMotion: [
-      { satellite: 'Oru', p: 3, q: 1, order: 2, side: 'inner' as const, radiusKm: 24 },
-      { satellite: 'Oru', p: 2, q: 1, order: 1, side: 'inner' as const, radiusKm: 31 },
+      { satellite: 'Oru', p: 3, q: 1, order: 2, side: 'inner' as const, radiusKm: 24, named: false },
+      { satellite: 'Oru', p: 2, q: 1, order: 1, side: 'inner' as const, radiusKm: 31, named: false },
     ],
   },
 };
@@ -61,6 +79,7 @@ export const TEST_RING_FIT: RingFit = {
   inRocheRigid: 2.327,
   inSynchronous: 1.45,
   uncertainty: { inBodyRadii: 0.1, inRocheFluid: 0.05, inRocheRigid: 0.1, inSynchronous: 0.06 },
+  nearestResonances: [TEST_NEAREST],
 };
 
 export const TEST_VIEW: DynamicsView = {
