@@ -58,6 +58,18 @@ export interface NegativeChordInput {
 export type ChordInput = PositiveChordInput | NegativeChordInput;
 
 /**
+ * The first time a chord states: a positive chord's disappearance, or its reappearance when it gives only
+ * that edge; a negative chord's start. ISO 8601 UTC, as the event file gives it.
+ */
+export function chordFirstTimeUtc(chord: ChordInput): string {
+  if (chord.type === 'negative') return chord.start;
+  const edge = chord.disappearance ?? chord.reappearance;
+  if (edge === undefined)
+    throw new GeometryInputError('chords', 'a positive chord needs a disappearance, a reappearance or both');
+  return edge.time;
+}
+
+/**
  * A dip's apparent opacity measured on its light curve (the fraction of the star's light it removed) with
  * its 1-sigma; `lowerLimit` when the dip was not resolved or was opaque, so that the value only bounds the
  * opacity from below (docs/method.md, "Ring dips").
