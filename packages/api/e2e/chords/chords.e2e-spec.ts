@@ -151,4 +151,108 @@ describe('chord routes and the chord CSV import', () => {
     const list = await t.get(`/api/events/${eventId}/chords`).set(w.auth('observer')).expect(200);
     expect(list.body).toHaveLength(await count());
   });
+
+  describe('single-edge positive chords', () => {
+    const lateStart = (station: string) => ({
+      station,
+      type: 'positive',
+      reappearance: { time: '2028-03-14T02:14:20.000Z', sigmaSeconds: 0.05 },
+    });
+
+    it('POST /api/events/:eventId/chords stores a positive chord with one edge and refuses one with none at chords[i]', async () => {
+      const created = await t
+        .post(`/api/events/${eventId}/chords`)
+        .set(w.auth('modeller'))
+        .send(lateStart(stationA))
+        .expect(201);
+      const body = created.body as { id: string; disappearance: unknown; reappearance: unknown };
+      expect(body.disappearance).toBeNull();
+      expect(body.reappearance).toEqual({ time: '2028-03-14T02:14:20.000Z', sigmaSeconds: 0.05 });
+      const stored = await t.orm.em.fork().findOneOrFail(Chord, { id: body.id });
+      expect(stored.disappearance).toBeNull();
+      // The event file the fits read gives the chord without the edge it lacks.
+      const exported = await t.get(`/api/events/${eventId}/export`).set(w.auth('modeller')).expect(200);
+      const file = JSON.parse(exported.text) as { chords: Array<Record<string, unknown>> };
+      const last = file.chords[file.chords.length - 1];
+      expect(last).toEqual({ ...lateStart(stationA), timeOffsetSeconds: 0 });
+      const before = await count();
+      const none = await t
+        .post(`/api/events/${eventId}/chords`)
+        .set(w.auth('modeller'))
+        .send({ station: stationA, type: 'positive' })
+        .expect(400);
+      expect((none.body as { issues: unknown }).issues).toEqual([
+        {
+          path: `chords[${before}]`,
+          message: 'a positive chord needs a disappearance, a reappearance or both',
+        },
+      ]);
+      expect(await count()).toBe(before);
+    });
+
+    it('PATCH /api/chords/:chordId drops an edge given as null, and refuses to drop the last one at chords[i]', async () => {
+      const created = await t
+        .post(`/api/events/${eventId}/chords`)
+        .set(w.auth('modeller'))
+        .send({
+          ...lateStart(stationB),
+          disappearance: { time: '2028-03-14T02:14:01.000Z', sigmaSeconds: 0.05 },
+        })
+        .expect(201);
+      const id = (created.body as { id: string }).id;
+      const list = await t.get(`/api/events/${eventId}/chords`).set(w.auth('modeller')).expect(200);
+      const index = (list.body as Array<{ id: string }>).findIndex((c) => c.id === id);
+      const dropped = await patch(t, `/api/chords/${id}`)
+        .set(w.auth('modeller'))
+        .send({ disappearance: null })
+        .expect(200);
+      expect((dropped.body as { disappearance: unknown }).disappearance).toBeNull();
+      expect((await t.orm.em.fork().findOneOrFail(Chord, { id })).disappearance).toBeNull();
+      const none = await patch(t, `/api/chords/${id}`)
+        .set(w.auth('modeller'))
+        .send({ reappearance: null })
+        .expect(400);
+      expect((none.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path)).toEqual([
+        `chords[${index}]`,
+      ]);
+      expect((await t.orm.em.fork().findOneOrFail(Chord, { id })).reappearance).not.toBeNull();
+    });
+
+    it('POST /api/events/:eventId/chords/import reads a single-edge row and names the row of an edgeless one', async () => {
+      const before = await count();
+      const bad = await sendCsv([HEADER, `${stationA},positive,,,,,,,`].join('\n')).expect(400);
+      expect((bad.body as { issues: Array<{ path: string }> }).issues.map((i) => i.path)).toEqual(['row 2']);
+      const good = await sendCsv(
+        [HEADER, `${stationA},positive,2028-03-14T02:14:01.500Z,0.06,,,,,`].join('\n'),
+      ).expect(201);
+      const stored = await t.orm.em
+        .fork()
+        .findOneOrFail(Chord, { id: (good.body as { ids: string[] }).ids[0] ?? '' });
+      expect(stored.disappearance).toEqual({ time: '2028-03-14T02:14:01.500Z', sigmaSeconds: 0.06 });
+      expect(stored.reappearance).toBeNull();
+      expect(await count()).toBe(before + 1);
+    });
+
+    it('POST /api/events/import refuses a positive chord with neither edge at chords[i]', async () => {
+      const file = exampleEvent() as { chords: Array<Record<string, unknown>> };
+      const index = file.chords.findIndex((c) => c.type === 'positive');
+      const { disappearance: _d, reappearance: _r, ...edgeless } = file.chords[index] ?? {};
+      file.chords[index] = edgeless;
+      const response = await t
+        .post('/api/events/import')
+        .set(w.auth('coordinator'))
+        .field('teamId', w.team.id)
+        .attach('file', Buffer.from(JSON.stringify(file)), {
+          filename: 'event.json',
+          contentType: 'application/json',
+        })
+        .expect(400);
+      expect((response.body as { issues: unknown }).issues).toEqual([
+        {
+          path: `chords[${index}]`,
+          message: 'a positive chord needs a disappearance, a reappearance or both',
+        },
+      ]);
+    });
+  });
 });

@@ -40,6 +40,39 @@ describe('parseChordCsv()', () => {
     });
   });
 
+  it('parseChordCsv() reads a positive row with one edge and names the row of one with neither', () => {
+    const csv = [
+      header,
+      'north,positive,,,2028-03-14T02:11:20.000Z,0.06,,,',
+      'south,positive,,,,,,,',
+      'north,positive,2028-03-14T02:11:04Z,,,,,,',
+    ].join('\n');
+    const result = parseChordCsv(csv, stations);
+    if (result.ok) throw new Error('expected problems');
+    expect(result.problems.map((p) => `${p.path}: ${p.message}`)).toEqual([
+      'row 3: a positive chord needs a disappearance, a reappearance or both',
+      'row 4, column disappearance_sigma_s: missing; required for this chord type',
+    ]);
+    const one = parseChordCsv(
+      [header, 'north,positive,,,2028-03-14T02:11:20.000Z,0.06,,,'].join('\n'),
+      stations,
+    );
+    expect(one).toEqual({
+      ok: true,
+      rows: [
+        {
+          row: 2,
+          chord: {
+            station: 'north',
+            type: 'positive',
+            reappearance: { time: '2028-03-14T02:11:20.000Z', sigmaSeconds: 0.06 },
+            timeOffsetSeconds: 0,
+          },
+        },
+      ],
+    });
+  });
+
   it('parseChordCsv() accepts columns in any order and a header in any case', () => {
     const csv = 'TYPE,Station,start_utc,end_utc\nnegative,south,2028-03-14T02:10:00Z,2028-03-14T02:13:00Z\n';
     const result = parseChordCsv(csv, stations);

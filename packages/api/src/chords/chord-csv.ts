@@ -97,18 +97,14 @@ export function parseChordCsv(
     if (problems.some((p) => p.row === row)) return;
     const type = cell('type');
     const offset = numberAt('time_offset_s');
-    const mark = (which: 'disappearance' | 'reappearance') => ({
-      time: cell(`${which}_utc`),
-      sigmaSeconds: numberAt(`${which}_sigma_s`),
-    });
+    // A positive chord may give one edge: both cells of the other left empty (a single-edge chord).
+    const mark = (which: 'disappearance' | 'reappearance') =>
+      cell(`${which}_utc`) === '' && cell(`${which}_sigma_s`) === ''
+        ? {}
+        : { [which]: { time: cell(`${which}_utc`), sigmaSeconds: numberAt(`${which}_sigma_s`) } };
     const candidate: Record<string, unknown> =
       type === 'positive'
-        ? {
-            station: cell('station'),
-            type,
-            disappearance: mark('disappearance'),
-            reappearance: mark('reappearance'),
-          }
+        ? { station: cell('station'), type, ...mark('disappearance'), ...mark('reappearance') }
         : { station: cell('station'), type, start: cell('start_utc'), end: cell('end_utc') };
     if (offset !== undefined) candidate.timeOffsetSeconds = offset;
     const result = chordPayloadSchema.safeParse(candidate);

@@ -17,6 +17,22 @@ import { Chord } from './entities/chord.entity';
 
 export class CsvValidationError extends ValidationError {}
 
+/**
+ * The chord payload checked with the event file's chord schema. A refusal of the chord as a whole (a
+ * positive chord with neither edge) names it as the event file would, `chords[i]` with i its index in the
+ * event's list (docs/file-formats.md, "Event file"); other fields keep their own path.
+ */
+function parseChord(body: unknown, index: number): ChordInput {
+  const parsed = chordPayloadSchema.safeParse(body);
+  if (parsed.success) return parsed.data;
+  throw new ValidationError(
+    parsed.error.issues.map((i) => ({
+      path: i.path.length > 0 ? i.path.map(String).join('.') : `chords[${index}]`,
+      message: i.message,
+    })),
+  );
+}
+
 /** The times a chord holds (not its station or clock offset), to tell whether an edit changed them. */
 function timesOf(c: Chord): string {
   const d = c.disappearance;
@@ -47,8 +63,9 @@ export class ChordsService {
     return station;
   }
 
-  async create(user: AuthUser, eventId: string, body: ChordInput): Promise<ChordView> {
+  async create(user: AuthUser, eventId: string, payload: unknown): Promise<ChordView> {
     const event = await this.events.find(eventId);
+    const body = parseChord(payload, await this.em.count(Chord, { event }));
     const station = await this.stationByCode(event, body.station);
     const chord = await this.em.transactional(async (em) => {
       await assertEventRoom(em, eventId, { chords: 1 });
@@ -79,21 +96,27 @@ export class ChordsService {
     return chord;
   }
 
-  /** The body's fields over the stored chord; a change of type starts from the body alone. */
+  /**
+   * The body's fields over the stored chord; a change of type starts from the body alone. An edge given
+   * as null is dropped (a chord that keeps only the other edge becomes a single-edge chord).
+   */
   async update(user: AuthUser, chordId: string, body: Record<string, unknown>): Promise<ChordView> {
     const chord = await this.find(chordId);
     const base = body.type === undefined || body.type === chord.type ? chordInput(chord) : {};
-    const parsed = chordPayloadSchema.safeParse({ ...base, ...body });
-    if (!parsed.success)
-      throw new ValidationError(
-        parsed.error.issues.map((i) => ({
-          path: i.path.map(String).join('.') || '(body)',
-          message: i.message,
-        })),
-      );
-    const station = await this.stationByCode(chord.event, parsed.data.station);
+    const merged: Record<string, unknown> = { ...base, ...body };
+    for (const edge of ['disappearance', 'reappearance']) if (merged[edge] === null) delete merged[edge];
+    const order = await this.em.find(
+      Chord,
+      { event: chord.event },
+      { fields: ['id'], orderBy: { position: 'asc', createdAt: 'asc', id: 'asc' } },
+    );
+    const input = parseChord(
+      merged,
+      order.findIndex((c) => c.id === chord.id),
+    );
+    const station = await this.stationByCode(chord.event, input.station);
     const before = { times: timesOf(chord), source: chord.source };
-    applyChordInput(chord, station, parsed.data);
+    applyChordInput(chord, station, input);
     // Hand-edited times are no longer the report's or the timing's; the chord still stands for its report.
     if (timesOf(chord) !== before.times) {
       chord.source = 'manual';

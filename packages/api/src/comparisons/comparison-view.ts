@@ -1,6 +1,6 @@
 // One row per fit for the comparison table and plots: every limb and ring parameter with its 1-sigma,
 // against the event's date. Chords are left out; the overlay draws ellipses from their parameters.
-import type { EventInput, Solution } from '@limbus/geometry';
+import { chordFirstTimeUtc, type EventInput, type Solution } from '@limbus/geometry';
 import type { ReviewState } from '../fits/entities/fit-run.entity';
 import type { ComparisonSelection } from './comparison-schemas';
 
@@ -63,7 +63,7 @@ export interface ComparisonView {
 
 function earliestTimingUtc(event: EventInput): string | null {
   const times: string[] = [];
-  for (const c of event.chords) times.push(c.type === 'positive' ? c.disappearance.time : c.start);
+  for (const c of event.chords) times.push(chordFirstTimeUtc(c));
   for (const r of event.ringEvents) times.push(r.start.time);
   // ISO 8601 UTC strings with Z sort as text in time order.
   return times.sort()[0] ?? null;

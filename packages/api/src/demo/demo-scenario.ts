@@ -242,8 +242,8 @@ export async function seedDemoScenario(em: EntityManager, teamName: string): Pro
       const missed = NOT_OBSERVED[station.code];
       const report = new Report(event, station, author, chord?.type ?? missed?.result ?? 'clouded_out');
       if (chord?.type === 'positive') {
-        report.disappearance = chord.disappearance;
-        report.reappearance = chord.reappearance;
+        report.disappearance = chord.disappearance ?? null;
+        report.reappearance = chord.reappearance ?? null;
       } else if (chord?.type === 'negative') {
         report.observedFromUtc = chord.start;
         report.observedToUtc = chord.end;

@@ -58,7 +58,7 @@ describe("the demo event's prediction", () => {
         continue;
       }
       expect(predicted.disappearanceUtc).not.toBeNull();
-      const observed = Date.parse(chord.disappearance.time) / 1000;
+      const observed = Date.parse(chord.disappearance?.time ?? '') / 1000;
       const expected = Date.parse(predicted.disappearanceUtc ?? '') / 1000;
       expect(Math.abs(observed - expected)).toBeLessThan(3 * (brief.disappearanceSigmaSeconds ?? 0));
     }

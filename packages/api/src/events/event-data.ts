@@ -1,6 +1,6 @@
 // Two facts derived from an event's data, each in one place: the hash that tells whether a fit was run
 // on the data the event holds now, and the event time a new event starts with.
-import { isoToTtSeconds, ttSecondsToUtcIso, type EventInput } from '@limbus/geometry';
+import { chordFirstTimeUtc, isoToTtSeconds, ttSecondsToUtcIso, type EventInput } from '@limbus/geometry';
 import { sha256Hex } from '../common/tokens';
 
 /** The parts of an event file that a fit's result depends on; the title and the fit options are not. */
@@ -49,9 +49,7 @@ export function defaultEventTimeUtc(file: {
   chords?: EventInput['chords'] | undefined;
 }): string {
   // ISO 8601 UTC texts ending in Z sort in time order.
-  const timings = (file.chords ?? [])
-    .map((c) => (c.type === 'positive' ? c.disappearance.time : c.start))
-    .sort();
+  const timings = (file.chords ?? []).map(chordFirstTimeUtc).sort();
   const earliest = timings[0];
   if (earliest !== undefined) return wholeSecondUtc(earliest);
   const { ephemeris } = file;

@@ -43,8 +43,9 @@ export function applyChordInput(chord: Chord, station: Station, input: ChordInpu
   chord.type = input.type;
   chord.timeOffsetSeconds = input.timeOffsetSeconds;
   if (input.type === 'positive') {
-    chord.disappearance = { ...input.disappearance };
-    chord.reappearance = { ...input.reappearance };
+    // A single-edge chord stores null for the edge it does not give.
+    chord.disappearance = input.disappearance ? { ...input.disappearance } : null;
+    chord.reappearance = input.reappearance ? { ...input.reappearance } : null;
     chord.startUtc = null;
     chord.endUtc = null;
   } else {
@@ -116,12 +117,13 @@ export function stationInput(s: Station): StationInput {
 
 export function chordInput(c: Chord): ChordInput {
   if (c.type === 'positive') {
-    if (!c.disappearance || !c.reappearance) throw new Error(`positive chord ${c.id} lacks its timings`);
+    // Every route writes a positive chord through the event file's chord schema, which needs one edge.
+    if (!c.disappearance && !c.reappearance) throw new Error(`positive chord ${c.id} has neither edge`);
     return {
       station: c.station.code,
       type: 'positive',
-      disappearance: { ...c.disappearance },
-      reappearance: { ...c.reappearance },
+      ...(c.disappearance ? { disappearance: { ...c.disappearance } } : {}),
+      ...(c.reappearance ? { reappearance: { ...c.reappearance } } : {}),
       timeOffsetSeconds: c.timeOffsetSeconds,
     };
   }
@@ -136,7 +138,13 @@ export function chordInput(c: Chord): ChordInput {
 }
 
 export function ringEventInput(r: RingEvent): RingEventInput {
-  return { station: r.station.code, ring: r.ring, start: { ...r.start }, end: { ...r.end } };
+  return {
+    station: r.station.code,
+    ring: r.ring,
+    start: { ...r.start },
+    end: { ...r.end },
+    ...(r.apparentOpacity ? { apparentOpacity: { ...r.apparentOpacity } } : {}),
+  };
 }
 
 /**

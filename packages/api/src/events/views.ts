@@ -1,4 +1,4 @@
-import type { TimedMark } from '@limbus/geometry';
+import type { DipOpacity, TimedMark } from '@limbus/geometry';
 import type { StationStatus } from '@limbus/schema';
 import type { Chord, ChordSource } from '../chords/entities/chord.entity';
 import type { RingEvent } from '../chords/entities/ring-event.entity';
@@ -79,6 +79,8 @@ export interface RingEventView {
   ring: string;
   start: TimedMark;
   end: TimedMark;
+  /** The dip's apparent opacity from its light curve, or null (docs/file-formats.md, "Event file"). */
+  apparentOpacity: DipOpacity | null;
   reportId: string | null;
 }
 
@@ -90,6 +92,7 @@ export function ringEventView(r: RingEvent): RingEventView {
     ring: r.ring,
     start: r.start,
     end: r.end,
+    apparentOpacity: r.apparentOpacity,
     reportId: r.report?.id ?? null,
   };
 }

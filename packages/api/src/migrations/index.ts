@@ -9,6 +9,7 @@ import { Migration20261204000000 } from './Migration20261204000000_planning';
 import { Migration20261204010000 } from './Migration20261204010000_token_families_request_hashes';
 import { Migration20261204020000 } from './Migration20261204020000_one_open_report';
 import { Migration20261204040000 } from './Migration20261204040000_chi2_maps';
+import { Migration20261204050000 } from './Migration20261204050000_ring_event_opacity';
 
 /**
  * Static list so the migrator works under vitest and from dist alike. To add one: build, run
@@ -26,4 +27,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261204010000_token_families_request_hashes', class: Migration20261204010000 },
   { name: 'Migration20261204020000_one_open_report', class: Migration20261204020000 },
   { name: 'Migration20261204040000_chi2_maps', class: Migration20261204040000 },
+  { name: 'Migration20261204050000_ring_event_opacity', class: Migration20261204050000 },
 ];

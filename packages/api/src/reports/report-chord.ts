@@ -83,8 +83,8 @@ export async function writeReportChord(em: EntityManager, w: ReportChordWrite): 
       },
       {
         type: input?.type ?? null,
-        disappearance: input?.type === 'positive' ? input.disappearance : null,
-        reappearance: input?.type === 'positive' ? input.reappearance : null,
+        disappearance: input?.type === 'positive' ? (input.disappearance ?? null) : null,
+        reappearance: input?.type === 'positive' ? (input.reappearance ?? null) : null,
         timingId: w.timing?.id ?? null,
         what: w.what,
         times: w.times,

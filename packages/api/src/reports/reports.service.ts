@@ -25,12 +25,13 @@ import { REPORT_VIEW_POPULATE, type ReportView, reportViewOf, reportViews } from
 
 /** The chord an accepted report stands for; clouded-out and failed reports stand for none. */
 export function chordOfReport(report: Report): ChordInput | null {
-  if (report.result === 'positive' && report.disappearance && report.reappearance)
+  // A positive with one time (a camera started late, a cloud) stands for a single-edge chord.
+  if (report.result === 'positive' && (report.disappearance || report.reappearance))
     return {
       station: report.station.code,
       type: 'positive',
-      disappearance: report.disappearance,
-      reappearance: report.reappearance,
+      ...(report.disappearance ? { disappearance: report.disappearance } : {}),
+      ...(report.reappearance ? { reappearance: report.reappearance } : {}),
       timeOffsetSeconds: 0,
     };
   if (report.result === 'negative' && report.observedFromUtc && report.observedToUtc)
@@ -44,9 +45,9 @@ export function chordOfReport(report: Report): ChordInput | null {
   return null;
 }
 
-/** A positive whose times are still to come from its light curve. */
+/** A positive with no time yet: its times are still to come from its light curve. */
 export function awaitsTiming(report: Report): boolean {
-  return report.result === 'positive' && (!report.disappearance || !report.reappearance);
+  return report.result === 'positive' && !report.disappearance && !report.reappearance;
 }
 
 /** Checks that the report makes a valid chord; `path` names the field of the refusal. */
@@ -295,15 +296,16 @@ export class ReportsService {
   async acceptTiming(
     user: AuthUser,
     timing: LightCurveTiming,
-    edges: { disappearance: TimedMark; reappearance: TimedMark },
+    edges: { disappearance: TimedMark | null; reappearance: TimedMark | null },
     replaceTimedChord: boolean,
   ): Promise<{ chordId: string; report: ReportView }> {
     const report = await this.find(timing.report.id);
+    // A timing of a curve that starts or ends inside the event holds one edge: a single-edge chord.
     const input: ChordInput = {
       station: report.station.code,
       type: 'positive',
-      disappearance: markCopy(edges.disappearance),
-      reappearance: markCopy(edges.reappearance),
+      ...(edges.disappearance ? { disappearance: markCopy(edges.disappearance) } : {}),
+      ...(edges.reappearance ? { reappearance: markCopy(edges.reappearance) } : {}),
       timeOffsetSeconds: 0,
     };
     let moved = false;
@@ -330,7 +332,7 @@ export class ReportsService {
           timingId: timing.id,
           reportId: report.id,
           before,
-          after: { disappearance: input.disappearance, reappearance: input.reappearance },
+          after: { disappearance: input.disappearance ?? null, reappearance: input.reappearance ?? null },
         },
       });
       if (moved) {

@@ -1,6 +1,12 @@
 // Step in the data flow: stored solved fits -> the geometry's shape-fit input. Each fit gives its limb
 // ellipse with 1-sigma, the star's direction and the instant the body was seen, light time removed.
-import { subMatrix, type EventInput, type ShapeEventInput, type Solution } from '@limbus/geometry';
+import {
+  chordFirstTimeUtc,
+  subMatrix,
+  type EventInput,
+  type ShapeEventInput,
+  type Solution,
+} from '@limbus/geometry';
 import type { FieldIssue } from '../common/domain-errors';
 
 // Exact by definition (SI, 17th CGPM 1983).
@@ -15,7 +21,7 @@ export interface ShapeSourceFit {
 
 function earliestTimingUtc(event: EventInput): string | null {
   const times: string[] = [];
-  for (const c of event.chords) times.push(c.type === 'positive' ? c.disappearance.time : c.start);
+  for (const c of event.chords) times.push(chordFirstTimeUtc(c));
   for (const r of event.ringEvents) times.push(r.start.time);
   // ISO 8601 UTC strings with Z sort as text in time order.
   return times.sort()[0] ?? null;

@@ -39,6 +39,18 @@ export function runTiming(csvText: string, options: TimingOptions): TimingView {
       flux: series.flux,
       ...(series.fluxErr === undefined ? {} : { fluxErr: series.fluxErr }),
       speedKmPerS: options.speedKmPerS,
+      edgeSpeedsKmPerS: {
+        disappearanceKmPerS: options.speedDisappearanceKmPerS ?? options.speedKmPerS,
+        reappearanceKmPerS: options.speedReappearanceKmPerS ?? options.speedKmPerS,
+      },
+      ...(options.ringOpeningAngleDeg === undefined
+        ? {}
+        : {
+            ringOpeningAngle: {
+              valueDeg: options.ringOpeningAngleDeg,
+              sigmaDeg: options.ringOpeningAngleSigmaDeg ?? 0,
+            },
+          }),
       exposureSeconds: options.exposureSeconds,
       profile,
       bottom: options.bottom,

@@ -2,13 +2,14 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { InjectQueue } from '@nestjs/bullmq';
 import { Injectable, Logger } from '@nestjs/common';
 import type { TimedMark } from '@limbus/geometry';
-import { parseUtc, secondsBetweenUtc } from '@limbus/schema';
+import { parseUtc, ringEventOpacity, secondsBetweenUtc } from '@limbus/schema';
 import type { Queue } from 'bullmq';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
 import { Chord } from '../chords/entities/chord.entity';
 import { RingEvent } from '../chords/entities/ring-event.entity';
 import { ConflictError, NotFoundError, ValidationError } from '../common/domain-errors';
+import { FitRun } from '../fits/entities/fit-run.entity';
 import { enqueueOrLeaveToSweep } from '../queue/bounded-enqueue';
 import { Report } from '../reports/entities/report.entity';
 import { assertSeesReport } from '../reports/report-privacy';
@@ -109,13 +110,25 @@ export class TimingsService {
     return timing;
   }
 
-  /** Speed, distance and exposure to start a timing of this report's light curve from. */
+  /**
+   * Speed, distance and exposure to start a timing of this report's light curve from, and each edge's
+   * limb-normal speed from the event's latest solved fit, else its prediction settings.
+   */
   async defaults(user: AuthUser, eventId: string, reportId: string): Promise<TimingDefaults> {
     const report = await this.report(eventId, reportId);
     await assertSeesReport(this.em, user, report, NO_SUCH_REPORT);
     // Every station: a report may come from a planned site that no chord names yet.
     const file = planningFileOf(await loadEventRows(this.em, report.event));
-    return timingDefaultsOf(file, report.station.code, report, report.station.exposureSeconds);
+    const fit = await this.em.findOne(
+      FitRun,
+      { event: report.event, state: 'solved' },
+      { orderBy: { finishedAt: 'desc', createdAt: 'desc' }, populate: ['solution'] },
+    );
+    const solution = fit?.solution ?? null;
+    return timingDefaultsOf(file, report.station.code, report, report.station.exposureSeconds, {
+      fit: fit && solution ? { id: fit.id, limb: solution.limb, rings: solution.rings } : null,
+      prediction: report.event.prediction,
+    });
   }
 
   async create(
@@ -199,8 +212,9 @@ export class TimingsService {
     const timing = await this.timing(eventId, timingId);
     const result = this.solved(timing);
     const { disappearance, reappearance } = result;
-    if (disappearance === null || reappearance === null) {
-      throw new ConflictError('The timing found no disappearance and reappearance to put in a chord');
+    // One edge is enough: a curve that starts or ends inside the event gives a single-edge chord.
+    if (disappearance === null && reappearance === null) {
+      throw new ConflictError('The timing found no disappearance or reappearance to put in a chord');
     }
     return this.reports.acceptTiming(user, timing, { disappearance, reappearance }, replaceTimedChord);
   }
@@ -230,10 +244,13 @@ export class TimingsService {
       const made = [...new Set(indexes)].map((index, k) => {
         const dip = result.dips[index];
         if (!dip) throw new NotFoundError('No such dip');
+        // The dip's apparent opacity goes with it, so that a fit can give the ring's optical depths there.
+        const apparentOpacity = ringEventOpacity(dip);
         const ringEvent = new RingEvent(timing.event, timing.report.station, {
           ring: payload.ring,
           start: markCopy(dip.start),
           end: markCopy(dip.end),
+          ...(apparentOpacity === null ? {} : { apparentOpacity }),
         });
         ringEvent.report = timing.report;
         ringEvent.position = position + k + 1;

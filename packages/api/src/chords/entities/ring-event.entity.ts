@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { Entity, ManyToOne, Opt, PrimaryKey, Property } from '@mikro-orm/core';
-import type { TimedMark } from '@limbus/geometry';
+import type { DipOpacity, TimedMark } from '@limbus/geometry';
 import { OccultationEvent } from '../../events/entities/occultation-event.entity';
 import { Report } from '../../reports/entities/report.entity';
 import { Station } from '../../stations/entities/station.entity';
@@ -26,6 +26,10 @@ export class RingEvent {
   @Property({ type: 'json' })
   end: TimedMark;
 
+  /** The dip's apparent opacity from its light curve; null when it was timed without its depth. */
+  @Property({ type: 'json', nullable: true })
+  apparentOpacity: (DipOpacity & Opt) | null = null;
+
   @ManyToOne({ entity: () => Report, nullable: true, deleteRule: 'set null' })
   report: (Report & Opt) | null = null;
 
@@ -35,12 +39,13 @@ export class RingEvent {
   constructor(
     event: OccultationEvent,
     station: Station,
-    fields: { ring: string; start: TimedMark; end: TimedMark },
+    fields: { ring: string; start: TimedMark; end: TimedMark; apparentOpacity?: DipOpacity | undefined },
   ) {
     this.event = event;
     this.station = station;
     this.ring = fields.ring;
     this.start = fields.start;
     this.end = fields.end;
+    this.apparentOpacity = fields.apparentOpacity ? { ...fields.apparentOpacity } : null;
   }
 }
