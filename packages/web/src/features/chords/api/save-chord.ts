@@ -15,18 +15,26 @@ const later = (a: string, b: string) => Date.parse(b) > Date.parse(a);
 
 /** A chord as the event file states it (docs/file-formats.md, "Event file"), the server's payload too. */
 export const chordInputSchema = z.discriminatedUnion('type', [
+  // One edge alone is a single-edge chord (a camera started late, a cloud); neither is refused.
   z
     .object({
       station,
       type: z.literal('positive'),
-      disappearance: z.object({ time: utcTime, sigmaSeconds: sigma }),
-      reappearance: z.object({ time: utcTime, sigmaSeconds: sigma }),
+      disappearance: z.object({ time: utcTime, sigmaSeconds: sigma }).optional(),
+      reappearance: z.object({ time: utcTime, sigmaSeconds: sigma }).optional(),
       timeOffsetSeconds: offset,
     })
-    .refine((c) => later(c.disappearance.time, c.reappearance.time), {
-      path: ['reappearance', 'time'],
-      message: 'reappearance must come after disappearance',
-    }),
+    .refine((c) => c.disappearance !== undefined || c.reappearance !== undefined, {
+      path: [],
+      message: 'a positive chord needs a disappearance, a reappearance or both',
+    })
+    .refine(
+      (c) =>
+        c.disappearance === undefined ||
+        c.reappearance === undefined ||
+        later(c.disappearance.time, c.reappearance.time),
+      { path: ['reappearance', 'time'], message: 'reappearance must come after disappearance' },
+    ),
   z
     .object({ station, type: z.literal('negative'), start: utcTime, end: utcTime, timeOffsetSeconds: offset })
     .refine((c) => later(c.start, c.end), { path: ['end'], message: 'end must come after start' }),
@@ -35,9 +43,11 @@ export const chordInputSchema = z.discriminatedUnion('type', [
 export type ChordInput = z.infer<typeof chordInputSchema>;
 
 export function saveChord(eventId: string, chordId: string | null, input: ChordInput): Promise<void> {
-  return chordId === null
-    ? apiRequest(`/api/events/${encodeURIComponent(eventId)}/chords`, { method: 'POST', body: input })
-    : apiRequest(`/api/chords/${encodeURIComponent(chordId)}`, { method: 'PATCH', body: input });
+  if (chordId === null)
+    return apiRequest(`/api/events/${encodeURIComponent(eventId)}/chords`, { method: 'POST', body: input });
+  // PATCH keeps a field the body leaves out; an edge the chord no longer gives is sent as null to drop it.
+  const body = input.type === 'positive' ? { disappearance: null, reappearance: null, ...input } : input;
+  return apiRequest(`/api/chords/${encodeURIComponent(chordId)}`, { method: 'PATCH', body });
 }
 
 export function useSaveChord(eventId: string) {

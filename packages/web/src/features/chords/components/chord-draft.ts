@@ -36,6 +36,8 @@ function numberOf(text: string): number {
 }
 
 const FIELD_OF_PATH: Record<string, DraftField> = {
+  // The chord as a whole: a positive chord with neither edge.
+  '': 'from',
   station: 'station',
   'disappearance.time': 'from',
   'disappearance.sigmaSeconds': 'fromSigma',
@@ -50,13 +52,20 @@ export type DraftResult =
   { ok: true; input: ChordInput } | { ok: false; errors: Partial<Record<DraftField, string>> };
 
 export function parseDraft(draft: ChordDraft): DraftResult {
+  // An edge whose time and σ are both left empty is not given: a single-edge chord.
+  const edge = (time: string, sigma: string) =>
+    time.trim() === '' && sigma.trim() === ''
+      ? undefined
+      : { time: time.trim(), sigmaSeconds: numberOf(sigma) };
+  const disappearance = edge(draft.from, draft.fromSigma);
+  const reappearance = edge(draft.to, draft.toSigma);
   const candidate =
     draft.type === 'positive'
       ? {
           station: draft.station,
           type: draft.type,
-          disappearance: { time: draft.from.trim(), sigmaSeconds: numberOf(draft.fromSigma) },
-          reappearance: { time: draft.to.trim(), sigmaSeconds: numberOf(draft.toSigma) },
+          ...(disappearance === undefined ? {} : { disappearance }),
+          ...(reappearance === undefined ? {} : { reappearance }),
           timeOffsetSeconds: numberOf(draft.offset),
         }
       : {

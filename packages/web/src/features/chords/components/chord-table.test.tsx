@@ -131,6 +131,49 @@ describe('ChordTable', () => {
     await waitFor(() => expect(screen.queryByRole('button', { name: 'Save' })).not.toBeInTheDocument());
   });
 
+  it('ChordTable shows a single-edge chord as one edge, and drops an edge cleared in the editor with null', async () => {
+    const single = {
+      ...CHORDS[0],
+      id: 'c4',
+      station: 'late-start',
+      disappearance: null,
+    };
+    const calls = stubFetch((call) =>
+      call.method === 'PATCH' ? jsonResponse(200, {}) : jsonResponse(200, [...CHORDS, single]),
+    );
+    renderWithProviders(<ChordTable eventId="e1" stationCodes={[...STATIONS, 'late-start']} canEdit />);
+    const grid = await screen.findByRole('grid', { name: 'Chord table' });
+    const row = grid.querySelector('[data-chord-row="late-start"]');
+    expect(row).toHaveTextContent('one edge (reappearance only)');
+    expect(row).toHaveTextContent('not observed');
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('button', { name: 'Edit chord of kestrel-hill' }));
+    expect(screen.getByText(/gives a single-edge chord/)).toBeInTheDocument();
+    await user.clear(screen.getByRole('textbox', { name: 'Disappearance, kestrel-hill' }));
+    await user.clear(screen.getByRole('textbox', { name: 'Disappearance σ (s), kestrel-hill' }));
+    await user.click(screen.getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(calls.some((c) => c.method === 'PATCH')).toBe(true));
+    expect(calls.find((c) => c.method === 'PATCH')?.body).toEqual({
+      station: 'kestrel-hill',
+      type: 'positive',
+      disappearance: null,
+      reappearance: { time: '2029-05-17T03:12:49.900Z', sigmaSeconds: 0.05 },
+      timeOffsetSeconds: 0,
+    });
+  });
+
+  it('ChordTable refuses a positive chord with neither edge and sends nothing', async () => {
+    const calls = stubFetch(() => jsonResponse(200, CHORDS));
+    renderWithProviders(<ChordTable eventId="e1" stationCodes={STATIONS} canEdit />);
+    const user = userEvent.setup();
+    await user.click(await screen.findByRole('button', { name: 'Add chord' }));
+    await user.click(screen.getByRole('button', { name: 'Save' }));
+    expect(await screen.findByRole('alert')).toHaveTextContent(
+      'a positive chord needs a disappearance, a reappearance or both',
+    );
+    expect(calls.filter((c) => c.method !== 'GET')).toHaveLength(0);
+  });
+
   it('ChordTable hides editing for a read-only role and says why "Add chord" is greyed out', async () => {
     const calls = stubFetch(() => jsonResponse(200, CHORDS));
     renderWithProviders(<ChordTable eventId="e1" stationCodes={STATIONS} canEdit={false} />);

@@ -41,6 +41,7 @@ const useStyles = makeStyles({
   actions: { display: 'flex', gap: tokens.spacingHorizontalXS },
   timeInput: { minWidth: '15em' },
   numberInput: { width: '6em' },
+  oneEdge: { display: 'block', color: tokens.colorNeutralForeground3 },
 });
 
 const NEW_ROW_ID = '__new__';
@@ -81,6 +82,17 @@ function toTime(c: ChordRow): string {
 }
 function sigmaText(mark: { sigmaSeconds: number } | null): string {
   return mark === null ? '—' : mark.sigmaSeconds.toFixed(3);
+}
+/** The one edge a single-edge positive chord gives ("disappearance" or "reappearance"), else null. */
+function singleEdge(c: ChordRow): 'disappearance' | 'reappearance' | null {
+  if (c.type !== 'positive') return null;
+  if (c.disappearance !== null && c.reappearance === null) return 'disappearance';
+  if (c.disappearance === null && c.reappearance !== null) return 'reappearance';
+  return null;
+}
+/** A time cell: a positive chord's edge it does not give reads "not observed", not a blank. */
+function timeText(c: ChordRow, time: string): string {
+  return time === '' && c.type === 'positive' ? 'not observed' : time;
 }
 
 const sourceText = (c: ChordRow | null) => (c?.source == null ? '' : chordSourceText(c.source));
@@ -189,10 +201,15 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
               <option value="negative">negative</option>
             </Select>
           ) : row.chord === null ? null : (
-            // Shape and word as well as colour: a filled badge for positive, an outlined one for negative.
-            <Badge appearance={row.chord.type === 'positive' ? 'filled' : 'outline'} color="informative">
-              {row.chord.type}
-            </Badge>
+            <>
+              {/* Shape and word as well as colour: a filled badge for positive, an outlined one for negative. */}
+              <Badge appearance={row.chord.type === 'positive' ? 'filled' : 'outline'} color="informative">
+                {row.chord.type}
+              </Badge>
+              {singleEdge(row.chord) ? (
+                <Caption1 className={styles.oneEdge}>one edge ({singleEdge(row.chord)} only)</Caption1>
+              ) : null}
+            </>
           ),
       }),
       createTableColumn<GridRow>({
@@ -208,7 +225,7 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
               styles.timeInput,
             )
           ) : (
-            <span className={styles.time}>{row.chord ? fromTime(row.chord) : ''}</span>
+            <span className={styles.time}>{row.chord ? timeText(row.chord, fromTime(row.chord)) : ''}</span>
           ),
       }),
       createTableColumn<GridRow>({
@@ -231,7 +248,7 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
           editing(row) ? (
             textInput(row, 'to', draft?.type === 'negative' ? 'Watch end' : 'Reappearance', styles.timeInput)
           ) : (
-            <span className={styles.time}>{row.chord ? toTime(row.chord) : ''}</span>
+            <span className={styles.time}>{row.chord ? timeText(row.chord, toTime(row.chord)) : ''}</span>
           ),
       }),
       createTableColumn<GridRow>({
@@ -345,6 +362,12 @@ export function ChordTable({ eventId, stationCodes, canEdit, importButton }: Cho
         </div>
         {canEdit ? importButton : null}
       </div>
+      {draft?.type === 'positive' ? (
+        <Caption1>
+          A station that saw only one edge (a camera started late, a cloud) gives a single-edge chord: leave
+          the other edge&apos;s time and σ empty.
+        </Caption1>
+      ) : null}
       {problems.length > 0 ? (
         <MessageBar intent="error" role="alert" layout="multiline">
           <MessageBarBody>

@@ -132,6 +132,29 @@ describe('SkyPlanePlot', () => {
     expect(svg.querySelector('path.limb')?.getAttribute('d')).toBe(limbBefore);
   });
 
+  it('SkyPlanePlot draws a single-edge chord as its one point with its error bar, and no segment', () => {
+    const solution = fixtureEvent.solution;
+    const index = solution.chords.findIndex((c) => c.type === 'positive');
+    const chord = solution.chords[index];
+    const input = fixtureEvent.chords[index];
+    if (chord === undefined || input?.type !== 'positive') throw new Error('a positive chord');
+    const single = { ...chord, points: chord.points.filter((p) => p.event === 'reappearance') };
+    const { disappearance: _dropped, ...lateStart } = input;
+    const chords = solution.chords.map((c, i) => (i === index ? single : c));
+    const inputs = fixtureEvent.chords.map((c, i) => (i === index ? lateStart : c));
+    renderWithProviders(<SkyPlanePlot solution={{ ...solution, chords }} chordInputs={inputs} />);
+    const svg = screen.getByRole('img', { name: /^Sky-plane plot/ });
+    const group = svg.querySelector(`[data-chord="${chord.station}"]`);
+    expect(group?.querySelector('.chord-segment')).toBeNull();
+    expect(group?.querySelectorAll('.endpoint-marker')).toHaveLength(1);
+    expect(group?.querySelectorAll('.error-bar')).toHaveLength(1);
+    expect(group?.querySelector('[data-event="reappearance"]')).not.toBeNull();
+    // The other positive chords keep their segment.
+    expect(svg.querySelectorAll('.chord-segment')).toHaveLength(4);
+    fireEvent.focus(group as Element);
+    expect(screen.getByRole('status')).toHaveTextContent('Disappearance not observed (single-edge chord)');
+  });
+
   it('SkyPlanePlot without a limb fit still draws the chords', () => {
     const { solution } = syntheticEvent(2, 1);
     renderWithProviders(<SkyPlanePlot solution={{ ...solution, limb: null, rings: [] }} />);

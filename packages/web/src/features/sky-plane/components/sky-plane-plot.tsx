@@ -89,12 +89,15 @@ function tipLines(
 ): string[] {
   const lines = [chord.type === 'positive' ? 'Positive chord' : 'Negative chord'];
   if (input?.type === 'positive') {
-    lines.push(
-      `Disappearance ${timeOf(input.disappearance.time)} ± ${input.disappearance.sigmaSeconds.toFixed(3)} s`,
-    );
-    lines.push(
-      `Reappearance ${timeOf(input.reappearance.time)} ± ${input.reappearance.sigmaSeconds.toFixed(3)} s`,
-    );
+    for (const [edge, mark] of [
+      ['Disappearance', input.disappearance],
+      ['Reappearance', input.reappearance],
+    ] as const)
+      lines.push(
+        mark === undefined
+          ? `${edge} not observed (single-edge chord)`
+          : `${edge} ${timeOf(mark.time)} ± ${mark.sigmaSeconds.toFixed(3)} s`,
+      );
   } else if (input?.type === 'negative') {
     lines.push(`Watched ${timeOf(input.start)} – ${timeOf(input.end)}`);
   }
@@ -306,7 +309,9 @@ export function SkyPlanePlot({
       .attr('stroke-dasharray', (d) => (d.type === 'positive' ? null : '6 4'));
 
     const positives = chordGroups.filter((d) => d.type === 'positive');
+    // A single-edge chord is its one point: there is no segment to draw between two edges.
     positives
+      .filter((d) => d.points.length >= 2)
       .append('line')
       .attr('class', 'chord-segment')
       .attr('stroke', plotPalette.positiveChord)
