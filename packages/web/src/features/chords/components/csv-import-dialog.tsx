@@ -132,7 +132,8 @@ export function CsvImportDialog({ eventId }: { eventId: string }) {
             <Body1 as="p">
               Nothing is written until the whole file passes the checks. A header row names the columns, in
               any order: station, type, disappearance_utc, disappearance_sigma_s, reappearance_utc,
-              reappearance_sigma_s, start_utc, end_utc, time_offset_s.
+              reappearance_sigma_s, start_utc, end_utc, time_offset_s. A positive row may leave both cells of
+              one edge empty when the station saw only the other (a single-edge chord).
             </Body1>
             <Field label="CSV file" validationMessage={fileError}>
               {(fieldProps) => (
