@@ -9,9 +9,18 @@ const positive = (what: string) =>
 /** The form's fields, checked before they are sent; the server checks them again. */
 export const createTimingInputSchema = z.object({
   speedKmPerS: positive('speedKmPerS'),
+  speedDisappearanceKmPerS: positive('speedDisappearanceKmPerS'),
+  speedReappearanceKmPerS: positive('speedReappearanceKmPerS'),
+  edgeSpeedsFrom: z.enum(['fit', 'prediction', 'full', 'entered']),
   distanceKm: positive('distanceKm'),
   exposureSeconds: positive('exposureSeconds'),
   bottom: z.enum(['free', 'zero']),
+  ringOpeningAngleDeg: z
+    .number()
+    .min(-90, 'ringOpeningAngleDeg must be within ±90°')
+    .max(90, 'ringOpeningAngleDeg must be within ±90°')
+    .optional(),
+  ringOpeningAngleSigmaDeg: z.number().nonnegative('ringOpeningAngleSigmaDeg must be 0 or more').optional(),
 });
 export type CreateTimingInput = z.infer<typeof createTimingInputSchema>;
 

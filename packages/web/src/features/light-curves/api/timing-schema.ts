@@ -1,11 +1,14 @@
+import { timingDocumentSchema } from '@limbus/schema/timing';
 import { z } from 'zod';
 
 // Shapes of the timing routes (docs/file-formats.md, "Light-curve timing job").
 export const TIMING_STATES = ['queued', 'running', 'solved', 'failed'] as const;
 export type TimingState = (typeof TIMING_STATES)[number];
 
-const timedMarkSchema = z.object({ time: z.string(), sigmaSeconds: z.number() });
-export type TimedMark = z.infer<typeof timedMarkSchema>;
+export interface TimedMark {
+  time: string;
+  sigmaSeconds: number;
+}
 
 export const timingOptionsSchema = z.object({
   speedKmPerS: z.number(),
@@ -17,6 +20,12 @@ export const timingOptionsSchema = z.object({
   bottom: z.enum(['free', 'zero']),
   detectionSigma: z.number(),
   markedDips: z.array(z.object({ startUtc: z.string(), endUtc: z.string() })),
+  // Added with each edge's own speed and the dips' normal optical depth; absent in older timings.
+  speedDisappearanceKmPerS: z.number().optional(),
+  speedReappearanceKmPerS: z.number().optional(),
+  edgeSpeedsFrom: z.enum(['fit', 'prediction', 'full', 'entered']).optional(),
+  ringOpeningAngleDeg: z.number().optional(),
+  ringOpeningAngleSigmaDeg: z.number().optional(),
 });
 
 export const timingSummarySchema = z.object({
@@ -34,30 +43,8 @@ export const timingSummarySchema = z.object({
   finishedAt: z.string().nullable(),
 });
 
-export const dipSchema = z.object({
-  start: timedMarkSchema,
-  end: timedMarkSchema,
-  apparentOpacity: z.number(),
-  apparentOpticalDepth: z.number().nullable(),
-  equivalentWidthKm: z.number(),
-  significance: z.number(),
-  marked: z.boolean(),
-});
-export type TimingDip = z.infer<typeof dipSchema>;
-
-export const timingResultSchema = z.object({
-  format: z.literal('limbus-timing/1'),
-  disappearance: timedMarkSchema.nullable(),
-  reappearance: timedMarkSchema.nullable(),
-  baselineFlux: z.number(),
-  bottomFlux: z.number().nullable(),
-  chi2: z.number(),
-  dof: z.number(),
-  fresnelScaleKm: z.number(),
-  starDiameterKm: z.number(),
-  noiseSigmaFlux: z.number().nullable(),
-  eventSignificance: z.number(),
-  dips: z.array(dipSchema),
+/** The limbus-timing/1 document (one schema in @limbus/schema/timing) with the series the plot draws. */
+export const timingResultSchema = timingDocumentSchema.extend({
   series: z.object({
     originUtc: z.string(),
     timesSeconds: z.array(z.number()),
@@ -67,6 +54,7 @@ export const timingResultSchema = z.object({
   }),
 });
 export type TimingResult = z.infer<typeof timingResultSchema>;
+export type TimingDip = TimingResult['dips'][number];
 
 export const timingDetailSchema = timingSummarySchema.extend({ result: timingResultSchema.nullable() });
 export type TimingSummary = z.infer<typeof timingSummarySchema>;

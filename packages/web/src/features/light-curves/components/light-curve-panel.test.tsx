@@ -2,7 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { LightCurvePanel } from './light-curve-panel';
-import { TEST_TIMING } from './test-timing';
+import { TEST_ONE_EDGE_RESULT, TEST_TIMING } from './test-timing';
 import { jsonResponse, renderWithProviders, stubFetch, type RecordedCall } from '@/testing/test-utils';
 
 afterEach(() => vi.unstubAllGlobals());
@@ -88,6 +88,14 @@ describe('LightCurvePanel', () => {
           exposureSeconds: 0.2,
           atUtc: '2028-03-14T02:13:55.500Z',
           atFrom: 'report',
+          edgeSpeeds: {
+            disappearanceKmPerS: 21.98765,
+            reappearanceKmPerS: 21.98765,
+            from: 'full',
+            fitId: null,
+            note: 'the full 21.99 km/s for both edges: the event has no solved fit and no prediction settings. An edge crossed obliquely is longer than this assumes',
+          },
+          rings: [],
         });
       if (call.url === '/api/events/e1/reports/r1/timings' && call.method === 'GET')
         return jsonResponse(200, []);
@@ -115,6 +123,94 @@ describe('LightCurvePanel', () => {
       distanceKm: 6162349871,
       exposureSeconds: 0.2,
     });
+  });
+
+  it("LightCurvePanel takes each edge's speed and a ring's B from the latest fit, and says where they came from", async () => {
+    const calls = stubFetch((call) => {
+      if (call.url === '/api/events/e1/reports/r1/timing-defaults')
+        return jsonResponse(200, {
+          speedKmPerS: 20,
+          distanceKm: 6162349871.4,
+          exposureSeconds: 0.2,
+          atUtc: '2028-03-14T02:13:55.500Z',
+          atFrom: 'report',
+          edgeSpeeds: {
+            disappearanceKmPerS: 8.7178,
+            reappearanceKmPerS: 11.2,
+            from: 'fit',
+            fitId: 'f1',
+            note: "limb-normal components of the 20.00 km/s shadow velocity where this station's track crosses the limb of the latest solved fit",
+          },
+          rings: [{ ring: 'R1', openingAngleDeg: 33, openingAngleSigmaDeg: 0.8, fitId: 'f1' }],
+        });
+      if (call.url === '/api/events/e1/reports/r1/timings' && call.method === 'GET')
+        return jsonResponse(200, []);
+      if (call.url === '/api/events/e1/reports/r1/timings')
+        return jsonResponse(202, { ...SUMMARY, id: 'tm2', state: 'queued' });
+      return jsonResponse(404, { message: 'unexpected' });
+    });
+    const user = userEvent.setup();
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit />,
+    );
+    expect(
+      await screen.findByText(/^Edge speeds from the latest solved fit: limb-normal components/),
+    ).toBeInTheDocument();
+    const d = screen.getByRole('textbox', { name: 'Disappearance edge speed (km/s)' });
+    expect(d).toHaveValue('8.718');
+    expect(screen.getByRole('textbox', { name: 'Reappearance edge speed (km/s)' })).toHaveValue('11.200');
+    await user.selectOptions(
+      screen.getByRole('combobox', { name: /Ring for the dips' normal optical depth/ }),
+      'R1',
+    );
+    await user.click(screen.getByRole('button', { name: 'Time light curve' }));
+    await vi.waitFor(() => expect(calls.some((c) => c.method === 'POST')).toBe(true));
+    expect(calls.find((c) => c.method === 'POST')?.body).toMatchObject({
+      speedKmPerS: 20,
+      speedDisappearanceKmPerS: 8.718,
+      speedReappearanceKmPerS: 11.2,
+      edgeSpeedsFrom: 'fit',
+      ringOpeningAngleDeg: 33,
+      ringOpeningAngleSigmaDeg: 0.8,
+    });
+    // A speed changed by hand is sent as entered.
+    await user.clear(d);
+    await user.type(d, '9');
+    await user.click(screen.getByRole('button', { name: 'Time light curve' }));
+    await vi.waitFor(() => expect(calls.filter((c) => c.method === 'POST')).toHaveLength(2));
+    expect(calls.filter((c) => c.method === 'POST')[1]?.body).toMatchObject({
+      speedDisappearanceKmPerS: 9,
+      edgeSpeedsFrom: 'entered',
+    });
+  });
+
+  it('LightCurvePanel shows a one-edge timing with its dip products ± 1σ and the lower limits it gives', async () => {
+    const oneEdge = { ...TEST_TIMING, result: TEST_ONE_EDGE_RESULT };
+    stubFetch((call) => {
+      if (call.url === '/api/events/e1/reports/r1/timings' && call.method === 'GET')
+        return jsonResponse(200, [SUMMARY]);
+      if (call.url === '/api/events/e1/timings/tm1' && call.method === 'GET')
+        return jsonResponse(200, oneEdge);
+      return jsonResponse(404, { message: 'unexpected' });
+    });
+    renderWithProviders(
+      <LightCurvePanel eventId="e1" reportId="r1" stationLabel="quillmoor" chord={null} canEdit />,
+    );
+    const times = await screen.findByRole('table', { name: 'Fitted times' });
+    expect(times).toHaveTextContent('Disappearance (edge at 8.72 km/s)');
+    expect(times).toHaveTextContent('not in this curve (it ends inside the event)');
+    // One edge is a single-edge chord: the accept stays open.
+    expect(screen.getByRole('button', { name: 'Accept timing into chord' })).toBeEnabled();
+    const dips = screen.getByRole('table', { name: 'Dip products' });
+    const row = within(dips).getAllByRole('row')[1];
+    // σ to two significant digits, the value to the same place.
+    expect(row).toHaveTextContent('0.600 ± 0.021');
+    expect(row).toHaveTextContent('0.916 ± 0.052');
+    expect(row).toHaveTextContent('0.499 ± 0.030');
+    expect(row).toHaveTextContent('(lower limits)');
+    expect(screen.getByText(/Dip 1 is narrower than the Fresnel scale/)).toHaveTextContent(
+      'opacity ≥ 0.257, τ ≥ 0.297, τ·|sin B| ≥ 0.162, equivalent depth ≥ 0.416 km',
+    );
   });
 
   it('LightCurvePanel for a reader shows the plot without the actions', async () => {

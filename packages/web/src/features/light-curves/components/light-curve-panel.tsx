@@ -76,9 +76,12 @@ function TimingForm({
 }) {
   const styles = useStyles();
   const [speed, setSpeed] = useState('');
+  const [speedD, setSpeedD] = useState('');
+  const [speedR, setSpeedR] = useState('');
   const [distance, setDistance] = useState('');
   const [exposure, setExposure] = useState('');
   const [bottom, setBottom] = useState<'free' | 'zero'>('free');
+  const [ring, setRing] = useState('');
   const [errors, setErrors] = useState<FieldErrors>({});
   const create = useCreateTiming(eventId, reportId, onQueued);
   const defaults = useTimingDefaults(eventId, reportId);
@@ -88,16 +91,36 @@ function TimingForm({
     if (d === undefined) return;
     const fill = (text: string) => (current: string) => (current === '' ? text : current);
     setSpeed(fill(d.speedKmPerS.toFixed(3)));
+    setSpeedD(fill(d.edgeSpeeds.disappearanceKmPerS.toFixed(3)));
+    setSpeedR(fill(d.edgeSpeeds.reappearanceKmPerS.toFixed(3)));
     setDistance(fill(d.distanceKm.toFixed(0)));
     if (d.exposureSeconds !== null) setExposure(fill(String(d.exposureSeconds)));
   }, [defaults.data]);
+  const rings = defaults.data?.rings ?? [];
   const onSubmit = (event: FormEvent) => {
     event.preventDefault();
+    // An edge speed left empty is the shadow speed; one changed from the default was entered by hand.
+    const edge = (text: string) => (text.trim() === '' ? speed : text);
+    const d = defaults.data?.edgeSpeeds;
+    const asDefault =
+      d !== undefined &&
+      edge(speedD).trim() === d.disappearanceKmPerS.toFixed(3) &&
+      edge(speedR).trim() === d.reappearanceKmPerS.toFixed(3);
+    const chosenRing = rings.find((r) => r.ring === ring);
     const parsed = createTimingInputSchema.safeParse({
       speedKmPerS: numberOf(speed),
+      speedDisappearanceKmPerS: numberOf(edge(speedD)),
+      speedReappearanceKmPerS: numberOf(edge(speedR)),
+      edgeSpeedsFrom: asDefault ? d.from : 'entered',
       distanceKm: numberOf(distance),
       exposureSeconds: numberOf(exposure),
       bottom,
+      ...(chosenRing === undefined
+        ? {}
+        : {
+            ringOpeningAngleDeg: chosenRing.openingAngleDeg,
+            ringOpeningAngleSigmaDeg: chosenRing.openingAngleSigmaDeg,
+          }),
     });
     if (!parsed.success) {
       setErrors(fieldErrorsFromZod(parsed.error));
@@ -111,6 +134,12 @@ function TimingForm({
       <div className={styles.row}>
         <Field label="Shadow speed (km/s)" validationMessage={errors.speedKmPerS}>
           <Input value={speed} onChange={(_, d) => setSpeed(d.value)} inputMode="decimal" />
+        </Field>
+        <Field label="Disappearance edge speed (km/s)" validationMessage={errors.speedDisappearanceKmPerS}>
+          <Input value={speedD} onChange={(_, d) => setSpeedD(d.value)} inputMode="decimal" />
+        </Field>
+        <Field label="Reappearance edge speed (km/s)" validationMessage={errors.speedReappearanceKmPerS}>
+          <Input value={speedR} onChange={(_, d) => setSpeedR(d.value)} inputMode="decimal" />
         </Field>
         <Field label="Distance (km)" validationMessage={errors.distanceKm}>
           <Input value={distance} onChange={(_, d) => setDistance(d.value)} inputMode="decimal" />
@@ -127,6 +156,20 @@ function TimingForm({
             <Radio value="free" label="fitted" />
             <Radio value="zero" label="zero flux" />
           </RadioGroup>
+        </Field>
+        <Field
+          label="Ring for the dips' normal optical depth"
+          hint="its opening angle B turns τ into τ·|sin B|"
+        >
+          <Select value={ring} onChange={(_, d) => setRing(d.value)}>
+            <option value="">none</option>
+            {rings.map((r) => (
+              <option key={r.ring} value={r.ring}>
+                {r.ring} (B = {r.openingAngleDeg.toFixed(2)} ± {r.openingAngleSigmaDeg.toFixed(2)}°, latest
+                fit)
+              </option>
+            ))}
+          </Select>
         </Field>
         <Button type="submit" appearance="primary" disabled={create.isPending}>
           Time light curve
@@ -146,31 +189,60 @@ const AT_FROM: Record<TimingDefaults['atFrom'], string> = {
   ephemeris: 'the middle of the ephemeris span',
 };
 
-/** Says where the prefilled speed and distance come from, so nobody takes them for measured values. */
+const EDGES_FROM: Record<TimingDefaults['edgeSpeeds']['from'], string> = {
+  fit: 'Edge speeds from the latest solved fit',
+  prediction: "Edge speeds from the prediction's circle",
+  full: 'Edge speeds: the full shadow speed',
+};
+
+/** Says where the prefilled speeds and distance come from, so nobody takes them for measured values. */
 function DefaultsNote({ defaults, error }: { defaults: TimingDefaults | undefined; error: Error | null }) {
   if (defaults !== undefined)
     return (
-      <p>
-        Speed and distance from the event&apos;s geometry at {defaults.atUtc.slice(11, 19)} UTC (
-        {AT_FROM[defaults.atFrom]})
-        {defaults.exposureSeconds === null
-          ? '; the station has no recorded exposure'
-          : ', exposure from the station'}
-        . Check them before timing.
-      </p>
+      <>
+        <p>
+          Speed and distance from the event&apos;s geometry at {defaults.atUtc.slice(11, 19)} UTC (
+          {AT_FROM[defaults.atFrom]})
+          {defaults.exposureSeconds === null
+            ? '; the station has no recorded exposure'
+            : ', exposure from the station'}
+          . Check them before timing.
+        </p>
+        <p>
+          {EDGES_FROM[defaults.edgeSpeeds.from]}: {defaults.edgeSpeeds.note}. Diffraction, the star&apos;s
+          disc and the exposure smear each edge over the limb-normal part of the shadow&apos;s motion there.
+        </p>
+      </>
     );
   if (error !== null)
     return <p>Speed and distance could not be taken from the event: {errorMessage(error)}</p>;
   return null;
 }
 
+/** Why an edge has no time: no event at all, or a curve that starts or ends inside it. */
+function missingEdgeText(result: TimingResult, edge: 'disappearance' | 'reappearance'): string {
+  if (result.disappearance === null && result.reappearance === null) return 'not found';
+  return edge === 'disappearance'
+    ? 'not in this curve (it starts inside the event)'
+    : 'not in this curve (it ends inside the event)';
+}
+
 function TimesTable({ result }: { result: TimingResult }) {
+  const speeds = result.edgeSpeedsKmPerS;
   const rows = [
-    { label: 'Disappearance', mark: result.disappearance },
-    { label: 'Reappearance', mark: result.reappearance },
+    {
+      label: `Disappearance${speeds ? ` (edge at ${speeds.disappearance.toFixed(2)} km/s)` : ''}`,
+      mark: result.disappearance,
+      missing: missingEdgeText(result, 'disappearance'),
+    },
+    {
+      label: `Reappearance${speeds ? ` (edge at ${speeds.reappearance.toFixed(2)} km/s)` : ''}`,
+      mark: result.reappearance,
+      missing: missingEdgeText(result, 'reappearance'),
+    },
     ...result.dips.flatMap((d, k) => [
-      { label: `Dip ${k + 1} start${d.marked ? ' (marked)' : ''}`, mark: d.start },
-      { label: `Dip ${k + 1} end${d.marked ? ' (marked)' : ''}`, mark: d.end },
+      { label: `Dip ${k + 1} start${d.marked ? ' (marked)' : ''}`, mark: d.start, missing: '' },
+      { label: `Dip ${k + 1} end${d.marked ? ' (marked)' : ''}`, mark: d.end, missing: '' },
     ]),
   ];
   return (
@@ -187,13 +259,90 @@ function TimesTable({ result }: { result: TimingResult }) {
           {rows.map((r) => (
             <TableRow key={r.label}>
               <TableCell>{r.label}</TableCell>
-              <TableCell>{r.mark?.time ?? 'not found'}</TableCell>
+              <TableCell>{r.mark?.time ?? r.missing}</TableCell>
               <TableCell>{r.mark ? `± ${r.mark.sigmaSeconds.toFixed(4)}` : ''}</TableCell>
             </TableRow>
           ))}
         </TableBody>
       </Table>
     </ScrollArea>
+  );
+}
+
+/** "value ± σ" with the σ to two significant digits and the value to the same place; "—" without one. */
+function withSigma(value: number | null | undefined, sigma: number | null | undefined, unit = ''): string {
+  if (value === null || value === undefined) return '—';
+  if (sigma === null || sigma === undefined || !(sigma > 0)) return `${value.toPrecision(3)}${unit}`;
+  const decimals = Math.max(0, 1 - Math.floor(Math.log10(sigma)));
+  return `${value.toFixed(decimals)} ± ${sigma.toFixed(decimals)}${unit}`;
+}
+
+/**
+ * Each dip's products along the station's track (docs/method.md, "Ring dips"): apparent opacity, optical
+ * depth τ and, with a ring's B, normal τ·|sin B|; its length, equivalent width and depth, each ± 1σ.
+ * A dip not resolved (narrower than the Fresnel scale, the star or one exposure) or opaque gives lower
+ * limits only, and the table says so.
+ */
+function DipsTable({ result }: { result: TimingResult }) {
+  if (result.dips.length === 0) return null;
+  const limited = result.dips.flatMap((d, k) => (d.lowerLimits ? [{ k, limits: d.lowerLimits }] : []));
+  return (
+    <>
+      <ScrollArea label="Dip products table">
+        <Table aria-label="Dip products" size="small">
+          <TableHeader>
+            <TableRow>
+              <TableHeaderCell>Dip</TableHeaderCell>
+              <TableHeaderCell>Apparent opacity</TableHeaderCell>
+              <TableHeaderCell>Optical depth τ</TableHeaderCell>
+              <TableHeaderCell>Normal τ·|sin B|</TableHeaderCell>
+              <TableHeaderCell>Length along track (km)</TableHeaderCell>
+              <TableHeaderCell>Equivalent width (km)</TableHeaderCell>
+              <TableHeaderCell>Equivalent depth (km)</TableHeaderCell>
+            </TableRow>
+          </TableHeader>
+          <TableBody>
+            {result.dips.map((d, k) => (
+              <TableRow key={d.start.time}>
+                <TableCell>
+                  {k + 1}
+                  {d.lowerLimits ? ' (lower limits)' : ''}
+                </TableCell>
+                <TableCell>{withSigma(d.apparentOpacity, d.apparentOpacitySigma)}</TableCell>
+                <TableCell>
+                  {d.apparentOpticalDepth === null
+                    ? 'opaque'
+                    : withSigma(d.apparentOpticalDepth, d.apparentOpticalDepthSigma)}
+                </TableCell>
+                <TableCell>{withSigma(d.normalOpticalDepth, d.normalOpticalDepthSigma)}</TableCell>
+                <TableCell>{withSigma(d.widthKm, d.widthKmSigma)}</TableCell>
+                <TableCell>{withSigma(d.equivalentWidthKm, d.equivalentWidthKmSigma)}</TableCell>
+                <TableCell>{withSigma(d.equivalentDepthKm, d.equivalentDepthKmSigma)}</TableCell>
+              </TableRow>
+            ))}
+          </TableBody>
+        </Table>
+      </ScrollArea>
+      {limited.map(({ k, limits }) => {
+        const bounds =
+          `opacity ≥ ${limits.apparentOpacity.toFixed(3)}, τ ≥ ${limits.apparentOpticalDepth.toFixed(3)}` +
+          (limits.normalOpticalDepth === null
+            ? ''
+            : `, τ·|sin B| ≥ ${limits.normalOpticalDepth.toFixed(3)}`) +
+          `, equivalent depth ≥ ${limits.equivalentDepthKm.toFixed(3)} km`;
+        return limits.reason === 'opaque' ? (
+          <p key={k}>
+            Dip {k + 1} is opaque: its optical depth has no upper bound, only lower limits at 1σ: {bounds}.
+          </p>
+        ) : (
+          <p key={k}>
+            Dip {k + 1} is {limits.reason}: its light curve fixes the light it removed (the equivalent width)
+            but not its depth and width apart, so the other values above are one fit among many equally good
+            ones. Lower limits: {bounds}.
+          </p>
+        );
+      })}
+    </>
   );
 }
 
@@ -261,7 +410,8 @@ function TimingActions({
   const [dipEnd, setDipEnd] = useState('');
   const [dipErrors, setDipErrors] = useState<FieldErrors>({});
   const result = timing.result;
-  const canAccept = result?.disappearance != null && result.reappearance != null;
+  // One edge is enough: a curve that starts or ends inside the event gives a single-edge chord.
+  const canAccept = result != null && (result.disappearance !== null || result.reappearance !== null);
 
   const onRings = () => {
     const parsed = ringNameSchema.safeParse(ring);
@@ -392,6 +542,7 @@ export function LightCurvePanel({ eventId, reportId, stationLabel, chord, canEdi
         <>
           <LightCurvePlot result={timing.data.result} stationLabel={stationLabel} />
           <TimesTable result={timing.data.result} />
+          <DipsTable result={timing.data.result} />
           {canEdit && (
             <TimingActions
               eventId={eventId}

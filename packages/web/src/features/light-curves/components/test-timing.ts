@@ -16,6 +16,34 @@ export const TEST_RESULT: TimingResult = {
   series: TEST_SERIES,
 };
 
+/** A timing of a curve that ends inside the event, with each edge's speed and a dip too short to resolve. */
+export const TEST_ONE_EDGE_RESULT: TimingResult = {
+  ...TEST_RESULT,
+  reappearance: null,
+  edgeSpeedsKmPerS: { disappearance: 8.72, reappearance: 20 },
+  dips: [
+    {
+      ...TEST_DIP,
+      apparentOpacitySigma: 0.021,
+      apparentOpticalDepthSigma: 0.052,
+      normalOpticalDepth: 0.499,
+      normalOpticalDepthSigma: 0.03,
+      widthKm: 0.6,
+      widthKmSigma: 0.04,
+      equivalentWidthKmSigma: 0.11,
+      equivalentDepthKm: 0.55,
+      equivalentDepthKmSigma: 0.05,
+      lowerLimits: {
+        reason: 'narrower than the Fresnel scale',
+        apparentOpacity: 0.257,
+        apparentOpticalDepth: 0.297,
+        normalOpticalDepth: 0.162,
+        equivalentDepthKm: 0.416,
+      },
+    },
+  ],
+};
+
 export const TEST_TIMING: TimingDetail = {
   id: 'tm1',
   reportId: 'r1',
