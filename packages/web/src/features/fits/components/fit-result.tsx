@@ -17,6 +17,7 @@ import {
 import type { Solution } from '@limbus/geometry';
 import { LIMB_PARAMETERS, readFitOptions, RING_CENTER_WORDS } from '@/lib/fit-numbers';
 import { formatValueSigma } from '@/lib/value-sigma';
+import { RingCrossingsTable } from './ring-crossings-table';
 
 const useStyles = makeStyles({
   result: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
@@ -155,6 +156,7 @@ export function FitResult({
                 This fit was stored before pole 1σ were computed; run it again to get them.
               </Body1>
             )}
+            <RingCrossingsTable ring={ring} />
           </section>
         );
       })}

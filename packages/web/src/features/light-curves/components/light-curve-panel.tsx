@@ -41,6 +41,7 @@ import { Loading, RequestFailed } from '@/components/request-state';
 import { ScrollArea } from '@/components/scroll-area';
 import { chordSourceText } from '@/components/timing-text';
 import { utcText } from '@/lib/utc-text';
+import { formatValueSigma } from '@/lib/value-sigma';
 
 const useStyles = makeStyles({
   panel: { display: 'flex', flexDirection: 'column', gap: tokens.spacingVerticalM },
@@ -269,12 +270,10 @@ function TimesTable({ result }: { result: TimingResult }) {
   );
 }
 
-/** "value ± σ" with the σ to two significant digits and the value to the same place; "—" without one. */
-function withSigma(value: number | null | undefined, sigma: number | null | undefined, unit = ''): string {
+/** "value ± σ" (the shared rounding: σ to two significant digits); "—" without a value. */
+function withSigma(value: number | null | undefined, sigma: number | null | undefined): string {
   if (value === null || value === undefined) return '—';
-  if (sigma === null || sigma === undefined || !(sigma > 0)) return `${value.toPrecision(3)}${unit}`;
-  const decimals = Math.max(0, 1 - Math.floor(Math.log10(sigma)));
-  return `${value.toFixed(decimals)} ± ${sigma.toFixed(decimals)}${unit}`;
+  return sigma === null || sigma === undefined ? value.toPrecision(3) : formatValueSigma(value, sigma);
 }
 
 /**
