@@ -22,6 +22,7 @@ import {
   ringEllipse,
 } from '../sky-geometry';
 import { SkyPlaneLegend } from './sky-plane-legend';
+import { formatValueSigma } from '@/lib/value-sigma';
 
 export interface SkyPlanePlotProps {
   solution: Solution;
@@ -282,7 +283,14 @@ export function SkyPlanePlot({
       .attr('stroke-width', 0.75);
     crossingMarks
       .append('title')
-      .text((d) => `Ring ${d.ring} crossing at ${d.station}, width ${d.radialWidthKm.toFixed(1)} km`);
+      .text(
+        (d) =>
+          `Ring ${d.ring} crossing at ${d.station}, radial width ${
+            d.radialWidthKmSigma === undefined
+              ? d.radialWidthKm.toFixed(1)
+              : formatValueSigma(d.radialWidthKm, d.radialWidthKmSigma)
+          } km`,
+      );
 
     const chordGroups = chordLayer
       .selectAll<SVGGElement, SolutionChord>('g')
